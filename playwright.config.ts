@@ -1,0 +1,26 @@
+import { defineConfig } from '@playwright/test';
+
+// `npm test` sets E2E_PORT, DATABASE_URL (a seeded throwaway database) and the mail catcher's
+// addresses; Playwright starts the built app on that port.
+const port = Number(process.env.E2E_PORT ?? 4173);
+
+export default defineConfig({
+	testDir: 'tests/e2e',
+	fullyParallel: false,
+	workers: 1,
+	retries: 0,
+	timeout: 30_000,
+	reporter: [['list'], ['json']],
+	use: {
+		baseURL: `http://127.0.0.1:${port}`,
+		trace: 'retain-on-failure',
+		launchOptions: { executablePath: '/usr/bin/chromium', args: ['--disable-gpu', '--disable-quic'] }
+	},
+	webServer: {
+		command: 'node build',
+		url: `http://127.0.0.1:${port}/api/health`,
+		reuseExistingServer: false,
+		timeout: 60_000,
+		env: { ...(process.env as Record<string, string>), HOST: '127.0.0.1', PORT: String(port), ORIGIN: `http://127.0.0.1:${port}` }
+	}
+});

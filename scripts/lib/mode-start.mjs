@@ -1,0 +1,73 @@
+// `npm start` (built app) and `npm run dev` (Vite dev server), both against the local cluster.
+import path from 'node:path';
+import { readConfig } from './config.mjs';
+import { chooseDataRoot, startCluster } from './postgres.mjs';
+import { ensureBuild } from './build.mjs';
+import { isPortFree } from './ports.mjs';
+import { run } from './run.mjs';
+import { SetupError, step } from './log.mjs';
+import { exited, startChild, stopChildren, tsx } from './services.mjs';
+import { startMailFake } from './mail.mjs';
+
+export async function main({ root, dev }) {
+	const config = readConfig();
+	if (!(await isPortFree(config.appPort, config.appHost))) {
+		throw new SetupError(
+			`Port ${config.appPort} on ${config.appHost} is already in use, so Polewise cannot serve there.`,
+			`Stop the program using it, or pick another port: PORT=3001 npm ${dev ? 'run dev' : 'start'}`
+		);
+	}
+
+	let cluster = null;
+	let databaseUrl = config.externalDatabaseUrl;
+	if (!databaseUrl) {
+		const dataRoot = chooseDataRoot(path.join(root, '.data'), root);
+		cluster = await startCluster({ dataRoot, port: config.dbPort, database: 'polewise' });
+		databaseUrl = cluster.url;
+	}
+	const children = [];
+	const shutdown = () => {
+		stopChildren(children);
+		cluster?.stop();
+	};
+	process.once('SIGINT', () => {
+		console.log('\nStopping Polewise and its database…');
+		shutdown();
+		process.exit(0);
+	});
+	process.once('SIGTERM', () => {
+		shutdown();
+		process.exit(0);
+	});
+
+	try {
+		const env = { DATABASE_URL: databaseUrl };
+		step('Migrating the database and seeding the demo workspace');
+		run(tsx(root), ['scripts/db.ts', 'setup'], { cwd: root, env: { ...process.env, ...env } });
+
+		const mail = await startMailFake(root, config, children);
+		Object.assign(env, mail.env);
+
+		const origin = `http://${config.appHost === '0.0.0.0' ? '127.0.0.1' : config.appHost}:${config.appPort}`;
+		let app;
+		if (dev) {
+			app = startChild(root, path.join(root, 'node_modules', '.bin', 'vite'), ['dev', '--host', config.appHost, '--port', String(config.appPort), '--strictPort'], env, { name: 'vite' });
+		} else {
+			ensureBuild(root);
+			app = startChild(root, process.execPath, ['build'], { ...env, HOST: config.appHost, PORT: String(config.appPort), ORIGIN: process.env.ORIGIN ?? origin }, { name: 'app' });
+		}
+		children.push(app);
+		console.log(`
+  Polewise is running at  ${origin}
+  Demo sign-in:           demo@polewise.test  /  polewise-demo
+  Caught e-mail:          ${mail.inboxUrl ?? 'sent through ' + (process.env.SMTP_URL ?? 'SMTP')}
+  Stop with Ctrl-C (the app and its database stop together; data is kept in .data/).
+`);
+		const code = await exited(app);
+		shutdown();
+		process.exit(code);
+	} catch (error) {
+		shutdown();
+		throw error;
+	}
+}

@@ -1,0 +1,29 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+/** An immutable snapshot of a sheet: the network document plus where things sit on the canvas. */
+export class SheetRevision extends Model<InferAttributes<SheetRevision>, InferCreationAttributes<SheetRevision>> {
+	declare id: CreationOptional<string>;
+	declare sheetId: string;
+	declare number: number;
+	declare authorId: string | null;
+	declare document: unknown;
+	declare layout: unknown;
+	declare message: string | null;
+	declare createdAt: CreationOptional<Date>;
+}
+
+export function initSheetRevision(sequelize: Sequelize) {
+	SheetRevision.init(
+		{
+			id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+			sheetId: { type: DataTypes.UUID, allowNull: false },
+			number: { type: DataTypes.INTEGER, allowNull: false },
+			authorId: { type: DataTypes.UUID, allowNull: true },
+			document: { type: DataTypes.JSONB, allowNull: false },
+			layout: { type: DataTypes.JSONB, allowNull: true },
+			message: { type: DataTypes.STRING(200), allowNull: true },
+			createdAt: DataTypes.DATE
+		},
+		{ sequelize, tableName: 'sheet_revisions', updatedAt: false }
+	);
+}

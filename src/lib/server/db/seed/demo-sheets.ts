@@ -1,0 +1,61 @@
+// Demo designs of the invented "Kestrel Ridge Instruments" lab. Values are our own, chosen to
+// show what Polewise explains; none is copied from a product or a publication.
+
+/** A 10:1 divider in front of a 1 MΩ ∥ 18 pF digitizer input, with 42 pF of cable and stray
+ * capacitance; the top capacitor is a little under the exact compensation value (6.67 pF). */
+export const digitizerDivider = {
+	schema: 1,
+	title: 'Digitizer input divider, 10:1',
+	elements: [
+		{ id: 'Vsig', type: 'V', nodes: ['src', 'gnd'], value: 1 },
+		{ id: 'Rsrc', type: 'R', nodes: ['src', 'tip'], value: '50' },
+		{ id: 'Rtop', type: 'R', nodes: ['tip', 'adc'], value: '9M' },
+		{ id: 'Ctop', type: 'C', nodes: ['tip', 'adc'], value: '6.8p' },
+		{ id: 'Ccable', type: 'C', nodes: ['adc', 'gnd'], value: '42p' },
+		{ id: 'Radc', type: 'R', nodes: ['adc', 'gnd'], value: '1M' },
+		{ id: 'Cadc', type: 'C', nodes: ['adc', 'gnd'], value: '18p' }
+	],
+	input: 'Vsig',
+	output: { node: 'adc', reference: 'gnd' }
+};
+
+/** A photodiode transimpedance stage, 100 kΩ with 1.5 pF feedback, on an amplifier modelled
+ * with one pole (open-loop gain 1e5, gain-bandwidth about 10 MHz) so its closing is visible. */
+export const photodiodeTia = {
+	schema: 1,
+	title: 'Photodiode transimpedance stage, 100 kΩ',
+	elements: [
+		{ id: 'Iph', type: 'I', nodes: ['inv', 'gnd'], value: 1e-6 },
+		{ id: 'Cpd', type: 'C', nodes: ['inv', 'gnd'], value: '12p' },
+		{ id: 'Rf', type: 'R', nodes: ['inv', 'out'], value: '100k' },
+		{ id: 'Cf', type: 'C', nodes: ['inv', 'out'], value: '1.5p' },
+		{ id: 'Gm', type: 'VCCS', nodes: ['gnd', 'int', 'gnd', 'inv'], value: '1m' },
+		{ id: 'Ro', type: 'R', nodes: ['int', 'gnd'], value: '100M' },
+		{ id: 'Cc', type: 'C', nodes: ['int', 'gnd'], value: '15.9n' },
+		{ id: 'Buf', type: 'VCVS', nodes: ['out', 'gnd', 'int', 'gnd'], value: 1 }
+	],
+	input: 'Iph',
+	output: { node: 'out', reference: 'gnd' }
+};
+
+/** A unity-gain second-order low-pass in front of a converter: corner near 100 kHz, Q ≈ 0.71. */
+export const antiAliasFilter = {
+	schema: 1,
+	title: 'Anti-alias filter, 2nd order, 100 kHz',
+	elements: [
+		{ id: 'Vin', type: 'V', nodes: ['in', 'gnd'], value: 1 },
+		{ id: 'R1', type: 'R', nodes: ['in', 'mid'], value: '11k' },
+		{ id: 'R2', type: 'R', nodes: ['mid', 'plus'], value: '11k' },
+		{ id: 'C1', type: 'C', nodes: ['mid', 'out'], value: '200p' },
+		{ id: 'C2', type: 'C', nodes: ['plus', 'gnd'], value: '100p' },
+		{ id: 'U1', type: 'OPAMP', nodes: ['plus', 'out', 'out'] }
+	],
+	input: 'Vin',
+	output: { node: 'out', reference: 'gnd' }
+};
+
+export const demoSheets = [
+	{ name: 'Digitizer input divider, 10:1', document: digitizerDivider },
+	{ name: 'Photodiode TIA, 100 kΩ', document: photodiodeTia },
+	{ name: 'Anti-alias filter, 100 kHz', document: antiAliasFilter }
+];
