@@ -2,6 +2,8 @@
 // and inside the built server. Add a file, then add it to this list; never edit a shipped one.
 import type { QueryInterface } from 'sequelize';
 import * as m0001 from './0001-accounts-and-sheets';
+import * as m0002 from './0002-auth';
+import * as m0003 from './0003-sharing';
 
 export interface Migration {
 	name: string;
@@ -9,4 +11,8 @@ export interface Migration {
 	down: (params: { context: QueryInterface }) => Promise<void>;
 }
 
-export const migrations: Migration[] = [{ name: '0001-accounts-and-sheets', ...m0001 }];
+export const migrations: Migration[] = [
+	{ name: '0001-accounts-and-sheets', ...m0001 },
+	{ name: '0002-auth', ...m0002 },
+	{ name: '0003-sharing', ...m0003 }
+];
