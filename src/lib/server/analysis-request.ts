@@ -1,0 +1,92 @@
+// Turning an HTTP request into an analysis task: size limits, JSON parsing, the shape check
+// and the response options. Each problem becomes an HttpProblem with the status to answer.
+import { z } from 'zod';
+import { networkDocumentSchema } from '../network/schema';
+import type { AnalyzeOptions } from '../solver';
+
+export const LIMITS = {
+	bodyBytes: 1_000_000,
+	elements: 3000,
+	timeoutMs: Number(process.env.ANALYSIS_TIMEOUT_MS ?? 15_000),
+	frequencyPoints: 5000,
+	stepPoints: 5000
+};
+
+export class HttpProblem extends Error {
+	constructor(
+		readonly status: number,
+		message: string,
+		readonly extra: Record<string, unknown> = {}
+	) {
+		super(message);
+	}
+}
+
+export async function readJsonBody(request: Request, maxBytes = LIMITS.bodyBytes): Promise<unknown> {
+	const declared = Number(request.headers.get('content-length') ?? 0);
+	if (declared > maxBytes) throw new HttpProblem(413, `request body is larger than ${maxBytes} bytes`);
+	const text = await request.text();
+	if (new TextEncoder().encode(text).length > maxBytes) {
+		throw new HttpProblem(413, `request body is larger than ${maxBytes} bytes`);
+	}
+	if (!text.trim()) throw new HttpProblem(400, 'request body is empty: send the network document as JSON');
+	try {
+		return JSON.parse(text);
+	} catch (error) {
+		throw new HttpProblem(400, `request body is not valid JSON (${(error as Error).message})`);
+	}
+}
+
+/** Name the offending element when a shape problem sits inside `elements[i]`. */
+function describeIssue(document: unknown, issue: z.core.$ZodIssue) {
+	const [head, index, ...rest] = issue.path;
+	const where = issue.path.join('.') || 'document';
+	if (head === 'elements' && typeof index === 'number') {
+		const raw = (document as { elements?: { id?: unknown }[] }).elements?.[index];
+		const id = typeof raw?.id === 'string' ? raw.id : undefined;
+		const field = rest.join('.') || 'element';
+		const label = id ? `element "${id}"` : `elements[${index}]`;
+		return { error: `${label}: ${field}: ${issue.message}`, ...(id ? { element: id } : {}) };
+	}
+	return { error: `${where}: ${issue.message}` };
+}
+
+export function checkDocument(document: unknown) {
+	const count = (document as { elements?: unknown[] })?.elements?.length;
+	if (typeof count === 'number' && count > LIMITS.elements) {
+		throw new HttpProblem(413, `the network has ${count} elements; the limit is ${LIMITS.elements}`);
+	}
+	const parsed = networkDocumentSchema.safeParse(document);
+	if (!parsed.success) {
+		const { error, ...extra } = describeIssue(document, parsed.error.issues[0]);
+		throw new HttpProblem(400, error, { code: 'bad_document', ...extra });
+	}
+	return parsed.data;
+}
+
+const positive = (name: string, max: number) =>
+	z.coerce.number({ error: `${name} must be a number` }).int(`${name} must be a whole number`).min(2, `${name} must be at least 2`).max(max, `${name} must be at most ${max}`);
+const frequency = (name: string) => z.coerce.number({ error: `${name} must be a number` }).positive(`${name} must be above 0 Hz`).finite();
+
+const optionsSchema = z
+	.object({
+		points: positive('points', LIMITS.frequencyPoints).optional(),
+		fMin: frequency('fMin').optional(),
+		fMax: frequency('fMax').optional(),
+		stepPoints: positive('stepPoints', LIMITS.stepPoints).optional(),
+		tEnd: z.coerce.number().positive('tEnd must be above 0 s').finite().optional(),
+		response: z.enum(['0', '1']).optional(),
+		step: z.enum(['0', '1']).optional()
+	})
+	.refine((o) => o.fMin === undefined || o.fMax === undefined || o.fMin < o.fMax, 'fMin must be below fMax');
+
+/** Response options from the query string: ?points=&fMin=&fMax=&stepPoints=&tEnd=&response=0&step=0 */
+export function readOptions(url: URL): AnalyzeOptions {
+	const parsed = optionsSchema.safeParse(Object.fromEntries(url.searchParams));
+	if (!parsed.success) throw new HttpProblem(400, parsed.error.issues[0].message, { code: 'bad_options' });
+	const o = parsed.data;
+	return {
+		frequency: o.response === '0' ? false : { points: o.points, fMin: o.fMin, fMax: o.fMax },
+		step: o.step === '0' ? false : { points: o.stepPoints, tEnd: o.tEnd }
+	};
+}
