@@ -14,8 +14,7 @@ const isRoot = process.getuid?.() === 0;
 const RUN_AS = 'postgres';
 
 /** Newest Debian PostgreSQL server binaries on this machine, or null. */
-function findBinaries() {
-	const base = '/usr/lib/postgresql';
+function findBinaries(base) {
 	if (!existsSync(base)) return null;
 	const majors = readdirSync(base)
 		.filter((v) => existsSync(path.join(base, v, 'bin', 'initdb')))
@@ -23,10 +22,10 @@ function findBinaries() {
 	return majors.length ? { major: majors[0], bin: path.join(base, majors[0], 'bin') } : null;
 }
 
-export function ensurePostgresInstalled() {
-	let found = findBinaries();
+export function ensurePostgresInstalled({ base = process.env.POLEWISE_PG_ROOT || '/usr/lib/postgresql', asRoot = isRoot } = {}) {
+	let found = findBinaries(base);
 	if (found) return found;
-	if (!isRoot) {
+	if (!asRoot) {
 		throw new SetupError(
 			'PostgreSQL server binaries are missing (no /usr/lib/postgresql/*/bin/initdb).',
 			'Install Debian’s server package, then run this command again:\n    sudo apt-get install -y postgresql'
@@ -37,7 +36,7 @@ export function ensurePostgresInstalled() {
 	run('apt-get', ['install', '-y', '-qq', 'postgresql'], {
 		env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' }
 	});
-	found = findBinaries();
+	found = findBinaries(base);
 	if (!found) throw new SetupError('apt-get finished but PostgreSQL binaries are still missing.');
 	return found;
 }
@@ -123,6 +122,22 @@ export async function startCluster({ dataRoot, port, database, quiet = false }) 
 		own(folder);
 	}
 
+	let pid = runningPid(dataDir);
+	if (pid && runningPort(dataDir) !== port) {
+		throw new SetupError(
+			`This project's PostgreSQL is already running on port ${runningPort(dataDir)} (pid ${pid}), not ${port}.`,
+			`Stop the other Polewise process first, or set POLEWISE_DB_PORT=${runningPort(dataDir)}.`
+		);
+	}
+	const ownedHere = !pid;
+	// Check the port before creating anything, so a clash costs nothing.
+	if (!pid && !(await isPortFree(port))) {
+		throw new SetupError(
+			`Port ${port} on 127.0.0.1 is already in use by another program, so PostgreSQL cannot start there.`,
+			'Stop that program, or choose another port: POLEWISE_DB_PORT=54339 npm start'
+		);
+	}
+
 	const versionFile = path.join(dataDir, 'PG_VERSION');
 	if (existsSync(versionFile)) {
 		const dataMajor = readFileSync(versionFile, 'utf8').trim();
@@ -141,21 +156,7 @@ export async function startCluster({ dataRoot, port, database, quiet = false }) 
 		run(cmd, args, opts);
 	}
 
-	let pid = runningPid(dataDir);
-	if (pid && runningPort(dataDir) !== port) {
-		throw new SetupError(
-			`This project's PostgreSQL is already running on port ${runningPort(dataDir)} (pid ${pid}), not ${port}.`,
-			`Stop the other Polewise process first, or set POLEWISE_DB_PORT=${runningPort(dataDir)}.`
-		);
-	}
-	const ownedHere = !pid;
 	if (!pid) {
-		if (!(await isPortFree(port))) {
-			throw new SetupError(
-				`Port ${port} on 127.0.0.1 is already in use by another program, so PostgreSQL cannot start there.`,
-				'Stop that program, or choose another port: POLEWISE_DB_PORT=54339 npm start'
-			);
-		}
 		if (!quiet) step(`Starting PostgreSQL on 127.0.0.1:${port}`);
 		const log = path.join(dataRoot, 'postgres.log');
 		if (!existsSync(log)) writeFileSync(log, '');
