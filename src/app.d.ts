@@ -4,7 +4,14 @@ declare global {
 		interface Error {
 			message: string;
 		}
-		// interface Locals {}
+		interface Locals {
+			/** The signed-in person (session cookie or API token), or null. */
+			user: { id: string; email: string; name: string } | null;
+			/** The browser session; null for API-token requests and signed-out visitors. */
+			session: { id: string; expiresAt: Date } | null;
+			/** How the request was authenticated. */
+			auth: 'session' | 'token' | null;
+		}
 		// interface PageData {}
 		// interface PageState {}
 		// interface Platform {}

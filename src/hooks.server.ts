@@ -1,4 +1,5 @@
 import { sequence } from '@sveltejs/kit/hooks';
 import { themeHandle } from '$lib/server/theme';
+import { authHandle } from '$lib/server/auth/handle';
 
-export const handle = sequence(themeHandle);
+export const handle = sequence(authHandle, themeHandle);

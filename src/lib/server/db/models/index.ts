@@ -6,6 +6,9 @@ import { initWorkspace, Workspace } from './workspace';
 import { initMembership, Membership } from './membership';
 import { initSheet, Sheet } from './sheet';
 import { initSheetRevision, SheetRevision } from './sheet-revision';
+import { initApiToken, ApiToken } from './api-token';
+import { initPasswordReset, PasswordReset } from './password-reset';
+import { initAuditEvent, AuditEvent } from './audit-event';
 
 let ready = false;
 
@@ -18,6 +21,12 @@ export function models() {
 		initMembership(sequelize);
 		initSheet(sequelize);
 		initSheetRevision(sequelize);
+		initApiToken(sequelize);
+		initPasswordReset(sequelize);
+		initAuditEvent(sequelize);
+		ApiToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+		PasswordReset.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+		AuditEvent.belongsTo(User, { foreignKey: 'actorId', as: 'actor' });
 		Session.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 		Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 		Membership.belongsTo(Workspace, { foreignKey: 'workspaceId', as: 'workspace' });
@@ -28,7 +37,7 @@ export function models() {
 		SheetRevision.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
 		ready = true;
 	}
-	return { User, Session, Workspace, Membership, Sheet, SheetRevision };
+	return { User, Session, Workspace, Membership, Sheet, SheetRevision, ApiToken, PasswordReset, AuditEvent };
 }
 
-export { User, Session, Workspace, Membership, Sheet, SheetRevision };
+export { User, Session, Workspace, Membership, Sheet, SheetRevision, ApiToken, PasswordReset, AuditEvent };
