@@ -1,0 +1,268 @@
+// The editor's state: what is drawn, what is selected, and the undo history. Every change goes
+// through `apply`, so every change is undoable and bumps `version` (which autosave and the live
+// analysis watch). Arrays are replaced, never mutated, so snapshots are cheap and `$state.raw`
+// keeps 200-element drawings fast.
+import { getContext, setContext } from 'svelte';
+import { snap, nextRotation } from './geometry';
+import { History } from './history';
+import { KINDS, isCircuit, isSource, type ItemKind } from './kinds';
+import { nameProblem, nextName } from './names';
+import { computeNets } from './nets';
+import { buildDocument } from './to-document';
+import { terminalKey, type EditorItem, type Snapshot, type TerminalRef, type Wire } from './types';
+
+const uid = (p: string) => `${p}-${Math.random().toString(36).slice(2, 10)}`;
+
+interface Clip {
+	items: EditorItem[];
+	wires: Wire[];
+}
+
+export class EditorState {
+	title = $state('');
+	items = $state.raw<EditorItem[]>([]);
+	wires = $state.raw<Wire[]>([]);
+	input = $state<string | null>(null);
+	selected = $state.raw<string[]>([]);
+	selectedWires = $state.raw<string[]>([]);
+	readonly = $state(false);
+	/** Bumps on every content change (not on selection). */
+	version = $state(0);
+	#history = new History<Snapshot>();
+	#historySize = $state({ past: 0, future: 0 });
+	#clip: Clip | null = null;
+
+	readonly built = $derived(buildDocument(this.snapshot));
+	readonly canUndo = $derived(this.#historySize.past > 0);
+	readonly canRedo = $derived(this.#historySize.future > 0);
+
+	get snapshot(): Snapshot {
+		return { title: this.title, items: this.items, wires: this.wires, input: this.input };
+	}
+
+	get selectedItems(): EditorItem[] {
+		const s = new Set(this.selected);
+		return this.items.filter((i) => s.has(i.id));
+	}
+
+	/** Replace everything (opening a sheet, loading another revision). */
+	load(s: Snapshot, { keepHistory = false } = {}): void {
+		if (keepHistory) this.#history.push(this.snapshot);
+		else this.#history.clear();
+		this.#set(s);
+		this.selected = [];
+		this.selectedWires = [];
+	}
+
+	#set(s: Snapshot): void {
+		this.title = s.title;
+		this.items = s.items;
+		this.wires = s.wires;
+		this.input = s.input;
+		this.version++;
+		this.#historySize = { past: this.#history.past.length, future: this.#history.future.length };
+	}
+
+	apply(next: Partial<Snapshot>, key?: string): void {
+		if (this.readonly) return;
+		this.#history.push(this.snapshot, key);
+		this.#set({ ...this.snapshot, ...next });
+	}
+
+	undo(): void {
+		const prev = this.readonly ? null : this.#history.undo(this.snapshot);
+		if (prev) this.#set(prev), this.#dropStaleSelection();
+	}
+
+	redo(): void {
+		const next = this.readonly ? null : this.#history.redo(this.snapshot);
+		if (next) this.#set(next), this.#dropStaleSelection();
+	}
+
+	#dropStaleSelection(): void {
+		const ids = new Set(this.items.map((i) => i.id));
+		this.selected = this.selected.filter((id) => ids.has(id));
+		const wids = new Set(this.wires.map((w) => w.id));
+		this.selectedWires = this.selectedWires.filter((id) => wids.has(id));
+	}
+
+	select(items: string[], wires: string[] = []): void {
+		this.selected = items;
+		this.selectedWires = wires;
+	}
+
+	addItem(kind: ItemKind, x: number, y: number): string | null {
+		if (kind === 'PROBE' && this.items.some((i) => i.kind === 'PROBE')) return null;
+		const info = KINDS[kind];
+		const item: EditorItem = {
+			id: uid('it'),
+			kind,
+			name: nextName(this.items, kind),
+			value: info.defaultValue ?? '',
+			x: snap(x - info.width / 2),
+			y: snap(y - info.height / 2),
+			rotation: 0,
+			flip: false
+		};
+		if (kind === 'CCCS' || kind === 'CCVS') {
+			const v = this.items.find((i) => i.kind === 'V');
+			if (v) item.control = v.name;
+		}
+		// The first source placed is taken as the input; people can change it.
+		const input = this.input ?? (isSource(kind) ? item.id : null);
+		this.apply({ items: [...this.items, item], input });
+		this.select([item.id]);
+		return item.id;
+	}
+
+	moveItems(positions: Map<string, { x: number; y: number }>): void {
+		let changed = false;
+		const items = this.items.map((i) => {
+			const p = positions.get(i.id);
+			if (!p || (p.x === i.x && p.y === i.y)) return i;
+			changed = true;
+			return { ...i, x: p.x, y: p.y };
+		});
+		if (changed) this.apply({ items });
+	}
+
+	updateItem(id: string, patch: Partial<EditorItem>, key?: string): void {
+		this.apply({ items: this.items.map((i) => (i.id === id ? { ...i, ...patch } : i)) }, key);
+	}
+
+	/** Returns the reason when the name is refused; controls that named the old one follow. */
+	rename(id: string, name: string): string | null {
+		const problem = nameProblem(this.items, id, name);
+		if (problem) return problem;
+		const old = this.items.find((i) => i.id === id)!;
+		const n = name.trim();
+		if (old.name === n) return null;
+		const follows = old.kind === 'V';
+		this.apply({
+			items: this.items.map((i) =>
+				i.id === id ? { ...i, name: n } : follows && i.control === old.name ? { ...i, control: n } : i
+			)
+		});
+		return null;
+	}
+
+	#transformSelected(f: (i: EditorItem) => EditorItem): void {
+		const s = new Set(this.selected);
+		if (s.size === 0) return;
+		this.apply({ items: this.items.map((i) => (s.has(i.id) ? f(i) : i)) });
+	}
+
+	rotateSelected(): void {
+		this.#transformSelected((i) => ({ ...i, rotation: nextRotation(i.rotation) }));
+	}
+
+	flipSelected(): void {
+		this.#transformSelected((i) => ({ ...i, flip: !i.flip }));
+	}
+
+	deleteSelected(): void {
+		const s = new Set(this.selected);
+		const sw = new Set(this.selectedWires);
+		if (s.size === 0 && sw.size === 0) return;
+		this.apply({
+			items: this.items.filter((i) => !s.has(i.id)),
+			wires: this.wires.filter((w) => !sw.has(w.id) && !s.has(w.from.item) && !s.has(w.to.item)),
+			input: this.input && s.has(this.input) ? null : this.input
+		});
+		this.select([]);
+	}
+
+	copy(): boolean {
+		const s = new Set(this.selected);
+		if (s.size === 0) return false;
+		this.#clip = {
+			items: this.items.filter((i) => s.has(i.id)),
+			wires: this.wires.filter((w) => s.has(w.from.item) && s.has(w.to.item))
+		};
+		return true;
+	}
+
+	cut(): void {
+		if (this.copy()) this.deleteSelected();
+	}
+
+	/** Paste the clipboard shifted by (dx, dy); new ids and free names; the copy is selected. */
+	paste(dx = 40, dy = 40): void {
+		const clip = this.#clip;
+		if (!clip || this.readonly) return;
+		const ids = new Map<string, string>();
+		const taken = new Set<string>();
+		const names = new Map<string, string>();
+		const hasProbe = this.items.some((i) => i.kind === 'PROBE');
+		const fresh: EditorItem[] = [];
+		for (const i of clip.items) {
+			if (i.kind === 'PROBE' && hasProbe) continue;
+			const id = uid('it');
+			ids.set(i.id, id);
+			const name = isCircuit(i.kind) ? nextName(this.items, i.kind, taken) : i.name;
+			taken.add(name);
+			names.set(i.name, name);
+			fresh.push({ ...i, id, name, x: i.x + dx, y: i.y + dy });
+		}
+		// A copied dependent source keeps following a copied control source.
+		for (const f of fresh) if (f.control && names.has(f.control) && clip.items.some((c) => c.kind === 'V' && c.name === f.control)) f.control = names.get(f.control);
+		const wires = clip.wires
+			.filter((w) => ids.has(w.from.item) && ids.has(w.to.item))
+			.map((w) => ({ id: uid('w'), from: { ...w.from, item: ids.get(w.from.item)! }, to: { ...w.to, item: ids.get(w.to.item)! } }));
+		this.apply({ items: [...this.items, ...fresh], wires: [...this.wires, ...wires] });
+		this.select(fresh.map((f) => f.id));
+		this.#clip = { items: fresh, wires };
+	}
+
+	duplicateSelected(): void {
+		const clip = this.#clip;
+		if (this.copy()) this.paste();
+		if (clip) this.#clip = clip;
+	}
+
+	connect(from: TerminalRef, to: TerminalRef): string | null {
+		if (from.item === to.item && from.terminal === to.terminal) return null;
+		const a = terminalKey(from);
+		const b = terminalKey(to);
+		const exists = this.wires.some((w) => {
+			const x = terminalKey(w.from);
+			const y = terminalKey(w.to);
+			return (x === a && y === b) || (x === b && y === a);
+		});
+		if (exists) return null;
+		const wire: Wire = { id: uid('w'), from, to };
+		this.apply({ wires: [...this.wires, wire] });
+		return wire.id;
+	}
+
+	setInput(id: string): void {
+		const item = this.items.find((i) => i.id === id);
+		if (item && isSource(item.kind) && this.input !== id) this.apply({ input: id });
+	}
+
+	/** Point the output marker's terminal ('pos' or 'neg') at a net; places the marker if needed. */
+	setOutputTerminal(which: 'pos' | 'neg', net: string): void {
+		const nets = computeNets(this.items, this.wires);
+		let items = this.items;
+		let probe = items.find((i) => i.kind === 'PROBE');
+		const target = nets.nets.find((n) => n.name === net)?.terminals.find((t) => !probe || !t.startsWith(`${probe.id}:`));
+		const [tItem, tTerm] = target ? target.split(':') : [null, null];
+		if (!probe) {
+			const anchor = items.find((i) => i.id === tItem);
+			probe = { id: uid('it'), kind: 'PROBE', name: '', value: '', x: snap((anchor?.x ?? 0) + 120), y: snap(anchor?.y ?? 0), rotation: 0, flip: false };
+			items = [...items, probe];
+		}
+		const pid = probe.id;
+		const mine = (r: TerminalRef) => r.item === pid && r.terminal === which;
+		const wires = this.wires.filter((w) => !mine(w.from) && !mine(w.to));
+		// Reference on gnd is the marker's unwired negative terminal; otherwise wire it.
+		if (tItem && tTerm && !(which === 'neg' && net === 'gnd')) {
+			wires.push({ id: uid('w'), from: { item: pid, terminal: which }, to: { item: tItem, terminal: tTerm } });
+		}
+		this.apply({ items, wires });
+	}
+}
+
+const KEY = Symbol('polewise-editor');
+export const setEditorContext = (s: EditorState) => setContext(KEY, s);
+export const getEditorContext = () => getContext<EditorState>(KEY);
