@@ -81,13 +81,21 @@ export async function getRevision(sheetId: string, number?: number, transaction?
 	return row ? plain<RevisionRecord>(row) : null;
 }
 
-export async function listRevisions(sheetId: string): Promise<Omit<RevisionRecord, 'document' | 'layout'>[]> {
-	const rows = await models().SheetRevision.findAll({
+export type RevisionSummary = Omit<RevisionRecord, 'document' | 'layout'> & { authorName: string | null };
+
+/** The history, newest first, with each author's name (null once the account is gone). */
+export async function listRevisions(sheetId: string): Promise<RevisionSummary[]> {
+	const { SheetRevision, User } = models();
+	const rows = await SheetRevision.findAll({
 		where: { sheetId },
 		attributes: ['id', 'sheetId', 'number', 'authorId', 'message', 'createdAt'],
+		include: [{ model: User, as: 'author', attributes: ['name'] }],
 		order: [['number', 'DESC']]
 	});
-	return rows.map((r) => plain(r));
+	return rows.map((r) => {
+		const { author, ...rest } = plain<Omit<RevisionRecord, 'document' | 'layout'> & { author: { name: string } | null }>(r);
+		return { ...rest, authorName: author?.name ?? null };
+	});
 }
 
 /**
@@ -122,4 +130,95 @@ export async function saveRevision(
 		}
 		throw error;
 	}
+}
+
+export class SheetStateError extends Error {}
+
+export async function renameSheet(userId: string, sheetId: string, name: string): Promise<SheetRecord> {
+	const row = await models().Sheet.findByPk(sheetId, { rejectOnEmpty: true });
+	await row.update({ name, updatedBy: userId });
+	return plain<SheetRecord>(row);
+}
+
+/** A new sheet in the same workspace holding the newest revision's content as its revision 1. */
+export async function duplicateSheet(userId: string, sheetId: string, name: string) {
+	const source = await getSheet(sheetId);
+	const latest = await getRevision(sheetId);
+	if (!source || !latest) throw new SheetStateError('The sheet has no revision to copy.');
+	return createSheet({ userId, workspaceId: source.workspaceId, name, document: latest.document, layout: latest.layout });
+}
+
+export async function trashSheet(userId: string, sheetId: string): Promise<SheetRecord> {
+	const row = await models().Sheet.findByPk(sheetId, { rejectOnEmpty: true });
+	if (!row.trashedAt) await row.update({ trashedAt: new Date(), updatedBy: userId });
+	return plain<SheetRecord>(row);
+}
+
+export async function restoreSheet(userId: string, sheetId: string): Promise<SheetRecord> {
+	const row = await models().Sheet.findByPk(sheetId, { rejectOnEmpty: true });
+	if (row.trashedAt) await row.update({ trashedAt: null, updatedBy: userId });
+	return plain<SheetRecord>(row);
+}
+
+/** Delete for good, with every revision, grant and link (foreign keys cascade). Trash first. */
+export async function destroySheet(sheetId: string): Promise<void> {
+	const row = await models().Sheet.findByPk(sheetId, { rejectOnEmpty: true });
+	if (!row.trashedAt) throw new SheetStateError('Move the sheet to the trash before deleting it for good.');
+	await row.destroy();
+}
+
+/**
+ * Restore an old revision by saving its content as a new one on top of `baseRevision`, so the
+ * history only grows and a concurrent save still gets its 409.
+ */
+export async function restoreRevision(userId: string, sheetId: string, number: number, baseRevision: number): Promise<RevisionRecord> {
+	const old = await getRevision(sheetId, number);
+	if (!old) throw new SheetStateError(`Revision ${number} does not exist.`);
+	return saveRevision(userId, sheetId, { document: old.document, layout: old.layout, message: `Restored revision ${number}` }, baseRevision);
+}
+
+export const SHEET_SORTS = ['name', 'updated', 'status', 'author'] as const;
+export type SheetSort = (typeof SHEET_SORTS)[number];
+
+export interface SheetListQuery {
+	workspaceId: string;
+	q?: string;
+	sort?: SheetSort;
+	dir?: 'asc' | 'desc';
+	page?: number;
+	perPage?: number;
+	trashed?: boolean;
+}
+
+export interface SheetListRow extends SheetRecord {
+	updatedByName: string | null;
+}
+
+const SORT_SQL: Record<SheetSort, string> = {
+	name: 'lower(s.name)',
+	updated: 's.updated_at',
+	status: 's.status',
+	author: "lower(coalesce(u.name, ''))"
+};
+
+/** One page of a workspace's sheets, filtered by a text in the name, with the total count. */
+export async function listSheetsPage(query: SheetListQuery): Promise<{ rows: SheetListRow[]; total: number; page: number; perPage: number }> {
+	const perPage = Math.min(Math.max(query.perPage ?? 25, 1), 100);
+	const page = Math.max(query.page ?? 1, 1);
+	const sort = SORT_SQL[query.sort ?? 'updated'];
+	const dir = (query.dir ?? (query.sort === 'name' || query.sort === 'author' ? 'asc' : 'desc')) === 'asc' ? 'ASC' : 'DESC';
+	// The filter is a plain substring: escape LIKE's own wildcards so "50%" means 50%.
+	const pattern = query.q?.trim() ? `%${query.q.trim().replace(/[\\%_]/g, (c) => `\\${c}`)}%` : null;
+	const where = `s.workspace_id = :workspaceId AND s.trashed_at IS ${query.trashed ? 'NOT NULL' : 'NULL'}${pattern ? ' AND s.name ILIKE :pattern' : ''}`;
+	const replacements = { workspaceId: query.workspaceId, pattern, limit: perPage, offset: (page - 1) * perPage };
+	const [rows] = await db().query(
+		`SELECT s.id, s.workspace_id AS "workspaceId", s.name, s.status, s.latest_revision AS "latestRevision",
+		        s.created_by AS "createdBy", s.updated_by AS "updatedBy", s.trashed_at AS "trashedAt",
+		        s.created_at AS "createdAt", s.updated_at AS "updatedAt", u.name AS "updatedByName"
+		   FROM sheets s LEFT JOIN users u ON u.id = s.updated_by
+		  WHERE ${where} ORDER BY ${sort} ${dir}, s.id LIMIT :limit OFFSET :offset`,
+		{ replacements }
+	);
+	const [[count]] = (await db().query(`SELECT count(*)::int AS n FROM sheets s WHERE ${where}`, { replacements })) as [[{ n: number }], unknown];
+	return { rows: rows as SheetListRow[], total: count.n, page, perPage };
 }
