@@ -1,0 +1,101 @@
+import { assemble, type ReactiveMode } from './assemble';
+import { portModelFrom, SINGULAR_PIVOT, type PortModel } from './port-model';
+import { branchNodes } from './topology';
+import { UnionFind } from './union-find';
+import type { ResolvedNetwork } from './types';
+
+/**
+ * The resistive network at DC with each reactive element open, shorted or driven as a port:
+ * the engine of every time constant. Infinite readings are found from the structure, not from
+ * a near-singular solve: a current port whose terminals lie in different DC components sees
+ * an infinite resistance; a voltage port inside a loop of shorts draws an infinite current.
+ * Those ports are flagged `infinite`, and the matrix is solved without them (floating
+ * components anchored to ground, redundant shorts dropped) so the other readings stay exact.
+ */
+export interface DcPorts extends PortModel {
+	/** Per port: its own reading is infinite; its row and column are then meaningless. */
+	infinite: Uint8Array;
+	/** True when the reduced matrix was still singular (an active network without a DC solution). */
+	singular: boolean;
+}
+
+const VOLTAGE_EDGE = new Set(['V', 'VCVS', 'CCVS', 'OPAMP']);
+
+export function dcPorts(net: ResolvedNetwork, modeOf: (k: number) => ReactiveMode): DcPorts {
+	const n = net.nodeNames.length;
+	const els = net.elements;
+	// Shorts: the voltage-defined branches (acyclic by validation) then the shorted/voltage-port
+	// reactive ones; a reactive short that closes a loop is dropped from the equations.
+	const shorts = new UnionFind(n);
+	for (const e of els) if (VOLTAGE_EDGE.has(e.type)) shorts.union(...branchNodes(e));
+	const dropped = new Set<number>();
+	const shortLike = (k: number) => modeOf(k) === 'short' || modeOf(k) === 'vport';
+	for (const k of net.reactive) {
+		if (shortLike(k) && !shorts.union(els[k].nodes[0], els[k].nodes[1])) dropped.add(k);
+	}
+	const inLoop = new Set<number>();
+	for (const k of net.reactive) {
+		if (modeOf(k) !== 'vport') continue;
+		const uf = new UnionFind(n);
+		for (const e of els) if (VOLTAGE_EDGE.has(e.type)) uf.union(...branchNodes(e));
+		for (const j of net.reactive) if (j !== k && shortLike(j)) uf.union(els[j].nodes[0], els[j].nodes[1]);
+		if (uf.connected(els[k].nodes[0], els[k].nodes[1])) inLoop.add(k);
+	}
+	const mode = (k: number): ReactiveMode => (dropped.has(k) ? 'open' : modeOf(k));
+
+	// DC components through every branch that carries a determined current path.
+	const comp = new UnionFind(n);
+	els.forEach((e, k) => {
+		if (e.type === 'R' || VOLTAGE_EDGE.has(e.type)) comp.union(...branchNodes(e));
+		if ((e.type === 'C' || e.type === 'L') && (mode(k) === 'short' || mode(k) === 'vport')) {
+			comp.union(e.nodes[0], e.nodes[1]);
+		}
+	});
+	const a = assemble(net, mode);
+	// Anchor each floating component at one node: with no other way out, no current flows in the
+	// anchor, so it changes no reading that stays inside the component.
+	let gScale = 0;
+	for (let i = 0; i < a.size; i++) gScale = Math.max(gScale, Math.abs(a.g[i * a.size + i]));
+	const anchored = new Set<number>([comp.groundRoot()]);
+	for (let i = 0; i < n; i++) {
+		const r = comp.find(i);
+		if (anchored.has(r)) continue;
+		anchored.add(r);
+		a.g[i * a.size + i] += gScale || 1;
+	}
+
+	const full = net.reactive.filter((k) => modeOf(k) === 'iport' || modeOf(k) === 'vport');
+	const present = a.ports.map((p) => p.element);
+	const model = portModelFrom(a, 0);
+	const m = full.length;
+	const out: DcPorts = {
+		...model,
+		m,
+		H: new Float64Array(m * m),
+		h: new Float64Array(m),
+		g: new Float64Array(m),
+		gz: new Float64Array(m),
+		d: Float64Array.from(full.map((k) => (els[k].type === 'C' ? els[k].value : -els[k].value))),
+		elements: full,
+		infinite: new Uint8Array(m),
+		singular: model.pivotRatio < SINGULAR_PIVOT
+	};
+	// Scatter the solved ports back into the full port list.
+	const where = full.map((k) => present.indexOf(k));
+	for (let i = 0; i < m; i++) {
+		const k = full[i];
+		const [na, nb] = [els[k].nodes[0], els[k].nodes[1]];
+		const crosses = modeOf(k) === 'iport' && comp.find(na) !== comp.find(nb);
+		if (crosses || inLoop.has(k) || dropped.has(k) || where[i] < 0 || out.singular) out.infinite[i] = 1;
+		const pi = where[i];
+		if (pi < 0) continue;
+		out.h[i] = model.h[pi];
+		out.g[i] = model.g[pi];
+		out.gz[i] = model.gz[pi];
+		for (let j = 0; j < m; j++) {
+			const pj = where[j];
+			if (pj >= 0) out.H[i * m + j] = model.H[pi * model.m + pj];
+		}
+	}
+	return out;
+}

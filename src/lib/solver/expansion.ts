@@ -1,0 +1,145 @@
+import type { DcPorts } from './dc-ports';
+import type { Analysis, ExpansionCoefficient, ExpansionTerm, ResolvedNetwork } from './types';
+
+/**
+ * Time- and transfer-constant expansion (Hajimiri, IEEE TCAS-I 57(6), 2010):
+ *   H(s) = (a0 + a1 s + a2 s² + …) / (1 + b1 s + b2 s² + …),
+ *   b_k = Σ over k-sets {i < j < …} of τ_i⁰ τ_j^i τ_l^{ij} …   (zero-value τ, then each with the
+ *         earlier ones at their infinite value),
+ *   a_k = Σ over the same sets of the same product times H^{ij…} (the DC gain with the set at
+ *         infinite value).
+ * Each product telescopes into a principal minor of the time-constant matrix T = D·H
+ * (each τ is a Schur pivot), and each numerator term into a bordered minor, which is how they are
+ * computed here. Orders up to 3 are enumerated term by term (denominator pairs always,
+ * numerator pairs while m ≤ 200, triples while m ≤ 40); the coefficient itself, to order 12, comes from the exact poles and zeros, so the
+ * listed terms double as a check.
+ */
+const MAX_ORDER = 12;
+const LIST = 12;
+
+function det(a: number[][]): number {
+	const n = a.length;
+	const m = a.map((r) => r.slice());
+	let d = 1;
+	for (let k = 0; k < n; k++) {
+		let p = k;
+		for (let i = k + 1; i < n; i++) if (Math.abs(m[i][k]) > Math.abs(m[p][k])) p = i;
+		if (m[p][k] === 0) return 0;
+		if (p !== k) {
+			[m[p], m[k]] = [m[k], m[p]];
+			d = -d;
+		}
+		d *= m[k][k];
+		for (let i = k + 1; i < n; i++) {
+			const f = m[i][k] / m[k][k];
+			for (let j = k; j < n; j++) m[i][j] -= f * m[k][j];
+		}
+	}
+	return d;
+}
+
+/** e_k of the values (complex pairs give real results), k = 0..kMax. */
+function elementary(vals: { re: number; im: number }[], kMax: number): number[] {
+	const er = new Array(kMax + 1).fill(0);
+	const ei = new Array(kMax + 1).fill(0);
+	er[0] = 1;
+	for (const v of vals) {
+		for (let k = kMax; k >= 1; k--) {
+			er[k] += v.re * er[k - 1] - v.im * ei[k - 1];
+			ei[k] += v.re * ei[k - 1] + v.im * er[k - 1];
+		}
+	}
+	return er;
+}
+
+const inv = (p: { re: number; im: number }) => {
+	const d = p.re * p.re + p.im * p.im;
+	return { re: -p.re / d, im: p.im / d }; // −1/p
+};
+
+function subsets(m: number, k: number, each: (s: number[]) => void): void {
+	const s: number[] = [];
+	const rec = (start: number) => {
+		if (s.length === k) return each(s.slice());
+		for (let i = start; i < m; i++) {
+			s.push(i);
+			rec(i + 1);
+			s.pop();
+		}
+	};
+	rec(0);
+}
+
+export function expansion(
+	net: ResolvedNetwork,
+	oc: DcPorts,
+	poles: { re: number; im: number }[],
+	zeros: { re: number; im: number }[],
+	numeratorScale: number | null
+): Analysis['expansion'] {
+	if (oc.singular || oc.infinite.some((x) => x) || poles.some((p) => p.re === 0 && p.im === 0)) return null;
+	const m = oc.m;
+	const id = (i: number) => net.elements[oc.elements[i]].id;
+	const T = (i: number, j: number) => oc.d[i] * oc.H[i * m + j];
+	const bTot = elementary(poles.map(inv), Math.min(MAX_ORDER, poles.length));
+	const z0 = zeros.filter((z) => z.re === 0 && z.im === 0).length;
+	const aTot = elementary(zeros.filter((z) => z.re !== 0 || z.im !== 0).map(inv), Math.min(MAX_ORDER, zeros.length));
+
+	const denominator: ExpansionCoefficient[] = [];
+	const numerator: ExpansionCoefficient[] = [];
+	let pairTerms: ExpansionTerm[] = [];
+	for (let k = 1; k < bTot.length; k++) {
+		const terms: ExpansionTerm[] = [];
+		if (k === 1) for (let i = 0; i < m; i++) terms.push({ elements: [id(i)], value: T(i, i) });
+		if (k === 2) {
+			// All pairs at any size: O(m²) 2×2 minors, no allocation beyond the term itself.
+			for (let i = 0; i < m; i++) {
+				for (let j = i + 1; j < m; j++) {
+					terms.push({ elements: [id(i), id(j)], value: T(i, i) * T(j, j) - T(i, j) * T(j, i) });
+				}
+			}
+			pairTerms = terms;
+		}
+		if (k === 3 && m <= 40) {
+			subsets(m, k, (s) => {
+				terms.push({ elements: s.map(id), value: det(s.map((i) => s.map((j) => T(i, j)))) });
+			});
+		}
+		denominator.push(coefficient(k, bTot[k], terms));
+	}
+	for (let k = 0; k <= Math.min(MAX_ORDER, zeros.length); k++) {
+		const terms: ExpansionTerm[] = [];
+		if (k <= 1 || (k === 2 && m <= 200) || (k === 3 && m <= 40)) {
+			subsets(m, k, (s) => {
+				const rows = s.map((i) => [...s.map((j) => oc.H[i * m + j]), oc.h[i]]);
+				rows.push([...s.map((j) => oc.g[j]), oc.h0]);
+				const dd = s.reduce((p, i) => p * oc.d[i], 1);
+				terms.push({ elements: s.map(id), value: dd * det(rows) });
+			});
+		}
+		const value = numeratorScale === null ? NaN : k < z0 ? 0 : numeratorScale * aTot[k - z0];
+		numerator.push(coefficient(k, value, terms));
+	}
+	const b2 = denominator[1]?.value ?? 0;
+	const dominantPairs: { elements: [string, string]; value: number; fraction: number }[] = [];
+	let acc = 0;
+	for (const t of pairTerms.sort((x, y) => Math.abs(y.value) - Math.abs(x.value))) {
+		if (dominantPairs.length >= 5 || (b2 !== 0 && acc >= 0.9 * Math.abs(b2))) break;
+		acc += Math.abs(t.value);
+		dominantPairs.push({ elements: [t.elements[0], t.elements[1]], value: t.value, fraction: b2 ? t.value / b2 : 0 });
+	}
+	return { denominator, numerator, dominantPairs };
+}
+
+function coefficient(order: number, value: number, terms: ExpansionTerm[]): ExpansionCoefficient {
+	const listed = terms.length > 0 || order === 0;
+	const termSum = listed ? terms.reduce((s, t) => s + t.value, 0) : null;
+	const top = terms.slice().sort((a, b) => Math.abs(b.value) - Math.abs(a.value)).slice(0, LIST);
+	return {
+		order,
+		value: Number.isFinite(value) ? value : (termSum ?? NaN),
+		termSum,
+		termCount: terms.length,
+		terms: top
+	};
+}

@@ -1,0 +1,113 @@
+/**
+ * Dense LU with partial pivoting on flat Float64Arrays (row-major). ml-matrix's Matrix keeps
+ * rows as arrays behind get/set calls, which costs an order of magnitude on the n = 1000
+ * benchmark; the factor is reused for many right-hand sides (one per reactive port).
+ */
+export interface RealLU {
+	n: number;
+	lu: Float64Array;
+	piv: Int32Array;
+	/** Row equilibration: row i was multiplied by rs[i] so its largest entry is 1. */
+	rs: Float64Array;
+	/** Smallest |pivot| of the equilibrated matrix: a cheap singularity indicator. */
+	pivotRatio: number;
+}
+
+export function luFactor(a: Float64Array, n: number): RealLU {
+	const lu = a.slice();
+	const piv = new Int32Array(n);
+	// Node rows are in siemens and branch rows are dimensionless; equilibrating the rows makes
+	// one pivot threshold mean the same thing for a 1 TΩ leakage path and an op-amp branch.
+	const rs = new Float64Array(n);
+	for (let i = 0; i < n; i++) {
+		let mx = 0;
+		for (let j = 0; j < n; j++) mx = Math.max(mx, Math.abs(lu[i * n + j]));
+		rs[i] = mx > 0 ? 1 / mx : 1;
+		for (let j = 0; j < n; j++) lu[i * n + j] *= rs[i];
+	}
+	let minPivot = Infinity;
+	for (let k = 0; k < n; k++) {
+		let p = k;
+		let best = Math.abs(lu[k * n + k]);
+		for (let i = k + 1; i < n; i++) {
+			const v = Math.abs(lu[i * n + k]);
+			if (v > best) {
+				best = v;
+				p = i;
+			}
+		}
+		piv[k] = p;
+		if (p !== k) {
+			for (let j = 0; j < n; j++) {
+				const t = lu[k * n + j];
+				lu[k * n + j] = lu[p * n + j];
+				lu[p * n + j] = t;
+			}
+		}
+		minPivot = Math.min(minPivot, best);
+		const d = lu[k * n + k];
+		if (d === 0) continue;
+		const rowK = k * n;
+		for (let i = k + 1; i < n; i++) {
+			const rowI = i * n;
+			const f = lu[rowI + k] / d;
+			if (f === 0) continue;
+			lu[rowI + k] = f;
+			for (let j = k + 1; j < n; j++) lu[rowI + j] -= f * lu[rowK + j];
+		}
+	}
+	const pivotRatio = n === 0 ? 1 : minPivot;
+	return { n, lu, piv, rs, pivotRatio };
+}
+
+/** Solves in place: b becomes x. */
+export function luSolve(f: RealLU, b: Float64Array): Float64Array {
+	const { n, lu, piv, rs } = f;
+	for (let i = 0; i < n; i++) b[i] *= rs[i];
+	for (let k = 0; k < n; k++) {
+		const p = piv[k];
+		if (p !== k) {
+			const t = b[k];
+			b[k] = b[p];
+			b[p] = t;
+		}
+	}
+	for (let i = 1; i < n; i++) {
+		let s = b[i];
+		const row = i * n;
+		for (let j = 0; j < i; j++) s -= lu[row + j] * b[j];
+		b[i] = s;
+	}
+	for (let i = n - 1; i >= 0; i--) {
+		let s = b[i];
+		const row = i * n;
+		for (let j = i + 1; j < n; j++) s -= lu[row + j] * b[j];
+		b[i] = s / lu[row + i];
+	}
+	return b;
+}
+
+/** Solves Aᵀ x = b in place with the same factors (used for output functionals). */
+export function luSolveTransposed(f: RealLU, b: Float64Array): Float64Array {
+	const { n, lu, piv, rs } = f;
+	for (let i = 0; i < n; i++) {
+		let s = b[i];
+		for (let j = 0; j < i; j++) s -= lu[j * n + i] * b[j];
+		b[i] = s / lu[i * n + i];
+	}
+	for (let i = n - 1; i >= 0; i--) {
+		let s = b[i];
+		for (let j = i + 1; j < n; j++) s -= lu[j * n + i] * b[j];
+		b[i] = s;
+	}
+	for (let k = n - 1; k >= 0; k--) {
+		const p = piv[k];
+		if (p !== k) {
+			const t = b[k];
+			b[k] = b[p];
+			b[p] = t;
+		}
+	}
+	for (let i = 0; i < n; i++) b[i] *= rs[i];
+	return b;
+}

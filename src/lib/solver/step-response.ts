@@ -1,0 +1,102 @@
+import type { Modal } from './modal';
+
+/**
+ * Step response from the pole–residue form: for a unit step, Y(s) = H(s)/s, so
+ *   y(t) = D∞ + Σ r_i (e^{p_i t} − 1) / p_i     (r_i·t for a pole at the origin).
+ * Exact at any t with no time stepping, which matters here: a probe's poles 10⁵ apart would need
+ * 10⁵ steps per slow time constant to step through. (It assumes distinct poles; a defective
+ * pair shows up as huge opposite residues, which the analysis checks and warns about.)
+ */
+export function stepAt(md: Modal, t: number): number {
+	let y = md.direct;
+	for (const p of md.poles) {
+		if (p.re === 0 && p.im === 0) {
+			y += p.rr * t;
+			continue;
+		}
+		// r (e^{pt} − 1) / p, real part; expm1 keeps the early-time digits.
+		const er = Math.exp(p.re * t);
+		const cr = p.im === 0 ? Math.expm1(p.re * t) : er * Math.cos(p.im * t) - 1;
+		const ci = er * Math.sin(p.im * t);
+		const nr = p.rr * cr - p.ri * ci;
+		const ni = p.rr * ci + p.ri * cr;
+		const d = p.re * p.re + p.im * p.im;
+		y += (nr * p.re + ni * p.im) / d;
+	}
+	return y;
+}
+
+export interface StepResult {
+	t: number[];
+	y: number[];
+	riseTime: number | null;
+	overshoot: number | null;
+	settlingTime: number | null;
+	final: number | null;
+}
+
+/** Finds the t in [a, b] where f changes sign; 80 bisections reach double precision. */
+function bisect(f: (t: number) => number, a: number, b: number): number {
+	let fa = f(a);
+	for (let i = 0; i < 80 && b - a > 1e-15 * b; i++) {
+		const c = 0.5 * (a + b);
+		const fc = f(c);
+		if (fa <= 0 === fc <= 0) {
+			a = c;
+			fa = fc;
+		} else b = c;
+	}
+	return 0.5 * (a + b);
+}
+
+export function stepResponse(
+	md: Modal,
+	final: number | null,
+	tEnd: number,
+	tFast: number,
+	points: number
+): StepResult {
+	const n = Math.max(2, Math.floor(points));
+	const t = Array.from({ length: n }, (_, i) => (tEnd * i) / (n - 1));
+	const y = t.map((x) => stepAt(md, x));
+	if (final === null || final === 0 || !Number.isFinite(final)) {
+		return { t, y, riseTime: null, overshoot: null, settlingTime: null, final };
+	}
+	// Metrics on a dense log grid (fast and slow poles both resolved), refined by bisection.
+	const grid = [0];
+	const t0 = Math.min(tFast, tEnd) * 1e-3;
+	for (let i = 0; i <= 4000; i++) grid.push(t0 * (tEnd / t0) ** (i / 4000));
+	const u = (x: number) => stepAt(md, x) / final;
+	const vals = grid.map(u);
+	const cross = (level: number) => {
+		if (vals[0] >= level) return 0;
+		for (let i = 1; i < grid.length; i++) {
+			if (vals[i] >= level) return bisect((x) => u(x) - level, grid[i - 1], grid[i]);
+		}
+		return null;
+	};
+	const t10 = cross(0.1);
+	const t90 = cross(0.9);
+	const peak = Math.max(...vals);
+	let last = -1;
+	for (let i = grid.length - 1; i >= 0; i--) {
+		if (Math.abs(vals[i] - 1) > 0.01) {
+			last = i;
+			break;
+		}
+	}
+	let settling: number | null = 0;
+	if (last === grid.length - 1) settling = null;
+	else if (last >= 0) {
+		const side = vals[last] > 1 ? 1.01 : 0.99;
+		settling = bisect((x) => u(x) - side, grid[last], grid[last + 1]);
+	}
+	return {
+		t,
+		y,
+		riseTime: t10 !== null && t90 !== null ? t90 - t10 : null,
+		overshoot: Math.max(0, (peak - 1) * 100),
+		settlingTime: settling,
+		final
+	};
+}

@@ -1,0 +1,195 @@
+import { networkDocumentSchema, type ElementType } from '../network/schema';
+import { SolverError } from './errors';
+import { parseValue } from './parse-value';
+import { checkTopology } from './topology';
+import { GROUND, type ResolvedElement, type ResolvedNetwork, type Warning } from './types';
+
+const NODE_COUNT: Record<ElementType, number> = {
+	R: 2, C: 2, L: 2, V: 2, I: 2, CCCS: 2, CCVS: 2, VCCS: 4, VCVS: 4, OPAMP: 3
+};
+const UNIT: Record<ElementType, string | undefined> = {
+	R: 'Ω', C: 'F', L: 'H', V: 'V', I: 'A', VCCS: 'S', CCVS: 'Ω', VCVS: undefined, CCCS: undefined,
+	OPAMP: undefined
+};
+const KNOWN = new Set(Object.keys(NODE_COUNT));
+
+const isGround = (name: string) => name === 'gnd' || name === '0';
+
+/**
+ * The single front door: turns an untrusted document into a resolved network or throws the one
+ * SolverError that names the first problem. Order matters for the message a person sees: shape,
+ * then each element in document order, then references, then topology.
+ */
+export function validateNetwork(doc: unknown): ResolvedNetwork {
+	preflight(doc);
+	const parsed = networkDocumentSchema.safeParse(doc);
+	if (!parsed.success) throw fromZod(doc, parsed.error.issues[0]);
+	const d = parsed.data;
+	if (d.elements.length === 0) throw new SolverError('empty_network', 'the network has no elements');
+
+	const warnings: Warning[] = [];
+	const nodeIndex = new Map<string, number>();
+	const nodeNames: string[] = [];
+	const ids = new Map<string, number>();
+	const node = (raw: string | number) => {
+		const name = String(raw);
+		if (isGround(name)) return GROUND;
+		let i = nodeIndex.get(name);
+		if (i === undefined) {
+			i = nodeNames.length;
+			nodeIndex.set(name, i);
+			nodeNames.push(name);
+		}
+		return i;
+	};
+
+	const elements: ResolvedElement[] = d.elements.map((e, k) => {
+		if (ids.has(e.id)) {
+			throw new SolverError('duplicate_id', `element id "${e.id}" is used twice`, { element: e.id });
+		}
+		ids.set(e.id, k);
+		const want = NODE_COUNT[e.type];
+		if (e.nodes.length !== want) {
+			throw new SolverError(
+				'bad_nodes',
+				`element "${e.id}": type ${e.type} needs ${want} nodes, got ${e.nodes.length}`,
+				{ element: e.id }
+			);
+		}
+		const nodes = e.nodes.map(node);
+		if (want >= 2 && e.type !== 'OPAMP' && nodes[0] === nodes[1]) {
+			throw new SolverError(
+				'bad_nodes',
+				`element "${e.id}": both terminals are on node "${String(e.nodes[0])}"`,
+				{ element: e.id, node: String(e.nodes[0]) }
+			);
+		}
+		if (e.type === 'OPAMP' && nodes[2] === GROUND) {
+			throw new SolverError('bad_nodes', `element "${e.id}": the op-amp output is on gnd`, {
+				element: e.id,
+				node: 'gnd'
+			});
+		}
+		return { id: e.id, type: e.type, nodes, value: readValue(e), control: -1 };
+	});
+
+	for (const [k, e] of elements.entries()) {
+		if (e.type !== 'CCCS' && e.type !== 'CCVS') continue;
+		const ctl = d.elements[k].control;
+		const c = ctl === undefined ? undefined : ids.get(ctl);
+		if (c === undefined || elements[c].type !== 'V') {
+			const what = ctl === undefined ? 'has no "control"' : `control "${ctl}" is not a V element`;
+			throw new SolverError('unknown_control', `element "${e.id}": ${what}`, { element: e.id });
+		}
+		e.control = c;
+	}
+
+	const input = ids.get(d.input);
+	if (input === undefined || (elements[input].type !== 'V' && elements[input].type !== 'I')) {
+		throw new SolverError(
+			'bad_input',
+			input === undefined
+				? `input "${d.input}" is not an element of the network`
+				: `input "${d.input}" is a ${elements[input].type}, not a V or I source`,
+			{ element: d.input }
+		);
+	}
+	const outNode = outputNode(String(d.output.node), nodeIndex);
+	const refNode = outputNode(String(d.output.reference ?? 'gnd'), nodeIndex);
+	if (outNode === refNode) {
+		throw new SolverError('bad_nodes', `output node "${d.output.node}" is its own reference`, {
+			node: String(d.output.node)
+		});
+	}
+
+	for (const e of elements) {
+		if ((e.type === 'R' || e.type === 'C' || e.type === 'L') && e.value < 0) {
+			warnings.push({
+				code: 'negative_value',
+				message: `element "${e.id}" has a negative value (accepted, as in active models)`,
+				element: e.id
+			});
+		}
+	}
+	const net: ResolvedNetwork = {
+		title: d.title ?? '',
+		elements,
+		nodeNames,
+		input,
+		output: { node: outNode, reference: refNode },
+		reactive: elements.flatMap((e, i) => (e.type === 'C' || e.type === 'L' ? [i] : [])),
+		warnings
+	};
+	checkTopology(net);
+	return net;
+}
+
+function readValue(e: { id: string; type: ElementType; value?: string | number }): number {
+	if (e.type === 'OPAMP') return 0;
+	if (e.value === undefined) {
+		throw new SolverError('bad_value', `element "${e.id}": value is missing`, { element: e.id });
+	}
+	let v: number;
+	try {
+		v = parseValue(e.value, UNIT[e.type]);
+	} catch (err) {
+		if (!(err instanceof SolverError)) throw err;
+		throw new SolverError(err.code, `element "${e.id}": ${err.message}`, { element: e.id });
+	}
+	if (v === 0 && (e.type === 'R' || e.type === 'C' || e.type === 'L')) {
+		throw new SolverError('zero_value', `element "${e.id}": a ${e.type} of value 0 is not allowed`, {
+			element: e.id
+		});
+	}
+	return v;
+}
+
+function outputNode(name: string, nodeIndex: Map<string, number>): number {
+	if (isGround(name)) return GROUND;
+	const i = nodeIndex.get(name);
+	if (i === undefined) {
+		throw new SolverError('unknown_output_node', `output node "${name}" is not in the network`, {
+			node: name
+		});
+	}
+	return i;
+}
+
+/** Catches the mistakes zod would report vaguely, so the message names the element. */
+function preflight(doc: unknown): void {
+	if (typeof doc !== 'object' || doc === null || Array.isArray(doc)) {
+		throw new SolverError('bad_document', 'the network document must be a JSON object');
+	}
+	const els = (doc as { elements?: unknown }).elements;
+	if (Array.isArray(els) && els.length === 0) {
+		throw new SolverError('empty_network', 'the network has no elements');
+	}
+	if (!Array.isArray(els)) return;
+	for (const e of els) {
+		if (typeof e !== 'object' || e === null) continue;
+		const { id, type, value } = e as { id?: unknown; type?: unknown; value?: unknown };
+		const name = typeof id === 'string' ? id : '?';
+		if (typeof type === 'string' && !KNOWN.has(type)) {
+			throw new SolverError('unknown_type', `element "${name}": unknown type "${type}"`, {
+				element: name
+			});
+		}
+		if (typeof value === 'number' && !Number.isFinite(value)) {
+			throw new SolverError('non_finite', `element "${name}": value is not finite`, { element: name });
+		}
+	}
+}
+
+function fromZod(doc: unknown, issue: { path: PropertyKey[]; message: string }): SolverError {
+	const path = issue.path;
+	if (path[0] === 'elements' && typeof path[1] === 'number') {
+		const raw = (doc as { elements: Record<string, unknown>[] }).elements[path[1]];
+		const id = typeof raw?.id === 'string' ? raw.id : `#${path[1] + 1}`;
+		const field = String(path[2] ?? '');
+		const code = field === 'value' ? 'bad_value' : field === 'nodes' ? 'bad_nodes' : 'bad_document';
+		return new SolverError(code, `element "${id}": ${field || 'entry'}: ${issue.message}`, {
+			element: id
+		});
+	}
+	return new SolverError('bad_document', `${path.join('.') || 'document'}: ${issue.message}`);
+}
