@@ -49,6 +49,36 @@ function bisect(f: (t: number) => number, a: number, b: number): number {
 	return 0.5 * (a + b);
 }
 
+/** Golden-section search around the largest sample: the peak between grid points. */
+function refinePeak(u: (t: number) => number, grid: number[], vals: number[]): number {
+	let i = 0;
+	for (let k = 1; k < vals.length; k++) if (vals[k] > vals[i]) i = k;
+	if (i === 0 || i === vals.length - 1) return vals[i];
+	let a = grid[i - 1];
+	let b = grid[i + 1];
+	const r = (Math.sqrt(5) - 1) / 2;
+	let c = b - r * (b - a);
+	let d = a + r * (b - a);
+	let fc = u(c);
+	let fd = u(d);
+	for (let k = 0; k < 100 && b - a > 1e-14 * b; k++) {
+		if (fc > fd) {
+			b = d;
+			d = c;
+			fd = fc;
+			c = b - r * (b - a);
+			fc = u(c);
+		} else {
+			a = c;
+			c = d;
+			fc = fd;
+			d = a + r * (b - a);
+			fd = u(d);
+		}
+	}
+	return Math.max(vals[i], fc, fd);
+}
+
 export function stepResponse(
 	md: Modal,
 	final: number | null,
@@ -77,7 +107,7 @@ export function stepResponse(
 	};
 	const t10 = cross(0.1);
 	const t90 = cross(0.9);
-	const peak = Math.max(...vals);
+	const peak = refinePeak(u, grid, vals);
 	let last = -1;
 	for (let i = grid.length - 1; i >= 0; i--) {
 		if (Math.abs(vals[i] - 1) > 0.01) {

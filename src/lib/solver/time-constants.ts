@@ -30,7 +30,7 @@ export function openCircuitTimeConstants(net: ResolvedNetwork, oc: DcPorts): Tim
 		}
 		// Inductor: an infinite reading is an infinite current — zero resistance, infinite τ.
 		if (oc.infinite[i]) return { element: e.id, resistance: 0, tau: null };
-		return { element: e.id, resistance: finite(-1 / hkk), tau: -e.value * hkk };
+		return { element: e.id, resistance: finite(-1 / hkk), tau: -e.value * hkk + 0 };
 	});
 }
 
