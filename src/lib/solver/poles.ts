@@ -14,26 +14,31 @@ export interface Root {
 	vectors: EigenPair | null;
 }
 
-/** Polishing every root costs one complex N×N factorization per step; above this size only the
- *  roots whose μ is small (the ones that lost digits) are polished, at most MAX_POLISHED. */
-const POLISH_ALL_UP_TO = 120;
+/**
+ * Polishing costs a complex N×N factorization per step, so only the roots that lost digits are
+ * polished: those whose |μ| is below SMALL_MU·max|μ| (the QR iteration's absolute error
+ * ε·max|μ| is then more than ~1e-13 of the root), at most MAX_POLISHED of them, smallest first.
+ */
 const MAX_POLISHED = 40;
-const SMALL_MU = 1e-6;
+const SMALL_MU = 1e-3;
 
 function refine(sp: Spectrum, pen: Pencil, withVectors: boolean): Root[] {
 	let maxMu = 0;
 	for (const r of sp.s) maxMu = Math.max(maxMu, Math.hypot(r.muRe, r.muIm));
 	const roots: Root[] = [];
-	let polished = 0;
 	const snap = 1e-11 * sp.s0;
-	for (const r of sp.s) {
+	const mags = sp.s.map((r) => Math.hypot(r.muRe, r.muIm));
+	const chosen = new Set(
+		sp.s
+			.map((_, i) => i)
+			.filter((i) => mags[i] < SMALL_MU * maxMu && sp.s[i].im >= 0)
+			.sort((i, j) => mags[i] - mags[j])
+			.slice(0, MAX_POLISHED)
+	);
+	for (const [idx, r] of sp.s.entries()) {
 		if (r.im < 0) continue; // filled in from its partner below
 		let { re, im } = r;
-		const small = Math.hypot(r.muRe, r.muIm) < SMALL_MU * maxMu;
-		if (pen.n <= POLISH_ALL_UP_TO || (small && polished < MAX_POLISHED)) {
-			({ re, im } = polish(pen, re, im));
-			polished++;
-		}
+		if (chosen.has(idx)) ({ re, im } = polish(pen, re, im));
 		if (Math.hypot(re, im) < snap) {
 			re = 0;
 			im = 0;

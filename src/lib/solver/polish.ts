@@ -83,7 +83,7 @@ export function polish(pen: Pencil, re: number, im: number, maxIter = 6): { re: 
 			const step = Math.hypot(tr - sr, ti - si);
 			sr = tr;
 			si = im === 0 ? 0 : ti;
-			if (step <= 1e-15 * Math.hypot(sr, si)) break;
+			if (step <= 1e-14 * Math.hypot(sr, si)) break;
 		}
 		let mx = 0;
 		for (let i = 0; i < n; i++) mx = Math.max(mx, Math.hypot(wr[i], wi[i]));
