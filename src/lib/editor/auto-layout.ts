@@ -148,8 +148,9 @@ function wireUp(items: EditorItem[], placed: Placed[], doc: NetworkDocument): { 
 			const ay = item.y + pt.y;
 			if (nets[i] === 'gnd') {
 				// Its own ground mark just below (or beside) the terminal.
-				const g: EditorItem = { id: `it-g${marks.length + 1}`, kind: 'GND', name: '', value: '', x: ax - 20, y: ay + 20, rotation: 0, flip: false };
-				if (pt.side === 'top') g.y = ay - 60;
+				const g: EditorItem = { id: `it-g${marks.length + 1}`, kind: 'GND', name: '', value: '', x: ax - 20, y: ay, rotation: 0, flip: false };
+				// A terminal on the top edge gets an upside-down mark above it.
+				if (pt.side === 'top') Object.assign(g, { y: ay - 40, rotation: 180 });
 				marks.push(g);
 				wires.push({ id: `w-${wires.length + 1}`, from: { item: item.id, terminal: t.name }, to: { item: g.id, terminal: 'g' } });
 			} else pin(nets[i], item, t.name, ax, ay);

@@ -68,7 +68,9 @@ export function buildDocument(s: Snapshot): Built {
 		schema: 1,
 		...(s.title ? { title: s.title } : {}),
 		elements,
-		input: inputItem?.name ?? '',
+		// An unfinished drawing is still saved (nothing is lost); the problem above keeps it from
+		// being analysed, and the placeholder keeps the document within the format's shape.
+		input: inputItem?.name ?? 'none',
 		output
 	};
 	const layout: SheetLayout = { format: 'polewise-canvas', version: 1, items: s.items, wires: s.wires, input: s.input };

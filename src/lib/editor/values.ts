@@ -1,8 +1,6 @@
 // Reading values exactly as the network format does (the solver's own parser), and showing
 // them back in normal form so a person can see what was understood: "9.1M" → "9.1 MΩ".
-// The public index of the solver lands later; these two modules are its parse and format steps.
-import { parseValue } from '$lib/solver/parse-value';
-import { formatEngineering } from '$lib/solver/format';
+import { formatEngineering, parseValue } from '$lib/solver';
 import { KINDS, type ItemKind } from './kinds';
 
 export type ValueCheck = { ok: true; value: number; normal: string } | { ok: false; message: string };

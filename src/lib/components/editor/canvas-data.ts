@@ -1,0 +1,41 @@
+import type { EditorItem } from '$lib/editor/types';
+import type { SymbolFamily } from '$lib/editor/preferences.svelte';
+
+/** What a canvas node receives; rebuilt only for nodes whose item or state changed. */
+export interface ElementNodeData extends Record<string, unknown> {
+	item: EditorItem;
+	family: SymbolFamily;
+	lit: boolean;
+	fault: boolean;
+	faultMessage?: string;
+	faultTerminals: string[];
+	/** Terminals with at least one wire (drawn quietly; open ones show as rings). */
+	wiredTerminals: string[];
+	isInput: boolean;
+	negWired: boolean;
+	readonly: boolean;
+	normalValue?: string;
+	valueError: boolean;
+}
+
+export interface WireEdgeData extends Record<string, unknown> {
+	fault: boolean;
+	net: string;
+}
+
+export function sameNodeData(a: ElementNodeData, b: ElementNodeData): boolean {
+	return (
+		a.item === b.item &&
+		a.family === b.family &&
+		a.lit === b.lit &&
+		a.fault === b.fault &&
+		a.faultMessage === b.faultMessage &&
+		a.faultTerminals.join() === b.faultTerminals.join() &&
+		a.wiredTerminals.join() === b.wiredTerminals.join() &&
+		a.isInput === b.isInput &&
+		a.negWired === b.negWired &&
+		a.readonly === b.readonly &&
+		a.normalValue === b.normalValue &&
+		a.valueError === b.valueError
+	);
+}

@@ -1,0 +1,66 @@
+import { describe, expect, it } from 'vitest';
+import { LiveAnalysis } from './live-analysis.svelte';
+import type { NetworkDocument } from '$lib/network/schema';
+
+const doc = (v: string): NetworkDocument => ({
+	schema: 1,
+	elements: [{ id: 'R1', type: 'R', nodes: ['a', 'gnd'], value: v }],
+	input: 'V1',
+	output: { node: 'a' }
+});
+const wait = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+/** A fake server: answers after `ms`, and records whether each request was aborted. */
+function slowServer(ms: number) {
+	const seen: { body: string; aborted: boolean }[] = [];
+	const fetcher = (async (_url: string, init: RequestInit) => {
+		const entry = { body: String(init.body), aborted: false };
+		seen.push(entry);
+		init.signal?.addEventListener('abort', () => (entry.aborted = true));
+		await wait(ms);
+		if (init.signal?.aborted) throw new DOMException('aborted', 'AbortError');
+		return new Response(JSON.stringify({ poles: [], echo: JSON.parse(entry.body).elements[0].value }), { status: 200 });
+	}) as unknown as typeof fetch;
+	return { seen, fetcher };
+}
+
+describe('LiveAnalysis', () => {
+	it('a newer edit aborts the request in flight; only the newest answer is shown', async () => {
+		const { seen, fetcher } = slowServer(60);
+		const live = new LiveAnalysis(5, fetcher);
+		live.update(doc('1k'), []);
+		await wait(20);
+		live.update(doc('2k'), []);
+		await wait(150);
+		expect(seen.map((s) => s.aborted)).toEqual([true, false]);
+		expect((live.result as unknown as { echo: string }).echo).toBe('2k');
+		expect(live.status).toBe('done');
+	});
+
+	it('edits inside the pause are folded into one request', async () => {
+		const { seen, fetcher } = slowServer(5);
+		const live = new LiveAnalysis(30, fetcher);
+		for (const v of ['1', '10', '10k']) live.update(doc(v), []);
+		await wait(80);
+		expect(seen).toHaveLength(1);
+	});
+
+	it('a drawing with a problem sends nothing and says why', async () => {
+		const { seen, fetcher } = slowServer(5);
+		const live = new LiveAnalysis(5, fetcher);
+		live.update(doc('10pp'), [{ item: 'x', message: 'R1: bad value' }]);
+		await wait(40);
+		expect(seen).toHaveLength(0);
+		expect(live.status).toBe('blocked');
+		expect(live.problems[0].message).toMatch(/R1/);
+	});
+
+	it('a solver error keeps the element it names', async () => {
+		const fetcher = (async () => new Response(JSON.stringify({ error: 'node "a" is touched only by R1', code: 'dangling_node', node: 'a' }), { status: 422 })) as unknown as typeof fetch;
+		const live = new LiveAnalysis(1, fetcher);
+		live.update(doc('1k'), []);
+		await wait(30);
+		expect(live.status).toBe('failed');
+		expect(live.fault).toMatchObject({ node: 'a', code: 'dangling_node' });
+	});
+});
