@@ -4,6 +4,7 @@
 import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import { db } from './connection';
 import { models } from './models';
+import { SHEET_SORTS, type SheetSort } from '../../schemas/sheet-list';
 
 export class RevisionConflict extends Error {
 	constructor(readonly latest: RevisionRecord) {
@@ -177,8 +178,7 @@ export async function restoreRevision(userId: string, sheetId: string, number: n
 	return saveRevision(userId, sheetId, { document: old.document, layout: old.layout, message: `Restored revision ${number}` }, baseRevision);
 }
 
-export const SHEET_SORTS = ['name', 'updated', 'status', 'author'] as const;
-export type SheetSort = (typeof SHEET_SORTS)[number];
+export { SHEET_SORTS, type SheetSort };
 
 export interface SheetListQuery {
 	workspaceId: string;
@@ -188,10 +188,13 @@ export interface SheetListQuery {
 	page?: number;
 	perPage?: number;
 	trashed?: boolean;
+	/** With a user, each row also carries that user's grant on it (for per-row permissions). */
+	userId?: string;
 }
 
 export interface SheetListRow extends SheetRecord {
 	updatedByName: string | null;
+	grantRole: 'editor' | 'commenter' | 'viewer' | null;
 }
 
 const SORT_SQL: Record<SheetSort, string> = {
@@ -210,12 +213,13 @@ export async function listSheetsPage(query: SheetListQuery): Promise<{ rows: She
 	// The filter is a plain substring: escape LIKE's own wildcards so "50%" means 50%.
 	const pattern = query.q?.trim() ? `%${query.q.trim().replace(/[\\%_]/g, (c) => `\\${c}`)}%` : null;
 	const where = `s.workspace_id = :workspaceId AND s.trashed_at IS ${query.trashed ? 'NOT NULL' : 'NULL'}${pattern ? ' AND s.name ILIKE :pattern' : ''}`;
-	const replacements = { workspaceId: query.workspaceId, pattern, limit: perPage, offset: (page - 1) * perPage };
+	const replacements = { workspaceId: query.workspaceId, pattern, userId: query.userId ?? null, limit: perPage, offset: (page - 1) * perPage };
 	const [rows] = await db().query(
 		`SELECT s.id, s.workspace_id AS "workspaceId", s.name, s.status, s.latest_revision AS "latestRevision",
 		        s.created_by AS "createdBy", s.updated_by AS "updatedBy", s.trashed_at AS "trashedAt",
-		        s.created_at AS "createdAt", s.updated_at AS "updatedAt", u.name AS "updatedByName"
+		        s.created_at AS "createdAt", s.updated_at AS "updatedAt", u.name AS "updatedByName", g.role AS "grantRole"
 		   FROM sheets s LEFT JOIN users u ON u.id = s.updated_by
+		   LEFT JOIN sheet_grants g ON g.sheet_id = s.id AND g.user_id = :userId
 		  WHERE ${where} ORDER BY ${sort} ${dir}, s.id LIMIT :limit OFFSET :offset`,
 		{ replacements }
 	);

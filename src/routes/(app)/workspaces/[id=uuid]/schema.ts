@@ -1,0 +1,15 @@
+import { z } from 'zod';
+import { sheetName } from '$lib/schemas/names';
+import { SHEET_SORTS } from '$lib/schemas/sheet-list';
+
+export const createSheetSchema = z.object({ name: sheetName });
+export const renameSheetSchema = z.object({ id: z.uuid('Choose a sheet'), name: sheetName });
+export const sheetIdSchema = z.object({ id: z.uuid('Choose a sheet') });
+
+// The list's state lives in the URL so it can be bookmarked; anything odd falls back quietly.
+export const listParams = z.object({
+	q: z.string().max(100).catch(''),
+	sort: z.enum(SHEET_SORTS).catch('updated'),
+	dir: z.enum(['asc', 'desc']).optional().catch(undefined),
+	page: z.coerce.number().int().min(1).max(100_000).catch(1)
+});
