@@ -1,6 +1,7 @@
 // The role × action matrix: every standing a caller can have against every action, through the
 // JSON API handlers on real PostgreSQL (comment, and the link holder's changes, through the
-// access module: there is no comment route yet and a link carries no session to call them with).
+// access module: there is no comment route yet, and a link carries no session to call the
+// change routes with — without one they answer 401, the signed-out row).
 import { describe, expect, it } from 'vitest';
 import { useDatabase } from './support/database';
 import { call } from './support/handlers';
@@ -12,6 +13,8 @@ import * as sheetRoute from '../../src/routes/api/sheets/[id=uuid]/+server';
 import * as revisionsRoute from '../../src/routes/api/sheets/[id=uuid]/revisions/+server';
 import * as linksRoute from '../../src/routes/api/sheets/[id=uuid]/links/+server';
 import * as sharedRoute from '../../src/routes/api/shared/[token=token]/+server';
+import * as analysisRoute from '../../src/routes/api/sheets/[id=uuid]/revisions/[n=revision]/analysis/+server';
+import * as sharedAnalysisRoute from '../../src/routes/api/shared/[token=token]/analysis/+server';
 
 useDatabase();
 
@@ -59,6 +62,7 @@ async function attempt(world: World, role: Role, action: MatrixAction): Promise<
 	if (role === 'link') {
 		const actor: Actor = { kind: 'link', sheetId: id };
 		if (action === 'read' || action === 'delete') return (await call(sharedRoute.GET, { params: { token } })).status;
+		if (action === 'analyze') return (await call(sharedAnalysisRoute.GET, { params: { token } })).status;
 		return statusOf(authorizeSheet(actor, id, action === 'list' ? 'list' : action));
 	}
 	const user = role === 'signedOut' ? null : world[role];
@@ -81,7 +85,7 @@ async function attempt(world: World, role: Role, action: MatrixAction): Promise<
 		case 'comment':
 			return statusOf(authorizeSheet(user ? { kind: 'user', id: user.id } : { kind: 'nobody' }, id, 'comment'));
 		case 'analyze':
-			return statusOf(authorizeSheet(user ? { kind: 'user', id: user.id } : { kind: 'nobody' }, id, 'analyze'));
+			return (await call(analysisRoute.GET, { user, params: { id, n: '1' } })).status;
 	}
 }
 

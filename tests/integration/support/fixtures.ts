@@ -10,8 +10,8 @@ import type { SheetRole } from '../../../src/lib/server/db/models/workspace';
 
 export type Person = { id: string; email: string; name: string };
 
-export async function person(name: string): Promise<Person> {
-	const email = `${name.toLowerCase().replace(/\W+/g, '-')}-${randomUUID().slice(0, 8)}@example.test`;
+export async function person(name: string, address?: string): Promise<Person> {
+	const email = address ?? `${name.toLowerCase().replace(/\W+/g, '-')}-${randomUUID().slice(0, 8)}@example.test`;
 	const user = await models().User.create({ email, name, passwordHash: null });
 	return { id: user.id, email, name };
 }

@@ -1,0 +1,27 @@
+// The analysis of a stored revision, for the API and read-only links. Revisions are immutable,
+// so the same revision always gives the same result; a network the solver refuses is 422 with
+// the solver's code and the element or node at fault.
+import { json } from '@sveltejs/kit';
+import { analyze, SolverError } from '../../solver';
+import { problem } from '../api/respond';
+import type { Actor } from '../access';
+import { readRevision } from './sheet-actions';
+
+// Stored documents may hold up to 5000 elements; analysis in a request is held to fewer so one
+// call cannot hold the server for long (the POST /api/analyze limit is the same kind of bound).
+export const ANALYSIS_ELEMENT_LIMIT = 3000;
+
+export async function analysisResponse(actor: Actor, sheetId: string, number?: number): Promise<Response> {
+	const { revision } = await readRevision(actor, sheetId, number, 'analyze');
+	const count = (revision.document as { elements?: unknown[] }).elements?.length ?? 0;
+	if (count > ANALYSIS_ELEMENT_LIMIT) {
+		return problem(422, `Revision ${revision.number} has ${count} elements; analysis here is limited to ${ANALYSIS_ELEMENT_LIMIT}.`, { code: 'too_large' });
+	}
+	try {
+		const analysis = analyze(revision.document);
+		return json({ sheetId, revision: revision.number, analysis }, { headers: { 'cache-control': 'private, max-age=300' } });
+	} catch (e) {
+		if (e instanceof SolverError) return problem(422, e.message, { ...e.toJSON(), revision: revision.number });
+		throw e;
+	}
+}
