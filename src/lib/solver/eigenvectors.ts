@@ -13,22 +13,34 @@ export interface EigenPair {
 	yi: Float64Array;
 }
 
+/** Work arrays reused across eigenvalues: m² each, allocated once per matrix size. */
+let work: { n: number; ur: Float64Array; ui: Float64Array } | null = null;
+const norms = new WeakMap<Hessenberg, number>();
+
 export function eigenvectors(hs: Hessenberg, lr: number, li: number): EigenPair {
 	const n = hs.n;
 	const H = hs.h;
 	// Perturb the shift a hair off the computed eigenvalue so the factorization is not exactly
-	// singular; the iteration still converges in one or two steps because the ratio to the
-	// next eigenvalue is ~1e-10.
-	let norm = 0;
-	for (let i = 0; i < n * n; i++) norm = Math.max(norm, Math.abs(H[i]));
+	// singular; one inverse-iteration step then suffices, because the growth factor towards the
+	// wanted vector is about 1e13 against the next eigenvalue.
+	let norm = norms.get(hs);
+	if (norm === undefined) {
+		norm = 0;
+		for (let i = 0; i < n * n; i++) norm = Math.max(norm, Math.abs(H[i]));
+		norms.set(hs, norm);
+	}
 	const delta = Math.max(Math.hypot(lr, li), norm) * 1e-13 + Number.MIN_VALUE;
 	const sr = lr + delta;
 	const si = li;
 	// Factor (H − λI) = P L U with Hessenberg structure: at column k only rows k and k+1 compete.
-	const ur = new Float64Array(n * n);
-	const ui = new Float64Array(n * n);
+	if (!work || work.n !== n) work = { n, ur: new Float64Array(n * n), ui: new Float64Array(n * n) };
+	const { ur, ui } = work;
+	// Only the Hessenberg band is ever read or written, so only it is (re)initialized.
 	for (let i = 0; i < n; i++) {
-		for (let j = Math.max(0, i - 1); j < n; j++) ur[i * n + j] = H[i * n + j];
+		for (let j = Math.max(0, i - 1); j < n; j++) {
+			ur[i * n + j] = H[i * n + j];
+			ui[i * n + j] = 0;
+		}
 		ur[i * n + i] -= sr;
 		ui[i * n + i] = -si;
 	}
@@ -77,7 +89,7 @@ export function eigenvectors(hs: Hessenberg, lr: number, li: number): EigenPair 
 	const xi = new Float64Array(n);
 	const yr = new Float64Array(n).fill(1);
 	const yi = new Float64Array(n);
-	for (let it = 0; it < 2; it++) {
+	for (let it = 0; it < 1; it++) {
 		// Right: L U x = P b. Apply the eliminations to b, then back-substitute.
 		for (let k = 0; k < n - 1; k++) {
 			if (swap[k]) {

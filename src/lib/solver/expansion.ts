@@ -11,7 +11,7 @@ import type { Analysis, ExpansionCoefficient, ExpansionTerm, ResolvedNetwork } f
  * Each product telescopes into a principal minor of the time-constant matrix T = D·H
  * (each τ is a Schur pivot), and each numerator term into a bordered minor, which is how they are
  * computed here. Orders up to 3 are enumerated term by term (denominator pairs always,
- * numerator pairs while m ≤ 200, triples while m ≤ 40); the coefficient itself, to order 12, comes from the exact poles and zeros, so the
+ * numerator pairs while m ≤ 60, triples while m ≤ 20); the coefficient itself, to order 12, comes from the exact poles and zeros, so the
  * listed terms double as a check.
  */
 const MAX_ORDER = 12;
@@ -92,15 +92,13 @@ export function expansion(
 		const terms: ExpansionTerm[] = [];
 		if (k === 1) for (let i = 0; i < m; i++) terms.push({ elements: [id(i)], value: T(i, i) });
 		if (k === 2) {
-			// All pairs at any size: O(m²) 2×2 minors, no allocation beyond the term itself.
-			for (let i = 0; i < m; i++) {
-				for (let j = i + 1; j < m; j++) {
-					terms.push({ elements: [id(i), id(j)], value: T(i, i) * T(j, j) - T(i, j) * T(j, i) });
-				}
-			}
-			pairTerms = terms;
+			// All pairs at any size: O(m²) 2×2 minors kept as numbers; objects only for the top ones.
+			const top = topPairs(m, (i, j) => T(i, i) * T(j, j) - T(i, j) * T(j, i), LIST);
+			pairTerms = top.terms.map(([i, j, v]) => ({ elements: [id(i), id(j)], value: v }));
+			denominator.push({ order: 2, value: Number.isFinite(bTot[2]) ? bTot[2] : top.sum, termSum: top.sum, termCount: top.count, terms: pairTerms.slice(0, LIST) });
+			continue;
 		}
-		if (k === 3 && m <= 40) {
+		if (k === 3 && m <= 20) {
 			subsets(m, k, (s) => {
 				terms.push({ elements: s.map(id), value: det(s.map((i) => s.map((j) => T(i, j)))) });
 			});
@@ -109,7 +107,7 @@ export function expansion(
 	}
 	for (let k = 0; k <= Math.min(MAX_ORDER, zeros.length); k++) {
 		const terms: ExpansionTerm[] = [];
-		if (k <= 1 || (k === 2 && m <= 200) || (k === 3 && m <= 40)) {
+		if (k <= 1 || (k === 2 && m <= 60) || (k === 3 && m <= 20)) {
 			subsets(m, k, (s) => {
 				const rows = s.map((i) => [...s.map((j) => oc.H[i * m + j]), oc.h[i]]);
 				rows.push([...s.map((j) => oc.g[j]), oc.h0]);
@@ -129,6 +127,26 @@ export function expansion(
 		dominantPairs.push({ elements: [t.elements[0], t.elements[1]], value: t.value, fraction: b2 ? t.value / b2 : 0 });
 	}
 	return { denominator, numerator, dominantPairs };
+}
+
+/** Sum, count and the `keep` largest-magnitude values of f over all pairs i < j. */
+function topPairs(m: number, f: (i: number, j: number) => number, keep: number) {
+	let sum = 0;
+	const best: [number, number, number][] = [];
+	let floor = 0;
+	for (let i = 0; i < m; i++) {
+		for (let j = i + 1; j < m; j++) {
+			const v = f(i, j);
+			sum += v;
+			if (best.length < keep || Math.abs(v) > floor) {
+				best.push([i, j, v]);
+				best.sort((a, b) => Math.abs(b[2]) - Math.abs(a[2]));
+				if (best.length > keep) best.pop();
+				floor = Math.abs(best[best.length - 1][2]);
+			}
+		}
+	}
+	return { sum, count: (m * (m - 1)) / 2, terms: best };
 }
 
 function coefficient(order: number, value: number, terms: ExpansionTerm[]): ExpansionCoefficient {

@@ -20,7 +20,7 @@ export interface Root {
  * ε·max|μ| is then more than ~1e-13 of the root), at most MAX_POLISHED of them, smallest first.
  */
 const MAX_POLISHED = 40;
-const SMALL_MU = 1e-3;
+const SMALL_MU = 1e-5;
 
 function refine(sp: Spectrum, pen: Pencil, withVectors: boolean): Root[] {
 	let maxMu = 0;

@@ -26,7 +26,7 @@ export function bandwidth(pz: PzForm, dcGain: number | null, range: { fMin: numb
 	const logAt = (f: number) => evalPz(pz, 2 * Math.PI * f).logMag;
 	const ref = dcGain !== null ? Math.log(Math.abs(dcGain)) : logAt(range.fMin);
 	const target = ref - 0.5 * Math.log(2);
-	const n = 2000;
+	const n = 400;
 	const a = Math.log(range.fMin);
 	const b = Math.log(range.fMax);
 	let prev = a;

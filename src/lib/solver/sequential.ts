@@ -54,13 +54,13 @@ export function sequentialTimeConstants(
 		}
 		// A zero pivot (a port that reads nothing) leaves the others unchanged when shorted.
 		if (Math.abs(pivot) <= 1e-15 * scale) continue;
-		const rowJ = alive.map((j) => H[best * m + j]);
-		for (const i of alive) {
-			const f = H[i * m + best] / pivot;
+		const idx = Int32Array.from(alive);
+		const rowJ = Float64Array.from(alive, (j) => H[best * m + j]);
+		for (let a = 0; a < idx.length; a++) {
+			const row = idx[a] * m;
+			const f = H[row + best] / pivot;
 			if (f === 0) continue;
-			alive.forEach((j, jj) => {
-				H[i * m + j] -= f * rowJ[jj];
-			});
+			for (let b = 0; b < idx.length; b++) H[row + idx[b]] -= f * rowJ[b];
 		}
 	}
 	return out;

@@ -95,7 +95,7 @@ export function stepResponse(
 	// Metrics on a dense log grid (fast and slow poles both resolved), refined by bisection.
 	const grid = [0];
 	const t0 = Math.min(tFast, tEnd) * 1e-3;
-	for (let i = 0; i <= 4000; i++) grid.push(t0 * (tEnd / t0) ** (i / 4000));
+	for (let i = 0; i <= 1500; i++) grid.push(t0 * (tEnd / t0) ** (i / 1500));
 	const u = (x: number) => stepAt(md, x) / final;
 	const vals = grid.map(u);
 	const cross = (level: number) => {
