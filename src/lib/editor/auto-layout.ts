@@ -106,7 +106,8 @@ export function autoLayout(doc: NetworkDocument): Snapshot {
 	for (const e of series) {
 		const [a, b] = e.nodes.map(netOf);
 		const [l, r] = (col.get(a) ?? 0) <= (col.get(b) ?? 0) ? [a, b] : [b, a];
-		const key = [l, r].sort().join('|');
+		// Everything leaving one net to the right stacks upwards (parallel parts and branches).
+		const key = l;
 		const k = stack.get(key) ?? 0;
 		stack.set(key, k + 1);
 		const pa = anchor(l);
