@@ -17,7 +17,8 @@ export default defineConfig({
 		launchOptions: { executablePath: '/usr/bin/chromium', args: ['--disable-gpu', '--disable-quic'] }
 	},
 	webServer: {
-		command: 'node build',
+		// npm test serves a private copy of the build (see scripts/lib/build.mjs).
+		command: `node ${process.env.POLEWISE_SERVE_DIR ?? 'build'}`,
 		url: `http://127.0.0.1:${port}/api/health`,
 		reuseExistingServer: false,
 		timeout: 60_000,

@@ -1,4 +1,4 @@
-import { existsSync, mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { cpSync, existsSync, mkdirSync, readFileSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { run } from './run.mjs';
 import { step } from './log.mjs';
@@ -41,11 +41,29 @@ export function ensureBuild(root, options = {}) {
 	return withBuildLock(root, () => buildIfStale(root, options));
 }
 
+/**
+ * A private copy of a fresh build for one test run: other runs on this checkout may rebuild
+ * build/ while this one's browser tests are still being served. The copy stays inside the
+ * project so the server's bare imports still resolve from node_modules.
+ */
+export function snapshotBuild(root) {
+	return withBuildLock(root, () => {
+		buildIfStale(root);
+		const copy = path.join(root, '.test-builds', `run-${process.pid}-${Date.now()}`);
+		cpSync(path.join(root, 'build'), copy, { recursive: true });
+		return copy;
+	});
+}
+
 function buildIfStale(root, { force = false } = {}) {
-	const marker = path.join(root, 'build', 'handler.js');
-	const built = existsSync(marker) ? statSync(marker).mtimeMs : 0;
+	// The build records the newest input time it saw when it *started*, so an edit made while a
+	// build runs still counts as newer afterwards.
+	const stamp = path.join(root, 'build', '.inputs-stamp.json');
 	const inputs = Math.max(...INPUTS.map((p) => newestMtime(path.join(root, p))));
-	if (!force && built > inputs && existsSync(path.join(root, 'build', 'workers'))) return;
+	const built = existsSync(stamp) ? JSON.parse(readFileSync(stamp, 'utf8')).inputs : -1;
+	const complete = ['handler.js', 'workers'].every((f) => existsSync(path.join(root, 'build', f)));
+	if (!force && built >= inputs && complete) return;
 	step('Building the app (vite build + workers)');
 	run('npm', ['run', '-s', 'build'], { cwd: root });
+	writeFileSync(stamp, JSON.stringify({ inputs }));
 }

@@ -5,7 +5,7 @@ import { chmodSync, existsSync, mkdtempSync, readFileSync, rmSync } from 'node:f
 import os from 'node:os';
 import path from 'node:path';
 import { startCluster } from './postgres.mjs';
-import { ensureBuild } from './build.mjs';
+import { snapshotBuild } from './build.mjs';
 import { ensureChromium } from './browser.mjs';
 import { freePort } from './ports.mjs';
 import { run, runAsync } from './run.mjs';
@@ -32,11 +32,13 @@ export async function main({ root, args }) {
 	const scratch = mkdtempSync(path.join(os.tmpdir(), 'polewise-test-'));
 	chmodSync(scratch, 0o755); // the cluster's user must be able to enter it
 	const children = [];
+	const scratchBuilds = [];
 	let cluster = null;
 	const cleanup = () => {
 		stopChildren(children);
 		cluster?.stop();
 		rmSync(scratch, { recursive: true, force: true });
+		for (const dir of scratchBuilds) rmSync(dir, { recursive: true, force: true });
 	};
 	process.once('SIGINT', () => {
 		cleanup();
@@ -66,13 +68,14 @@ export async function main({ root, args }) {
 
 		if (!only || only === 'e2e') {
 			ensureChromium();
-			ensureBuild(root);
+			const serveDir = snapshotBuild(root);
+			scratchBuilds.push(serveDir);
 			run(tsx(root), ['scripts/db.ts', 'setup'], { cwd: root, env: { ...env, DATABASE_URL: e2eUrl }, stdio: 'ignore' });
 			const report = path.join(scratch, 'playwright.json');
 			step('Browser tests (Playwright on Debian’s Chromium)');
 			await runAsync(path.join(root, 'node_modules/.bin/playwright'), ['test'], {
 				cwd: root,
-				env: { ...env, DATABASE_URL: e2eUrl, E2E_PORT: String(await freePort()), PLAYWRIGHT_JSON_OUTPUT_NAME: report }
+				env: { ...env, DATABASE_URL: e2eUrl, E2E_PORT: String(await freePort()), POLEWISE_SERVE_DIR: serveDir, PLAYWRIGHT_JSON_OUTPUT_NAME: report }
 			});
 			add(playwrightCounts(report));
 		}

@@ -1,8 +1,9 @@
-// Turning an HTTP request into an analysis task: size limits, JSON parsing, the shape check
-// and the response options. Each problem becomes an HttpProblem with the status to answer.
+// Turning an HTTP request into an analysis task: the element limit, the document's shape check
+// (naming the element at fault) and the response options, each problem an ApiProblem.
 import { z } from 'zod';
 import { networkDocumentSchema } from '../network/schema';
 import type { AnalyzeOptions } from '../solver';
+import { ApiProblem } from './api/respond';
 
 export const LIMITS = {
 	bodyBytes: 1_000_000,
@@ -11,31 +12,6 @@ export const LIMITS = {
 	frequencyPoints: 5000,
 	stepPoints: 5000
 };
-
-export class HttpProblem extends Error {
-	constructor(
-		readonly status: number,
-		message: string,
-		readonly extra: Record<string, unknown> = {}
-	) {
-		super(message);
-	}
-}
-
-export async function readJsonBody(request: Request, maxBytes = LIMITS.bodyBytes): Promise<unknown> {
-	const declared = Number(request.headers.get('content-length') ?? 0);
-	if (declared > maxBytes) throw new HttpProblem(413, `request body is larger than ${maxBytes} bytes`);
-	const text = await request.text();
-	if (new TextEncoder().encode(text).length > maxBytes) {
-		throw new HttpProblem(413, `request body is larger than ${maxBytes} bytes`);
-	}
-	if (!text.trim()) throw new HttpProblem(400, 'request body is empty: send the network document as JSON');
-	try {
-		return JSON.parse(text);
-	} catch (error) {
-		throw new HttpProblem(400, `request body is not valid JSON (${(error as Error).message})`);
-	}
-}
 
 /** Name the offending element when a shape problem sits inside `elements[i]`. */
 function describeIssue(document: unknown, issue: z.core.$ZodIssue) {
@@ -54,12 +30,12 @@ function describeIssue(document: unknown, issue: z.core.$ZodIssue) {
 export function checkDocument(document: unknown) {
 	const count = (document as { elements?: unknown[] })?.elements?.length;
 	if (typeof count === 'number' && count > LIMITS.elements) {
-		throw new HttpProblem(413, `the network has ${count} elements; the limit is ${LIMITS.elements}`);
+		throw new ApiProblem(413, `the network has ${count} elements; the limit is ${LIMITS.elements}`);
 	}
 	const parsed = networkDocumentSchema.safeParse(document);
 	if (!parsed.success) {
 		const { error, ...extra } = describeIssue(document, parsed.error.issues[0]);
-		throw new HttpProblem(400, error, { code: 'bad_document', ...extra });
+		throw new ApiProblem(400, error, { code: 'bad_document', ...extra });
 	}
 	return parsed.data;
 }
@@ -83,7 +59,7 @@ const optionsSchema = z
 /** Response options from the query string: ?points=&fMin=&fMax=&stepPoints=&tEnd=&response=0&step=0 */
 export function readOptions(url: URL): AnalyzeOptions {
 	const parsed = optionsSchema.safeParse(Object.fromEntries(url.searchParams));
-	if (!parsed.success) throw new HttpProblem(400, parsed.error.issues[0].message, { code: 'bad_options' });
+	if (!parsed.success) throw new ApiProblem(400, parsed.error.issues[0].message, { code: 'bad_options' });
 	const o = parsed.data;
 	return {
 		frequency: o.response === '0' ? false : { points: o.points, fMin: o.fMin, fMax: o.fMax },

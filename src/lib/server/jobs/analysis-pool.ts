@@ -7,6 +7,8 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
 import type { AnalyzeOutcome, AnalyzeTask } from '../workers/analyze.worker';
+import { ApiProblem } from '../api/respond';
+import { LIMITS } from '../analysis-request';
 
 let pool: Piscina | null = null;
 
@@ -16,7 +18,7 @@ function workerFile(): { filename: string; execArgv: string[] } {
 	if (existsSync(source)) return { filename: source, execArgv: ['--import', 'tsx'] };
 	// Built: this chunk sits somewhere below build/server; the workers sit in build/workers.
 	let dir = here;
-	for (let i = 0; i < 6; i++) {
+	for (let i = 0; i < 10; i++) {
 		const candidate = path.join(dir, 'workers', 'analyze.worker.mjs');
 		if (existsSync(candidate)) return { filename: candidate, execArgv: [] };
 		dir = path.dirname(dir);
@@ -40,15 +42,21 @@ export function analysisPool(): Piscina {
 	return pool;
 }
 
-export class AnalysisTimeout extends Error {}
-
-/** Run one analysis with a time limit; an overrun ends that worker thread. */
-export async function runAnalysis(task: AnalyzeTask, timeoutMs: number): Promise<AnalyzeOutcome> {
+/**
+ * Run one analysis with a time limit; an overrun ends that worker thread (503), and so does a
+ * full queue (503 with Retry-After) — the server stays responsive either way.
+ */
+export async function analyzeInPool(task: AnalyzeTask, timeoutMs = LIMITS.timeoutMs): Promise<AnalyzeOutcome> {
 	const signal = AbortSignal.timeout(timeoutMs);
 	try {
 		return (await analysisPool().run(task, { signal })) as AnalyzeOutcome;
 	} catch (error) {
-		if (signal.aborted) throw new AnalysisTimeout(`analysis took longer than ${timeoutMs / 1000} s`);
+		if (signal.aborted) {
+			throw new ApiProblem(503, `the analysis took longer than ${timeoutMs / 1000} s and was stopped`, { code: 'timeout' });
+		}
+		if (error instanceof Error && /queue is at limit/i.test(error.message)) {
+			throw new ApiProblem(503, 'the server is busy with other analyses; try again in a moment', { code: 'busy' });
+		}
 		throw error;
 	}
 }
