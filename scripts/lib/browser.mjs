@@ -4,13 +4,20 @@ import { SetupError, step } from './log.mjs';
 
 export const CHROMIUM = '/usr/bin/chromium';
 
-/** Debian's Chromium for the browser tests (never a browser download of a test tool's own). */
-export function ensureChromium() {
-	if (existsSync(CHROMIUM)) return;
+// What the browser tests need from Debian: Chromium to drive (never a test tool's own browser
+// download) and poppler's pdftoppm/pdftotext to open the PDF reports the app produces.
+const NEEDED = [
+	{ file: CHROMIUM, pkg: 'chromium' },
+	{ file: '/usr/bin/pdftotext', pkg: 'poppler-utils' }
+];
+
+export function ensureBrowserTools() {
+	const missing = NEEDED.filter((n) => !existsSync(n.file)).map((n) => n.pkg);
+	if (!missing.length) return;
 	if (process.getuid?.() !== 0) {
-		throw new SetupError('Chromium is missing (/usr/bin/chromium), and the browser tests need it.', 'Install Debian’s package, then run again:\n    sudo apt-get install -y chromium');
+		throw new SetupError(`The browser tests need Debian’s ${missing.join(' and ')}, which ${missing.length > 1 ? 'are' : 'is'} missing.`, `Install, then run again:\n    sudo apt-get install -y ${missing.join(' ')}`);
 	}
-	step('Installing Chromium from Debian’s packages (for the browser tests)');
+	step(`Installing ${missing.join(' and ')} from Debian’s packages (for the browser tests)`);
 	run('apt-get', ['update', '-qq']);
-	run('apt-get', ['install', '-y', '-qq', 'chromium'], { env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+	run('apt-get', ['install', '-y', '-qq', ...missing], { env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
 }

@@ -6,7 +6,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { startCluster } from './postgres.mjs';
 import { snapshotBuild } from './build.mjs';
-import { ensureChromium } from './browser.mjs';
+import { ensureBrowserTools } from './browser.mjs';
 import { freePort } from './ports.mjs';
 import { run, runAsync } from './run.mjs';
 import { step } from './log.mjs';
@@ -67,7 +67,7 @@ export async function main({ root, args }) {
 		}
 
 		if (!only || only === 'e2e') {
-			ensureChromium();
+			ensureBrowserTools();
 			const serveDir = snapshotBuild(root);
 			scratchBuilds.push(serveDir);
 			run(tsx(root), ['scripts/db.ts', 'setup'], { cwd: root, env: { ...env, DATABASE_URL: e2eUrl }, stdio: 'ignore' });
