@@ -88,6 +88,7 @@ test('an API token works on an API route once created and stops when revoked', a
 	await page.getByRole('button', { name: 'Create token' }).click();
 	const token = (await page.getByTestId('new-token').textContent())!.trim();
 	expect(token).toMatch(/^pw_[a-z2-7]{32}$/);
+	await expect(page.getByLabel('New token name')).toHaveValue('');
 	await page.screenshot({ path: '/tmp/polewise-account.png', fullPage: true });
 
 	// Playwright's request context has no cookies of the page: only the token authenticates.
