@@ -1,7 +1,7 @@
 import { byMagnitude, singularity } from './singularity';
 import { computePoles, computeZeros, type Root } from './poles';
 import { dcInputImpedance, impedanceFromReading } from './input-impedance';
-import { evalModal, modalForm } from './modal';
+import { evalModal, modalForm, relativeDegree } from './modal';
 import { expansion } from './expansion';
 import { evalPz, logSpace, pzForm, unwrapDeg, type PzForm } from './frequency-response';
 import { participation } from './participation';
@@ -61,12 +61,17 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 			zpm = portModelFrom(a, s0 * f);
 			if (zpm.pivotRatio > 1e-13) z = computeZeros(a, zpm);
 		}
-		if (z) {
-			zeroRoots = z;
-			pz = pzForm(roots, zeroRoots, zpm.s0, zpm.h0);
-		} else extra.push({ code: 'zero_transfer', message: 'the transfer function is identically zero (the output does not see the input)' });
 		md = modalForm(pm, roots, 'transfer');
 		mdZ = modalForm(pm, roots, 'zin');
+		if (z) {
+			// Keep as many zeros as the relative degree allows, the ones nearest the shift first:
+			// the rest are infinite zeros that rounding pushed to enormous finite values.
+			const count = Math.max(0, roots.length - relativeDegree(md, pm.h0));
+			const byMu = z.map((r, i) => ({ i, mu: Math.hypot(r.muRe, r.muIm) })).sort((x, y) => y.mu - x.mu);
+			const keep = new Set(byMu.slice(0, Math.max(count, z.length > roots.length ? z.length : 0)).map((x) => x.i));
+			zeroRoots = z.filter((_, i) => keep.has(i));
+			pz = pzForm(roots, zeroRoots, zpm.s0, zpm.h0);
+		} else extra.push({ code: 'zero_transfer', message: 'the transfer function is identically zero (the output does not see the input)' });
 	}
 
 	const order = roots.map((_, i) => i).sort((i, j) => byMagnitude(roots[i], roots[j]));

@@ -59,7 +59,7 @@ function balance(a: Float64Array, n: number): Float64Array {
 	return scale;
 }
 
-export function hessenberg(a0: Float64Array, n: number): Hessenberg {
+export function hessenberg(a0: Float64Array, n: number, wantQ = true): Hessenberg {
 	const h = a0.slice();
 	const scale = balance(h, n);
 	const ort = new Float64Array(n);
@@ -100,9 +100,11 @@ export function hessenberg(a0: Float64Array, n: number): Hessenberg {
 		}
 		q[m * n + m - 1] = ort[m];
 	}
-	// Accumulate Q from the stored vectors (backward, as EISPACK ortran does).
+	// Accumulate Q from the stored vectors (backward, as EISPACK ortran does); the zeros need no
+	// eigenvectors, so they skip this third of the reduction.
 	const v = new Float64Array(n);
-	const Q = new Float64Array(n * n);
+	const Q = new Float64Array(wantQ ? n * n : 0);
+	if (!wantQ) return { n, h, q: Q, scale };
 	for (let i = 0; i < n; i++) Q[i * n + i] = 1;
 	for (let m = n - 2; m >= 1; m--) {
 		const hsub = h[m * n + m - 1];

@@ -11,7 +11,7 @@ import type { Analysis, ExpansionCoefficient, ExpansionTerm, ResolvedNetwork } f
  * Each product telescopes into a principal minor of the time-constant matrix T = D·H
  * (each τ is a Schur pivot), and each numerator term into a bordered minor, which is how they are
  * computed here. Orders up to 3 are enumerated term by term (denominator pairs always,
- * numerator pairs while m ≤ 60, triples while m ≤ 20); the coefficient itself, to order 12, comes from the exact poles and zeros, so the
+ * numerator pairs while m ≤ 30, triples while m ≤ 12); the coefficient itself, to order 12, comes from the exact poles and zeros, so the
  * listed terms double as a check.
  */
 const MAX_ORDER = 12;
@@ -98,7 +98,7 @@ export function expansion(
 			denominator.push({ order: 2, value: Number.isFinite(bTot[2]) ? bTot[2] : top.sum, termSum: top.sum, termCount: top.count, terms: pairTerms.slice(0, LIST) });
 			continue;
 		}
-		if (k === 3 && m <= 20) {
+		if (k === 3 && m <= 12) {
 			subsets(m, k, (s) => {
 				terms.push({ elements: s.map(id), value: det(s.map((i) => s.map((j) => T(i, j)))) });
 			});
@@ -107,7 +107,7 @@ export function expansion(
 	}
 	for (let k = 0; k <= Math.min(MAX_ORDER, zeros.length); k++) {
 		const terms: ExpansionTerm[] = [];
-		if (k <= 1 || (k === 2 && m <= 60) || (k === 3 && m <= 20)) {
+		if (k <= 1 || (k === 2 && m <= 30) || (k === 3 && m <= 12)) {
 			subsets(m, k, (s) => {
 				const rows = s.map((i) => [...s.map((j) => oc.H[i * m + j]), oc.h[i]]);
 				rows.push([...s.map((j) => oc.g[j]), oc.h0]);

@@ -66,3 +66,40 @@ export function evalModal(md: Modal, sr: number, si: number): { re: number; im: 
 	}
 	return { re, im };
 }
+
+/**
+ * Relative degree r of H (finite poles minus finite zeros), from the expansion at infinity:
+ * H(s) = D∞ + Σ_k m_k / s^{k+1} with Markov parameters m_k = Σ r_i p_i^k. r = 0 when D∞ ≠ 0,
+ * else the first k with m_k ≠ 0 gives r = k + 1. "≠ 0" is judged against the size of the
+ * terms that cancel (`tol` of Σ|r_i p_i^k|), with powers scaled by max|p| so nothing overflows.
+ *
+ * The zero problem needs this count: for r ≥ 2 the infinite zeros form a nilpotent block whose
+ * rounded eigenvalues come out near ε^{1/r}·‖M‖, far above any fixed threshold.
+ */
+export function relativeDegree(md: Modal, h0: number, tol = 1e-8): number {
+	const n = md.poles.length;
+	let noise = Math.abs(h0);
+	for (const p of md.poles) noise += Math.hypot(p.rr, p.ri) / Math.max(Math.hypot(p.re, p.im), 1e-300);
+	if (Math.abs(md.direct) > tol * noise) return 0;
+	const P = Math.max(...md.poles.map((p) => Math.hypot(p.re, p.im)), 1e-300);
+	// Running powers (p/P)^k · r for each pole.
+	const wr = md.poles.map((p) => p.rr);
+	const wi = md.poles.map((p) => p.ri);
+	for (let k = 0; k < n; k++) {
+		let sr = 0;
+		let si = 0;
+		let mag = 0;
+		for (let i = 0; i < n; i++) {
+			sr += wr[i];
+			si += wi[i];
+			mag += Math.hypot(wr[i], wi[i]);
+		}
+		if (mag > 0 && Math.hypot(sr, si) > tol * mag) return k + 1;
+		for (let i = 0; i < n; i++) {
+			const a = md.poles[i].re / P;
+			const b = md.poles[i].im / P;
+			[wr[i], wi[i]] = [wr[i] * a - wi[i] * b, wr[i] * b + wi[i] * a];
+		}
+	}
+	return n;
+}

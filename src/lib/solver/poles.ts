@@ -15,30 +15,37 @@ export interface Root {
 }
 
 /**
- * Polishing costs a complex N×N factorization per step, so only the roots that lost digits are
- * polished: those whose |μ| is below SMALL_MU·max|μ| (the QR iteration's absolute error
- * ε·max|μ| is then more than ~1e-13 of the root), at most MAX_POLISHED of them, smallest first.
+ * Polishing costs a complex N×N factorization per step, so only the roots that may have lost
+ * digits are polished. The QR iteration leaves an absolute error of about ε·max|μ| in μ, hence
+ * |δs|/|s| ≈ ε·max|μ| / (|μ|²·|s|); roots where that exceeds POLISH_ABOVE are refined, at most
+ * MAX_POLISHED of them, worst first. With the shift in the middle of the spectrum this only
+ * happens beyond about nine decades of spread.
  */
 const MAX_POLISHED = 40;
-const SMALL_MU = 1e-5;
+const POLISH_ABOVE = 1e-11;
 
-function refine(sp: Spectrum, pen: Pencil, withVectors: boolean): Root[] {
+function refine(sp: Spectrum, pencil: () => Pencil, withVectors: boolean): Root[] {
 	let maxMu = 0;
 	for (const r of sp.s) maxMu = Math.max(maxMu, Math.hypot(r.muRe, r.muIm));
 	const roots: Root[] = [];
 	const snap = 1e-11 * sp.s0;
-	const mags = sp.s.map((r) => Math.hypot(r.muRe, r.muIm));
+	const risk = sp.s.map((r) => {
+		const m2 = r.muRe * r.muRe + r.muIm * r.muIm;
+		return (Number.EPSILON * maxMu) / (m2 * Math.max(Math.hypot(r.re, r.im), 1e-300));
+	});
 	const chosen = new Set(
 		sp.s
 			.map((_, i) => i)
-			.filter((i) => mags[i] < SMALL_MU * maxMu && sp.s[i].im >= 0)
-			.sort((i, j) => mags[i] - mags[j])
+			.filter((i) => risk[i] > POLISH_ABOVE && sp.s[i].im >= 0)
+			.sort((i, j) => risk[j] - risk[i])
 			.slice(0, MAX_POLISHED)
 	);
+	// The dense pencil copy is only built when some root needs it.
+	let pen: Pencil | null = null;
 	for (const [idx, r] of sp.s.entries()) {
 		if (r.im < 0) continue; // filled in from its partner below
 		let { re, im } = r;
-		if (chosen.has(idx)) ({ re, im } = polish(pen, re, im));
+		if (chosen.has(idx)) ({ re, im } = polish((pen ??= pencil()), re, im));
 		if (Math.hypot(re, im) < snap) {
 			re = 0;
 			im = 0;
@@ -64,7 +71,7 @@ function refine(sp: Spectrum, pen: Pencil, withVectors: boolean): Root[] {
 /** Natural frequencies with their right/left eigenvectors in port (charge/flux) coordinates. */
 export function computePoles(a: Assembled, pm: PortModel): { roots: Root[]; sp: Spectrum } {
 	const sp = spectrum(poleMatrix(pm), pm.m, pm.s0);
-	return { roots: refine(sp, polePencil(a), true), sp };
+	return { roots: refine(sp, () => polePencil(a), true), sp };
 }
 
 /** Transmission zeros; `null` when H(s0) = 0 so the reduction does not apply at this shift. */
@@ -72,6 +79,6 @@ export function computeZeros(a: Assembled, pm: PortModel): Root[] | null {
 	let scale = Math.abs(pm.h0);
 	for (let i = 0; i < pm.m; i++) scale = Math.max(scale, Math.abs(pm.g[i] * pm.h[i] * pm.d[i] * pm.s0));
 	if (scale === 0 || Math.abs(pm.h0) <= 1e-13 * scale) return null;
-	const sp = spectrum(zeroMatrix(pm), pm.m, pm.s0);
-	return refine(sp, zeroPencil(a), false);
+	const sp = spectrum(zeroMatrix(pm), pm.m, pm.s0, false);
+	return refine(sp, () => zeroPencil(a), false);
 }

@@ -28,8 +28,8 @@ export function scaleRows(a: Float64Array, d: Float64Array, m: number): Float64A
 	return out;
 }
 
-export function spectrum(M: Float64Array, m: number, s0: number): Spectrum {
-	const hs = hessenberg(M, m);
+export function spectrum(M: Float64Array, m: number, s0: number, wantVectors = true): Spectrum {
+	const hs = hessenberg(M, m, wantVectors);
 	const mu = hqr(hs);
 	let max = 0;
 	for (let i = 0; i < m; i++) max = Math.max(max, Math.hypot(mu.re[i], mu.im[i]));

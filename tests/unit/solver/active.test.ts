@@ -27,6 +27,39 @@ describe('controlled sources and the ideal op-amp (closed forms of the textbook 
 		expectRel(10 ** (a.frequencyResponse!.magnitudeDb[1]! / 20), 1 / (2 * Math.PI * f * 10e3 * 1e-9), 1e-9, '|H|');
 		expectRel(a.frequencyResponse!.phaseDeg[1]!, 90, 1e-9, 'phase of −1/(jωRC)');
 	});
+	test('differentiator (C into the virtual ground, R feedback): H = −sRC, one zero at 0, no finite pole (closed form, 1e-9)', () => {
+		const a = analyze(
+			net([el('Vin', 'V', ['in', 'gnd'], 1), el('C1', 'C', ['in', 'm'], '10n'), el('R1', 'R', ['m', 'out'], '10k'), el('U1', 'OPAMP', ['gnd', 'm', 'out'])], 'out'),
+			{ frequency: { fMin: 100, fMax: 1e4, points: 3 } }
+		);
+		expect(a.poles).toHaveLength(0);
+		expect(a.zeros).toHaveLength(1);
+		expect(a.zeros[0].hz).toBe(0);
+		const f = a.frequencyResponse!.f[1];
+		expectRel(10 ** (a.frequencyResponse!.magnitudeDb[1]! / 20), 2 * Math.PI * f * 10e3 * 10e-9, 1e-9, '|H| = ωRC');
+	});
+	test('an all-pole active filter reports no spurious zeros (regression: relative degree 3)', () => {
+		const a = analyze(
+			net(
+				[
+					el('Vin', 'V', ['in', 'gnd'], 1),
+					el('Rs', 'R', ['in', 'x'], 220),
+					el('R1', 'R', ['x', 'y'], 1.8e3),
+					el('R2', 'R', ['y', 'z'], 3.3e3),
+					el('C1', 'C', ['y', 'out'], 2.7e-9),
+					el('C2', 'C', ['z', 'gnd'], 680e-12),
+					el('U1', 'OPAMP', ['z', 'out', 'out']),
+					el('Riso', 'R', ['out', 'adc'], 47),
+					el('Cadc', 'C', ['adc', 'gnd'], 1.5e-9)
+				],
+				'adc'
+			)
+		);
+		expect(a.poles).toHaveLength(3);
+		expect(a.zeros).toHaveLength(0);
+		// The buffered RC at the output is exact: −1/(Riso·Cadc).
+		expectRel(a.poles[2].re, -1 / (47 * 1.5e-9), 1e-10, 'output pole');
+	});
 	test('VCVS follower with gain A across a divider: A·R2/(R1+R2) (1e-12)', () => {
 		const a = analyze(
 			net(
