@@ -12,7 +12,7 @@ export const load: PageServerLoad = async ({ params, setHeaders }) => {
 		const { sheet, revision } = await readRevision(actor, actor.sheetId);
 		return {
 			sheet: { name: sheet.name, status: sheet.status, updatedAt: sheet.updatedAt },
-			revision: { number: revision.number, createdAt: revision.createdAt, document: revision.document }
+			revision: { number: revision.number, createdAt: revision.createdAt, document: revision.document, layout: revision.layout }
 		};
 	} catch (e) {
 		if (e instanceof AccessDenied) error(404, 'This link does not open anything: it may have been revoked.');

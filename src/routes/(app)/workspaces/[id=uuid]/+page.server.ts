@@ -2,6 +2,7 @@ import { redirect } from '@sveltejs/kit';
 import { formAction, formActor } from '$lib/server/sharing/form-action';
 import { sheetTable } from '$lib/server/sharing/sheet-list';
 import { duplicateSheetAs, newSheet, renameSheetAs, trashSheetAs } from '$lib/server/sharing/sheet-actions';
+import { templateById } from '$lib/editor/templates';
 import { createSheetSchema, listParams, renameSheetSchema, sheetIdSchema } from './schema';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -13,8 +14,8 @@ export const load: PageServerLoad = async (event) => {
 
 export const actions: Actions = {
 	create: (event) =>
-		formAction(event, 'create', createSheetSchema, async ({ name }, actor) => {
-			const { sheet } = await newSheet(actor, event.params.id, { name });
+		formAction(event, 'create', createSheetSchema, async ({ name, template }, actor) => {
+			const { sheet } = await newSheet(actor, event.params.id, { name, document: templateById(template)?.document });
 			redirect(303, `/sheets/${sheet.id}`);
 		}),
 	rename: (event) =>

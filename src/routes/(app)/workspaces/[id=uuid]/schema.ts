@@ -2,7 +2,8 @@ import { z } from 'zod';
 import { sheetName } from '$lib/schemas/names';
 import { SHEET_SORTS } from '$lib/schemas/sheet-list';
 
-export const createSheetSchema = z.object({ name: sheetName });
+// `template` picks a starting network from $lib/editor/templates (unknown ids start empty).
+export const createSheetSchema = z.object({ name: sheetName, template: z.string().max(40).optional() });
 export const renameSheetSchema = z.object({ id: z.uuid('Choose a sheet'), name: sheetName });
 export const sheetIdSchema = z.object({ id: z.uuid('Choose a sheet') });
 

@@ -1,0 +1,75 @@
+// Shared steps of the editor's browser tests: a fresh account per test, sheets made through the
+// JSON API, and gestures on the canvas (drag from the parts list, wire two terminals).
+import { expect, type Page } from '@playwright/test';
+
+export async function signUpFresh(page: Page, name = 'Oda Lindqvist'): Promise<{ email: string; password: string }> {
+	const email = `editor-${Date.now()}-${Math.random().toString(36).slice(2, 7)}@example.test`;
+	const password = 'divider test password 42';
+	await page.goto('/sign-up');
+	await page.getByLabel('Your name').fill(name);
+	await page.getByLabel('E-mail address').fill(email);
+	await page.getByLabel('Password').fill(password);
+	await page.getByRole('button', { name: 'Create account' }).click();
+	await expect(page).toHaveURL(/\/workspaces/);
+	return { email, password };
+}
+
+export async function signIn(page: Page, email: string, password: string) {
+	await page.goto('/sign-in');
+	await page.getByLabel('E-mail address').fill(email);
+	await page.getByLabel('Password').fill(password);
+	await page.getByRole('button', { name: 'Sign in' }).click();
+	await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
+}
+
+/** A workspace and a sheet holding `document`, made through the API as the signed-in user. */
+export async function newSheet(page: Page, document: unknown, name = 'Editor test sheet'): Promise<string> {
+	const ws = await page.request.post('/api/workspaces', { data: { name: `Bench ${Date.now()}` } });
+	expect(ws.status()).toBe(201);
+	const { workspace } = await ws.json();
+	const sh = await page.request.post(`/api/workspaces/${workspace.id}/sheets`, { data: { name, document } });
+	expect(sh.status()).toBe(201);
+	return (await sh.json()).sheet.id;
+}
+
+export async function openSheet(page: Page, id: string) {
+	await page.goto(`/sheets/${id}`);
+	await expect(page.getByRole('application', { name: 'Schematic canvas' })).toBeVisible();
+	await expect(page.locator('.svelte-flow__viewport')).toBeVisible();
+}
+
+export const node = (page: Page, name: string) => page.locator('.svelte-flow__node', { has: page.locator(`[data-name="${name}"]`) });
+export const nodeOfKind = (page: Page, kind: string) => page.locator('.svelte-flow__node', { has: page.locator(`[data-kind="${kind}"]`) });
+export const terminal = (page: Page, nodeLocator: ReturnType<typeof node>, t: string) => nodeLocator.locator(`.svelte-flow__handle[data-handleid="${t}"]`);
+
+/** Drag a part from the parts list onto the canvas at (x, y) relative to the canvas' top-left. */
+export async function dropPart(page: Page, title: string, x: number, y: number) {
+	const canvas = page.getByRole('application', { name: 'Schematic canvas' });
+	await page.getByRole('button', { name: `Place ${title}` }).dragTo(canvas, { targetPosition: { x, y } });
+}
+
+/** Draw a wire: press on one terminal, move, release on the other. */
+export async function wire(page: Page, from: ReturnType<typeof terminal>, to: ReturnType<typeof terminal>) {
+	const a = (await from.boundingBox())!;
+	const b = (await to.boundingBox())!;
+	await page.mouse.move(a.x + a.width / 2, a.y + a.height / 2);
+	await page.mouse.down();
+	await page.mouse.move((a.x + b.x) / 2 + 3, (a.y + b.y) / 2 + 3, { steps: 4 });
+	await page.mouse.move(b.x + b.width / 2, b.y + b.height / 2, { steps: 4 });
+	await page.mouse.up();
+}
+
+/** Select a part by clicking its symbol and type its value into the properties panel. */
+export async function setValue(page: Page, name: string, value: string) {
+	await node(page, name).click();
+	const field = page.getByRole('region', { name: 'Properties' }).getByRole('textbox').nth(1);
+	await field.fill(value);
+}
+
+export const analysis = (page: Page) => page.getByRole('region', { name: 'Analysis' });
+
+/** Hz of each exact pole in the pole table, smallest first. */
+export async function poleHz(page: Page): Promise<number[]> {
+	const cells = page.getByRole('table', { name: 'Poles' }).getByTestId('pole-hz');
+	return (await cells.evaluateAll((els) => els.map((e) => Number(e.getAttribute('data-hz'))))) as number[];
+}
