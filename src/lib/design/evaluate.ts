@@ -3,13 +3,14 @@ import { impedanceFromReading } from '../solver/input-impedance';
 import { evalModal, modalForm, relativeDegree, type Modal } from '../solver/modal';
 import { computePoles, computeZeros, type Root } from '../solver/poles';
 import { portModelFrom, SINGULAR_PIVOT, type PortModel } from '../solver/port-model';
-import { bandwidth, frequencyRange } from '../solver/response-range';
+import { frequencyRange } from '../solver/response-range';
 import { shiftedModel } from '../solver/shift';
 import { byMagnitude, singularity } from '../solver/singularity';
 import { stepResponse } from '../solver/step-response';
 import { openCircuitPorts, openCircuitTimeConstants, shortCircuitPorts, shortCircuitTimeConstants } from '../solver/time-constants';
 import { SolverError } from '../solver/errors';
 import type { Prepared } from './prepared';
+import { fastBandwidth, fastStepFigures, logMag2 } from './fast-figures';
 
 /**
  * The figures a design aid compares between variants of one network, computed on the prepared
@@ -60,6 +61,9 @@ export interface Evaluation extends Metrics {
 	modal: Modal | null;
 	/** A shift in the geometric middle of these poles: the best start for a neighbouring variant. */
 	nextShift: number;
+	/** The poles with their eigenvectors, and the shift they were computed at (for sensitivities). */
+	roots: Root[];
+	s0: number;
 }
 
 const LN10 = Math.log(10);
@@ -121,7 +125,7 @@ export function evaluate(p: Prepared, shift: number, opts: EvaluateOptions = {})
 		dcGain = v ? (Math.cos(v.arg) < 0 ? -1 : 1) * Math.exp(v.logMag) : 0;
 		if (!Number.isFinite(dcGain)) dcGain = null;
 	}
-	const bw = pz ? bandwidth(pz, dcGain, frequencyRange(poles, zeros)) : null;
+	const bw = pz ? fastBandwidth(pz, dcGain, frequencyRange(poles, zeros)) : null;
 
 	let riseTime: number | null = null;
 	let overshoot: number | null = null;
@@ -131,21 +135,20 @@ export function evaluate(p: Prepared, shift: number, opts: EvaluateOptions = {})
 		const slow = Math.min(...poles.map((q) => Math.abs(q.re)), Infinity);
 		const fast = Math.max(...poles.map((q) => Math.hypot(q.re, q.im)), 0);
 		const tEnd = Number.isFinite(slow) ? 10 / slow : fast > 0 ? 10 / fast : 1;
-		const st = stepResponse(md, dcGain, tEnd, fast > 0 ? 1 / fast : tEnd, 2);
-		({ riseTime, overshoot, settlingTime } = st);
+		({ riseTime, overshoot, settlingTime } = fastStepFigures(md, dcGain, tEnd, fast > 0 ? 1 / fast : tEnd));
 	}
 
 	let flatnessDb: number | null = null;
 	if (opts.band && pz) {
 		const { fLo, fHi } = opts.band;
-		const ref = dcGain ? Math.log(Math.abs(dcGain)) : gainAt(2 * Math.PI * fLo)!.logMag;
+		const ref = dcGain ? 2 * Math.log(Math.abs(dcGain)) : logMag2(pz, 2 * Math.PI * fLo);
 		const n = Math.max(2, opts.bandPoints ?? 121);
 		let worst = 0;
 		for (let i = 0; i < n; i++) {
 			const f = fLo * (fHi / fLo) ** (i / (n - 1));
-			worst = Math.max(worst, Math.abs(gainAt(2 * Math.PI * f)!.logMag - ref));
+			worst = Math.max(worst, Math.abs(logMag2(pz, 2 * Math.PI * f) - ref));
 		}
-		flatnessDb = Number.isFinite(worst) ? (20 * worst) / LN10 : null;
+		flatnessDb = Number.isFinite(worst) ? (10 * worst) / LN10 : null;
 	}
 
 	let maxQ: number | null = null;
@@ -188,14 +191,16 @@ export function evaluate(p: Prepared, shift: number, opts: EvaluateOptions = {})
 		inputCapacitance,
 		pz,
 		modal: md,
-		nextShift
+		nextShift,
+		roots,
+		s0: pm.s0
 	};
 }
 
 /** The plain figures only (what tables, CSV and job results store). */
 export function metricsOf(e: Evaluation): Metrics {
 	// eslint-disable-next-line @typescript-eslint/no-unused-vars
-	const { pz, modal, nextShift, ...m } = e;
+	const { pz, modal, nextShift, roots, s0, ...m } = e;
 	return m;
 }
 
@@ -206,4 +211,11 @@ export function magnitudeDb(e: Evaluation, f: number[]): (number | null)[] {
 		const v = (20 * evalPz(e.pz, 2 * Math.PI * x).logMag) / LN10;
 		return Number.isFinite(v) ? v : null;
 	});
+}
+
+/** Step response samples (normalized to nothing: volts per volt of step) on 0…tEnd. */
+export function stepCurve(e: Evaluation, tEnd: number, points = 200): { t: number[]; y: number[] } {
+	if (!e.modal) return { t: [], y: [] };
+	const st = stepResponse(e.modal, null, tEnd, tEnd, points);
+	return { t: st.t, y: st.y };
 }
