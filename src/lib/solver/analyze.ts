@@ -13,6 +13,7 @@ import { stepResponse } from './step-response';
 import {
 	openCircuitPorts,
 	openCircuitTimeConstants,
+	shortCircuitFromOpen,
 	shortCircuitPorts,
 	shortCircuitTimeConstants
 } from './time-constants';
@@ -31,7 +32,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	const net = validateNetwork(doc);
 	const extra: Warning[] = [];
 	const ocPorts = openCircuitPorts(net);
-	const scPorts = shortCircuitPorts(net);
+	const scPorts = shortCircuitFromOpen(net, ocPorts) ?? shortCircuitPorts(net);
 	const oc = openCircuitTimeConstants(net, ocPorts);
 	const sc = shortCircuitTimeConstants(net, scPorts);
 	if (ocPorts.singular && net.reactive.length > 0) {
