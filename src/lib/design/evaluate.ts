@@ -163,7 +163,9 @@ export function evaluate(p: Prepared, shift: number, opts: EvaluateOptions = {})
 		const mdZ: Modal = p.net.reactive.length ? modalForm(pm, roots, 'zin') : { direct: pm.hz0, poles: [] };
 		if (!poleAtZero) {
 			const v = evalModal(mdZ, 0, 0);
-			inputResistance = impedanceFromReading(p.net, v.re, 0)?.re ?? null;
+			// A V input that draws no DC current looks into an open circuit: infinite, not unknown.
+			const open = p.net.elements[p.net.input].type === 'V' && v.re === 0;
+			inputResistance = open ? Infinity : (impedanceFromReading(p.net, v.re, 0)?.re ?? null);
 		}
 		if (opts.inputAt && opts.inputAt > 0) {
 			const w = 2 * Math.PI * opts.inputAt;
