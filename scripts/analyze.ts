@@ -68,18 +68,32 @@ function renderTable(a: Analysis): string {
 	for (const r of rows) lines.push('  ' + r.map((c, i) => pad(c, widths[i])).join(''));
 	if (a.zeros.length) {
 		lines.push('', 'Zeros');
-		for (const z of a.zeros) lines.push(`  ${f(z.re)}${z.im ? ` ${z.im < 0 ? '−' : '+'} j${f(Math.abs(z.im))}` : ''}  (${f(z.hz, 'Hz')})${z.cancels !== null ? `  ≈ pole ${z.cancels + 1}` : ''}`);
+		for (const z of a.zeros)
+			lines.push(
+				`  ${f(z.re)}${z.im ? ` ${z.im < 0 ? '−' : '+'} j${f(Math.abs(z.im))}` : ''}  (${f(z.hz, 'Hz')})${z.cancels !== null ? `  ≈ pole ${z.cancels + 1}` : ''}`
+			);
 	}
 	lines.push('', 'Time constants          R (open)      τ open       R (short)     τ short');
 	a.timeConstants.openCircuit.forEach((o, i) => {
 		const s = a.timeConstants.shortCircuit[i];
-		lines.push(`  ${pad(o.element, 20)}  ${pad(f(o.resistance, 'Ω'), 12)}  ${pad(f(o.tau, 's'), 11)}  ${pad(f(s.resistance, 'Ω'), 12)}  ${f(s.tau, 's')}`);
+		lines.push(
+			`  ${pad(o.element, 20)}  ${pad(f(o.resistance, 'Ω'), 12)}  ${pad(f(o.tau, 's'), 11)}  ${pad(f(s.resistance, 'Ω'), 12)}  ${f(s.tau, 's')}`
+		);
 	});
-	lines.push('', 'Sequential (dominant first): ' + a.timeConstants.sequential.map((s) => `${s.element} ${f(s.tau, 's')}`).join(', '));
-	lines.push('', `DC gain         ${a.dcGain === null ? '∞ (pole at 0)' : a.dcGain.toPrecision(6)}`);
+	lines.push(
+		'',
+		'Sequential (dominant first): ' +
+			a.timeConstants.sequential.map((s) => `${s.element} ${f(s.tau, 's')}`).join(', ')
+	);
+	lines.push(
+		'',
+		`DC gain         ${a.dcGain === null ? '∞ (pole at 0)' : a.dcGain.toPrecision(6)}`
+	);
 	lines.push(`Bandwidth       ${a.bandwidth === null ? '—' : f(a.bandwidth, 'Hz')}`);
 	lines.push(`Rise time       ${a.step?.riseTime == null ? '—' : f(a.step.riseTime, 's')}`);
-	lines.push(`Overshoot       ${a.step?.overshoot == null ? '—' : a.step.overshoot.toFixed(2) + ' %'}`);
+	lines.push(
+		`Overshoot       ${a.step?.overshoot == null ? '—' : a.step.overshoot.toFixed(2) + ' %'}`
+	);
 	lines.push(`Settling (1 %)  ${a.step?.settlingTime == null ? '—' : f(a.step.settlingTime, 's')}`);
 	lines.push(`Input Z at DC   ${a.inputImpedance?.dc ? f(a.inputImpedance.dc.re, 'Ω') : '∞'}`);
 	for (const w of a.warnings) lines.push(`warning: ${w.message}`);

@@ -23,7 +23,10 @@ export type ElementType = (typeof ELEMENT_TYPES)[number];
 export const elementSchema = z.object({
 	id: z.string().min(1).max(64),
 	type: z.enum(ELEMENT_TYPES),
-	nodes: z.array(z.union([z.string().min(1).max(64), z.number().int()])).min(2).max(4),
+	nodes: z
+		.array(z.union([z.string().min(1).max(64), z.number().int()]))
+		.min(2)
+		.max(4),
 	value: z.union([z.number(), z.string().max(40)]).optional(),
 	control: z.string().min(1).max(64).optional()
 });

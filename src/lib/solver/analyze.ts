@@ -36,7 +36,11 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	const oc = openCircuitTimeConstants(net, ocPorts);
 	const sc = shortCircuitTimeConstants(net, scPorts);
 	if (ocPorts.singular && net.reactive.length > 0) {
-		extra.push({ code: 'no_dc_solution', message: 'the resistive network has no unique DC solution; its time constants are reported as unknown (null)' });
+		extra.push({
+			code: 'no_dc_solution',
+			message:
+				'the resistive network has no unique DC solution; its time constants are reported as unknown (null)'
+		});
 	}
 	const sequential = net.reactive.length ? sequentialTimeConstants(net, ocPorts) : [];
 
@@ -47,8 +51,17 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	let mdZ: ReturnType<typeof modalForm> | null = null;
 	let elementsOfPorts: number[] = [];
 	if (net.reactive.length === 0) {
-		if (ocPorts.singular) throw new SolverError('singular', "the network's equations have no unique solution");
-		pz = Number.isFinite(ocPorts.h0) && ocPorts.h0 !== 0 ? { logK: Math.log(Math.abs(ocPorts.h0)), argK: ocPorts.h0 < 0 ? Math.PI : 0, poles: [], zeros: [] } : null;
+		if (ocPorts.singular)
+			throw new SolverError('singular', "the network's equations have no unique solution");
+		pz =
+			Number.isFinite(ocPorts.h0) && ocPorts.h0 !== 0
+				? {
+						logK: Math.log(Math.abs(ocPorts.h0)),
+						argK: ocPorts.h0 < 0 ? Math.PI : 0,
+						poles: [],
+						zeros: []
+					}
+				: null;
 		md = { direct: ocPorts.h0, poles: [] };
 		mdZ = { direct: ocPorts.hz0, poles: [] };
 	} else {
@@ -68,11 +81,19 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 			// Keep as many zeros as the relative degree allows, the ones nearest the shift first:
 			// the rest are infinite zeros that rounding pushed to enormous finite values.
 			const count = Math.max(0, roots.length - relativeDegree(md, pm.h0));
-			const byMu = z.map((r, i) => ({ i, mu: Math.hypot(r.muRe, r.muIm) })).sort((x, y) => y.mu - x.mu);
-			const keep = new Set(byMu.slice(0, Math.max(count, z.length > roots.length ? z.length : 0)).map((x) => x.i));
+			const byMu = z
+				.map((r, i) => ({ i, mu: Math.hypot(r.muRe, r.muIm) }))
+				.sort((x, y) => y.mu - x.mu);
+			const keep = new Set(
+				byMu.slice(0, Math.max(count, z.length > roots.length ? z.length : 0)).map((x) => x.i)
+			);
 			zeroRoots = z.filter((_, i) => keep.has(i));
 			pz = pzForm(roots, zeroRoots, zpm.s0, zpm.h0);
-		} else extra.push({ code: 'zero_transfer', message: 'the transfer function is identically zero (the output does not see the input)' });
+		} else
+			extra.push({
+				code: 'zero_transfer',
+				message: 'the transfer function is identically zero (the output does not see the input)'
+			});
 	}
 
 	const order = roots.map((_, i) => i).sort((i, j) => byMagnitude(roots[i], roots[j]));
@@ -85,7 +106,14 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		const mag = Math.hypot(r.re, r.im);
 		return {
 			...singularity(r.re, r.im),
-			estimate: est ? { element: est.element, tau: est.tau, re: estRe, hz: estRe === null ? null : Math.abs(estRe) / (2 * Math.PI) } : null,
+			estimate: est
+				? {
+						element: est.element,
+						tau: est.tau,
+						re: estRe,
+						hz: estRe === null ? null : Math.abs(estRe) / (2 * Math.PI)
+					}
+				: null,
 			relativeError: estRe !== null && mag > 0 ? Math.hypot(estRe - r.re, r.im) / mag : null,
 			owners: participation(net, elementsOfPorts, r),
 			cancelledBy: null
@@ -98,7 +126,10 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	const pairs = pairPolesAndZeros(poles, zeros);
 
 	const range = frequencyRange(poles, zeros, options.frequency || undefined);
-	const freq = options.frequency === false ? null : logSpace(range.fMin, range.fMax, options.frequency?.points ?? 200);
+	const freq =
+		options.frequency === false
+			? null
+			: logSpace(range.fMin, range.fMax, options.frequency?.points ?? 200);
 	let frequencyResponse: Analysis['frequencyResponse'] = null;
 	if (freq) {
 		const vals = freq.map((f) => (pz ? evalPz(pz, 2 * Math.PI * f) : null));
@@ -116,8 +147,15 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	if (options.step !== false && md) {
 		const slow = Math.min(...poles.filter((p) => p.re !== 0).map((p) => Math.abs(p.re)), Infinity);
 		const fast = Math.max(...poles.map((p) => Math.hypot(p.re, p.im)), 0);
-		const tEnd = options.step?.tEnd ?? (Number.isFinite(slow) ? 10 / slow : fast > 0 ? 10 / fast : 1);
-		step = stepResponse(md, stable ? dcGain : null, tEnd, fast > 0 ? 1 / fast : tEnd, options.step?.points ?? 200);
+		const tEnd =
+			options.step?.tEnd ?? (Number.isFinite(slow) ? 10 / slow : fast > 0 ? 10 / fast : 1);
+		step = stepResponse(
+			md,
+			stable ? dcGain : null,
+			tEnd,
+			fast > 0 ? 1 / fast : tEnd,
+			options.step?.points ?? 200
+		);
 		if (pz && freq) {
 			// The residues rest on eigenvectors; check them against the pole–zero form once.
 			const w = 2 * Math.PI * Math.sqrt(range.fMin * range.fMax);
@@ -125,13 +163,25 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 			const ref = evalPz(pz, w);
 			const mag = Math.exp(ref.logMag);
 			if (Math.abs(Math.hypot(v.re, v.im) - mag) > 1e-6 * mag + 1e-300) {
-				extra.push({ code: 'step_inaccurate', message: 'the pole–residue form disagrees with the pole–zero form (near-repeated poles); the step response may be inaccurate' });
+				extra.push({
+					code: 'step_inaccurate',
+					message:
+						'the pole–residue form disagrees with the pole–zero form (near-repeated poles); the step response may be inaccurate'
+				});
 			}
 		}
 	}
 	const zinDc = dcInputImpedance(net, ocPorts, poleAtZero);
-	const zin = freq && mdZ ? freq.map((f) => { const v = evalModal(mdZ!, 0, 2 * Math.PI * f); return impedanceFromReading(net, v.re, v.im); }) : [];
-	const exp = net.reactive.length ? expansion(net, ocPorts, roots, zeroRoots, numeratorScale(pz, roots, zeroRoots, dcGain)) : null;
+	const zin =
+		freq && mdZ
+			? freq.map((f) => {
+					const v = evalModal(mdZ!, 0, 2 * Math.PI * f);
+					return impedanceFromReading(net, v.re, v.im);
+				})
+			: [];
+	const exp = net.reactive.length
+		? expansion(net, ocPorts, roots, zeroRoots, numeratorScale(pz, roots, zeroRoots, dcGain))
+		: null;
 	const improper = zeroRoots.length > roots.length;
 
 	const result: Omit<Analysis, 'warnings' | 'meta'> = {
@@ -157,6 +207,11 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	return {
 		...result,
 		warnings: analysisWarnings(net, result, extra),
-		meta: { elements: net.elements.length, nodes: net.nodeNames.length + 1, reactive: net.reactive.length, ms: performance.now() - started }
+		meta: {
+			elements: net.elements.length,
+			nodes: net.nodeNames.length + 1,
+			reactive: net.reactive.length,
+			ms: performance.now() - started
+		}
 	};
 }

@@ -38,7 +38,8 @@ export function dcPorts(net: ResolvedNetwork, modeOf: (k: number) => ReactiveMod
 		if (modeOf(k) !== 'vport') continue;
 		const uf = new UnionFind(n);
 		for (const e of els) if (VOLTAGE_EDGE.has(e.type)) uf.union(...branchNodes(e));
-		for (const j of net.reactive) if (j !== k && shortLike(j)) uf.union(els[j].nodes[0], els[j].nodes[1]);
+		for (const j of net.reactive)
+			if (j !== k && shortLike(j)) uf.union(els[j].nodes[0], els[j].nodes[1]);
 		if (uf.connected(els[k].nodes[0], els[k].nodes[1])) inLoop.add(k);
 	}
 	const mode = (k: number): ReactiveMode => (dropped.has(k) ? 'open' : modeOf(k));
@@ -86,7 +87,8 @@ export function dcPorts(net: ResolvedNetwork, modeOf: (k: number) => ReactiveMod
 		const k = full[i];
 		const [na, nb] = [els[k].nodes[0], els[k].nodes[1]];
 		const crosses = modeOf(k) === 'iport' && comp.find(na) !== comp.find(nb);
-		if (crosses || inLoop.has(k) || dropped.has(k) || where[i] < 0 || out.singular) out.infinite[i] = 1;
+		if (crosses || inLoop.has(k) || dropped.has(k) || where[i] < 0 || out.singular)
+			out.infinite[i] = 1;
 		const pi = where[i];
 		if (pi < 0) continue;
 		out.h[i] = model.h[pi];

@@ -130,12 +130,20 @@ export function hqr(hs: Hessenberg): Eigenvalues {
 	const e = new Float64Array(nn);
 	const eps = Number.EPSILON;
 	let norm = 0;
-	for (let i = 0; i < nn; i++) for (let j = Math.max(i - 1, 0); j < nn; j++) norm += Math.abs(at(i, j));
+	for (let i = 0; i < nn; i++)
+		for (let j = Math.max(i - 1, 0); j < nn; j++) norm += Math.abs(at(i, j));
 	let n = nn - 1;
 	let exshift = 0;
 	let iter = 0;
 	let total = 0;
-	let p = 0, q = 0, r = 0, s = 0, z = 0, w = 0, x = 0, y = 0;
+	let p = 0,
+		q = 0,
+		r = 0,
+		s = 0,
+		z = 0,
+		w = 0,
+		x = 0,
+		y = 0;
 	while (n >= 0) {
 		if (++total > 60 * nn + 100) {
 			throw new SolverError('singular', 'the eigenvalue iteration did not converge');
@@ -214,7 +222,9 @@ export function hqr(hs: Hessenberg): Eigenvalues {
 				r /= s;
 				if (m === l) break;
 				const lhs = Math.abs(at(m, m - 1)) * (Math.abs(q) + Math.abs(r));
-				const rhs = eps * (Math.abs(p) * (Math.abs(at(m - 1, m - 1)) + Math.abs(z) + Math.abs(at(m + 1, m + 1))));
+				const rhs =
+					eps *
+					(Math.abs(p) * (Math.abs(at(m - 1, m - 1)) + Math.abs(z) + Math.abs(at(m + 1, m + 1))));
 				if (lhs < rhs) break;
 				m--;
 			}

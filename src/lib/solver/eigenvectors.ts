@@ -63,7 +63,7 @@ export function eigenvectors(hs: Hessenberg, lr: number, li: number): EigenPair 
 			}
 		}
 		let dr = ur[k * n + k];
-		let di = ui[k * n + k];
+		const di = ui[k * n + k];
 		if (dr === 0 && di === 0) {
 			dr = delta;
 			ur[k * n + k] = delta;
@@ -125,7 +125,13 @@ export function eigenvectors(hs: Hessenberg, lr: number, li: number): EigenPair 
 	return backTransform(hs, xr, xi, yr, yi);
 }
 
-function backSubstitute(ur: Float64Array, ui: Float64Array, n: number, br: Float64Array, bi: Float64Array) {
+function backSubstitute(
+	ur: Float64Array,
+	ui: Float64Array,
+	n: number,
+	br: Float64Array,
+	bi: Float64Array
+) {
 	for (let i = n - 1; i >= 0; i--) {
 		let sr = br[i];
 		let si = bi[i];
@@ -141,7 +147,13 @@ function backSubstitute(ur: Float64Array, ui: Float64Array, n: number, br: Float
 	}
 }
 
-function forwardTransposed(ur: Float64Array, ui: Float64Array, n: number, br: Float64Array, bi: Float64Array) {
+function forwardTransposed(
+	ur: Float64Array,
+	ui: Float64Array,
+	n: number,
+	br: Float64Array,
+	bi: Float64Array
+) {
 	for (let i = 0; i < n; i++) {
 		let sr = br[i];
 		let si = bi[i];
@@ -168,11 +180,25 @@ function normalize(r: Float64Array, i: Float64Array) {
 }
 
 /** x = B Q x_H and y = B⁻¹ Q y_H: the similarity that produced the Hessenberg form, undone. */
-function backTransform(hs: Hessenberg, hxr: Float64Array, hxi: Float64Array, hyr: Float64Array, hyi: Float64Array): EigenPair {
+function backTransform(
+	hs: Hessenberg,
+	hxr: Float64Array,
+	hxi: Float64Array,
+	hyr: Float64Array,
+	hyi: Float64Array
+): EigenPair {
 	const { n, q, scale } = hs;
-	const out = { xr: new Float64Array(n), xi: new Float64Array(n), yr: new Float64Array(n), yi: new Float64Array(n) };
+	const out = {
+		xr: new Float64Array(n),
+		xi: new Float64Array(n),
+		yr: new Float64Array(n),
+		yi: new Float64Array(n)
+	};
 	for (let i = 0; i < n; i++) {
-		let a = 0, b = 0, c = 0, d = 0;
+		let a = 0,
+			b = 0,
+			c = 0,
+			d = 0;
 		const row = i * n;
 		for (let k = 0; k < n; k++) {
 			const qk = q[row + k];
@@ -262,7 +288,12 @@ function realEigenvectors(hs: Hessenberg, lr: number): EigenPair {
 	normalize(x, zero);
 	normalize(y, zero);
 	const { q, scale } = hs;
-	const out = { xr: new Float64Array(n), xi: new Float64Array(n), yr: new Float64Array(n), yi: new Float64Array(n) };
+	const out = {
+		xr: new Float64Array(n),
+		xi: new Float64Array(n),
+		yr: new Float64Array(n),
+		yi: new Float64Array(n)
+	};
 	for (let i = 0; i < n; i++) {
 		let a = 0;
 		let c = 0;

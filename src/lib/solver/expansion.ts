@@ -77,13 +77,17 @@ export function expansion(
 	zeros: { re: number; im: number }[],
 	numeratorScale: number | null
 ): Analysis['expansion'] {
-	if (oc.singular || oc.infinite.some((x) => x) || poles.some((p) => p.re === 0 && p.im === 0)) return null;
+	if (oc.singular || oc.infinite.some((x) => x) || poles.some((p) => p.re === 0 && p.im === 0))
+		return null;
 	const m = oc.m;
 	const id = (i: number) => net.elements[oc.elements[i]].id;
 	const T = (i: number, j: number) => oc.d[i] * oc.H[i * m + j];
 	const bTot = elementary(poles.map(inv), Math.min(MAX_ORDER, poles.length));
 	const z0 = zeros.filter((z) => z.re === 0 && z.im === 0).length;
-	const aTot = elementary(zeros.filter((z) => z.re !== 0 || z.im !== 0).map(inv), Math.min(MAX_ORDER, zeros.length));
+	const aTot = elementary(
+		zeros.filter((z) => z.re !== 0 || z.im !== 0).map(inv),
+		Math.min(MAX_ORDER, zeros.length)
+	);
 
 	const denominator: ExpansionCoefficient[] = [];
 	const numerator: ExpansionCoefficient[] = [];
@@ -95,7 +99,13 @@ export function expansion(
 			// All pairs at any size: O(m²) 2×2 minors kept as numbers; objects only for the top ones.
 			const top = topPairs(m, (i, j) => T(i, i) * T(j, j) - T(i, j) * T(j, i), LIST);
 			pairTerms = top.terms.map(([i, j, v]) => ({ elements: [id(i), id(j)], value: v }));
-			denominator.push({ order: 2, value: Number.isFinite(bTot[2]) ? bTot[2] : top.sum, termSum: top.sum, termCount: top.count, terms: pairTerms.slice(0, LIST) });
+			denominator.push({
+				order: 2,
+				value: Number.isFinite(bTot[2]) ? bTot[2] : top.sum,
+				termSum: top.sum,
+				termCount: top.count,
+				terms: pairTerms.slice(0, LIST)
+			});
 			continue;
 		}
 		if (k === 3 && m <= 12) {
@@ -124,7 +134,11 @@ export function expansion(
 	for (const t of pairTerms.sort((x, y) => Math.abs(y.value) - Math.abs(x.value))) {
 		if (dominantPairs.length >= 5 || (b2 !== 0 && acc >= 0.9 * Math.abs(b2))) break;
 		acc += Math.abs(t.value);
-		dominantPairs.push({ elements: [t.elements[0], t.elements[1]], value: t.value, fraction: b2 ? t.value / b2 : 0 });
+		dominantPairs.push({
+			elements: [t.elements[0], t.elements[1]],
+			value: t.value,
+			fraction: b2 ? t.value / b2 : 0
+		});
 	}
 	return { denominator, numerator, dominantPairs };
 }
@@ -152,7 +166,10 @@ function topPairs(m: number, f: (i: number, j: number) => number, keep: number) 
 function coefficient(order: number, value: number, terms: ExpansionTerm[]): ExpansionCoefficient {
 	const listed = terms.length > 0 || order === 0;
 	const termSum = listed ? terms.reduce((s, t) => s + t.value, 0) : null;
-	const top = terms.slice().sort((a, b) => Math.abs(b.value) - Math.abs(a.value)).slice(0, LIST);
+	const top = terms
+		.slice()
+		.sort((a, b) => Math.abs(b.value) - Math.abs(a.value))
+		.slice(0, LIST);
 	return {
 		order,
 		value: Number.isFinite(value) ? value : (termSum ?? NaN),

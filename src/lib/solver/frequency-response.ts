@@ -106,7 +106,8 @@ export function frequencyResponseAt(
 		const w = 2 * Math.PI * f;
 		const re = a.g.slice();
 		const im = new Float64Array(n * n);
-		for (const p of a.ports) for (const [r, x] of p.vec) for (const [c, y] of p.vec) im[r * n + c] += w * p.d * x * y;
+		for (const p of a.ports)
+			for (const [r, x] of p.vec) for (const [c, y] of p.vec) im[r * n + c] += w * p.d * x * y;
 		const lu = cluFactor(re, im, n);
 		const br = dense(a.b, n);
 		const bi = new Float64Array(n);

@@ -23,7 +23,12 @@ export function modalForm(pm: PortModel, roots: Root[], out: 'transfer' | 'zin')
 	for (const r of roots) {
 		const v = r.vectors;
 		if (!v) continue;
-		let ar = 0, ai = 0, br = 0, bi = 0, gr = 0, gi = 0;
+		let ar = 0,
+			ai = 0,
+			br = 0,
+			bi = 0,
+			gr = 0,
+			gi = 0;
 		for (let k = 0; k < pm.m; k++) {
 			ar += g[k] * v.xr[k];
 			ai += g[k] * v.xi[k];
@@ -79,7 +84,8 @@ export function evalModal(md: Modal, sr: number, si: number): { re: number; im: 
 export function relativeDegree(md: Modal, h0: number, tol = 1e-8): number {
 	const n = md.poles.length;
 	let noise = Math.abs(h0);
-	for (const p of md.poles) noise += Math.hypot(p.rr, p.ri) / Math.max(Math.hypot(p.re, p.im), 1e-300);
+	for (const p of md.poles)
+		noise += Math.hypot(p.rr, p.ri) / Math.max(Math.hypot(p.re, p.im), 1e-300);
 	if (Math.abs(md.direct) > tol * noise) return 0;
 	const P = Math.max(...md.poles.map((p) => Math.hypot(p.re, p.im)), 1e-300);
 	// Running powers (p/P)^k · r for each pole.

@@ -9,8 +9,8 @@ const PREFIX: Record<string, number> = {
 	p: 1e-12,
 	n: 1e-9,
 	u: 1e-6,
-	'µ': 1e-6, // U+00B5 micro sign, what most keyboards produce
-	'μ': 1e-6, // U+03BC Greek mu, what some fonts and pastes produce
+	µ: 1e-6, // U+00B5 micro sign, what most keyboards produce
+	μ: 1e-6, // U+03BC Greek mu, what some fonts and pastes produce
 	m: 1e-3,
 	k: 1e3,
 	M: 1e6,

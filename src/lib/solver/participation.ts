@@ -15,7 +15,9 @@ export function participation(
 ): { element: string; share: number }[] {
 	const v = root.vectors;
 	if (!v) return [];
-	const p = elements.map((_, k) => Math.hypot(v.xr[k] * v.yr[k] - v.xi[k] * v.yi[k], v.xr[k] * v.yi[k] + v.xi[k] * v.yr[k]));
+	const p = elements.map((_, k) =>
+		Math.hypot(v.xr[k] * v.yr[k] - v.xi[k] * v.yi[k], v.xr[k] * v.yi[k] + v.xi[k] * v.yr[k])
+	);
 	const total = p.reduce((s, x) => s + x, 0);
 	if (!(total > 0) || !Number.isFinite(total)) return [];
 	return elements

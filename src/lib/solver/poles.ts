@@ -59,7 +59,12 @@ function refine(sp: Spectrum, pencil: () => Pencil, withVectors: boolean): Root[
 				muRe: r.muRe,
 				muIm: -r.muIm,
 				partner: roots.length - 1,
-				vectors: vectors && { xr: vectors.xr, xi: vectors.xi.map((v) => -v), yr: vectors.yr, yi: vectors.yi.map((v) => -v) }
+				vectors: vectors && {
+					xr: vectors.xr,
+					xi: vectors.xi.map((v) => -v),
+					yr: vectors.yr,
+					yi: vectors.yi.map((v) => -v)
+				}
 			};
 			roots[roots.length - 1].partner = roots.length;
 			roots.push(conj);
@@ -77,7 +82,8 @@ export function computePoles(a: Assembled, pm: PortModel): { roots: Root[]; sp: 
 /** Transmission zeros; `null` when H(s0) = 0 so the reduction does not apply at this shift. */
 export function computeZeros(a: Assembled, pm: PortModel): Root[] | null {
 	let scale = Math.abs(pm.h0);
-	for (let i = 0; i < pm.m; i++) scale = Math.max(scale, Math.abs(pm.g[i] * pm.h[i] * pm.d[i] * pm.s0));
+	for (let i = 0; i < pm.m; i++)
+		scale = Math.max(scale, Math.abs(pm.g[i] * pm.h[i] * pm.d[i] * pm.s0));
 	if (scale === 0 || Math.abs(pm.h0) <= 1e-13 * scale) return null;
 	const sp = spectrum(zeroMatrix(pm), pm.m, pm.s0, false);
 	return refine(sp, () => zeroPencil(a), false);

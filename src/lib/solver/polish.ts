@@ -14,14 +14,16 @@ export interface Pencil {
 
 export function polePencil(a: Assembled): Pencil {
 	const c: Pencil['c'] = [];
-	for (const p of a.ports) for (const [r, x] of p.vec) for (const [q, y] of p.vec) c.push([r, q, p.d * x * y]);
+	for (const p of a.ports)
+		for (const [r, x] of p.vec) for (const [q, y] of p.vec) c.push([r, q, p.d * x * y]);
 	return { n: a.size, g: a.g.slice(), c };
 }
 
 export function zeroPencil(a: Assembled): Pencil {
 	const n = a.size + 1;
 	const g = new Float64Array(n * n);
-	for (let i = 0; i < a.size; i++) for (let j = 0; j < a.size; j++) g[i * n + j] = a.g[i * a.size + j];
+	for (let i = 0; i < a.size; i++)
+		for (let j = 0; j < a.size; j++) g[i * n + j] = a.g[i * a.size + j];
 	const put = (v: Sparse, col: boolean) => {
 		for (const [r, x] of v) {
 			if (col) g[r * n + a.size] += x;
@@ -39,7 +41,12 @@ export function zeroPencil(a: Assembled): Pencil {
  * quotient ν of T. Converges in two or three steps from a six-digit estimate. Bounded at
  * `maxIter`; a step that is non-finite or jumps away (to another singularity) is refused.
  */
-export function polish(pen: Pencil, re: number, im: number, maxIter = 6): { re: number; im: number } {
+export function polish(
+	pen: Pencil,
+	re: number,
+	im: number,
+	maxIter = 6
+): { re: number; im: number } {
 	const n = pen.n;
 	const r0 = Math.hypot(re, im);
 	if (r0 === 0) return { re, im };
@@ -66,7 +73,9 @@ export function polish(pen: Pencil, re: number, im: number, maxIter = 6): { re: 
 		cluSolve(lu, wr, wi);
 		if (it > 0) {
 			// ν = xᴴw / xᴴx
-			let nr = 0, ni = 0, dd = 0;
+			let nr = 0,
+				ni = 0,
+				dd = 0;
 			for (let i = 0; i < n; i++) {
 				nr += xr[i] * wr[i] + xi[i] * wi[i];
 				ni += xr[i] * wi[i] - xi[i] * wr[i];

@@ -76,6 +76,10 @@ export function portModelFrom(a: Assembled, s0: number): PortModel {
 	return model;
 }
 
-export function portModel(net: ResolvedNetwork, s0: number, mode: (k: number) => ReactiveMode = () => 'pencil'): PortModel {
+export function portModel(
+	net: ResolvedNetwork,
+	s0: number,
+	mode: (k: number) => ReactiveMode = () => 'pencil'
+): PortModel {
 	return portModelFrom(assemble(net, mode), s0);
 }

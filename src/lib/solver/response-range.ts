@@ -7,7 +7,9 @@ export function frequencyRange(
 	zeros: { re: number; im: number }[],
 	opt?: { fMin?: number; fMax?: number }
 ): { fMin: number; fMax: number } {
-	const mags = [...poles, ...zeros].map((p) => Math.hypot(p.re, p.im) / (2 * Math.PI)).filter((m) => m > 0 && Number.isFinite(m));
+	const mags = [...poles, ...zeros]
+		.map((p) => Math.hypot(p.re, p.im) / (2 * Math.PI))
+		.filter((m) => m > 0 && Number.isFinite(m));
 	let fMin = mags.length ? Math.min(...mags) / 100 : 1;
 	let fMax = mags.length ? Math.max(...mags) * 100 : 1e6;
 	if (opt?.fMin !== undefined && opt.fMin > 0) fMin = opt.fMin;
@@ -21,7 +23,11 @@ export function frequencyRange(
  * reference (|DC gain|, or |H| at fMin when the DC gain is infinite), refined by bisection in
  * log f. Null for a zero DC gain (a high-pass has no low-pass bandwidth) or no crossing in range.
  */
-export function bandwidth(pz: PzForm, dcGain: number | null, range: { fMin: number; fMax: number }): number | null {
+export function bandwidth(
+	pz: PzForm,
+	dcGain: number | null,
+	range: { fMin: number; fMax: number }
+): number | null {
 	if (dcGain === 0) return null;
 	const logAt = (f: number) => evalPz(pz, 2 * Math.PI * f).logMag;
 	const ref = dcGain !== null ? Math.log(Math.abs(dcGain)) : logAt(range.fMin);
@@ -48,7 +54,12 @@ export function bandwidth(pz: PzForm, dcGain: number | null, range: { fMin: numb
 }
 
 /** Coefficient of the lowest power of s in the numerator N(s) = H(s)·Π(1 − s/p). */
-export function numeratorScale(pz: PzForm | null, poles: Root[], zeros: Root[], dcGain: number | null): number | null {
+export function numeratorScale(
+	pz: PzForm | null,
+	poles: Root[],
+	zeros: Root[],
+	dcGain: number | null
+): number | null {
 	const atOrigin = zeros.filter((z) => z.re === 0 && z.im === 0).length;
 	if (atOrigin === 0) return dcGain;
 	if (!pz) return null;

@@ -24,14 +24,18 @@ export function shiftedModel(
 		const pm = portModelFrom(a, scale * f);
 		if (pm.pivotRatio >= SINGULAR_PIVOT) return { a, pm, s0: scale * f, scale };
 	}
-	throw new SolverError('singular', "the network's equations have no unique solution at any frequency");
+	throw new SolverError(
+		'singular',
+		"the network's equations have no unique solution at any frequency"
+	);
 }
 
 function naturalScale(oc: TimeConstant[], sc: TimeConstant[]): number {
 	let sum = 0;
 	for (const t of oc) if (t.tau !== null && Number.isFinite(t.tau)) sum += Math.abs(t.tau);
 	let rate = 0;
-	for (const t of sc) if (t.tau !== null && t.tau !== 0 && Number.isFinite(1 / t.tau)) rate += 1 / Math.abs(t.tau);
+	for (const t of sc)
+		if (t.tau !== null && t.tau !== 0 && Number.isFinite(1 / t.tau)) rate += 1 / Math.abs(t.tau);
 	const lo = sum > 0 ? 1 / sum : 0;
 	if (lo > 0 && rate > lo) return Math.sqrt(lo * rate);
 	if (lo > 0) return lo;

@@ -62,7 +62,8 @@ export function zeroMatrix(pm: PortModel): Float64Array {
 	const m = pm.m;
 	const a = new Float64Array(m * m);
 	for (let i = 0; i < m; i++) {
-		for (let j = 0; j < m; j++) a[i * m + j] = pm.d[i] * (pm.H[i * m + j] - (pm.h[i] * pm.g[j]) / pm.h0);
+		for (let j = 0; j < m; j++)
+			a[i * m + j] = pm.d[i] * (pm.H[i * m + j] - (pm.h[i] * pm.g[j]) / pm.h0);
 	}
 	return a;
 }

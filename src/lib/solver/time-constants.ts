@@ -65,7 +65,7 @@ export function shortCircuitTimeConstants(net: ResolvedNetwork, sc: DcPorts): Ti
  * inversion costs at most about six of the sixteen digits (checked against the direct
  * configuration in the tests).
  */
-export const SC_FROM_OC_ABOVE = 60;
+export const SC_FROM_OC_ABOVE = 20;
 
 export function shortCircuitFromOpen(net: ResolvedNetwork, oc: DcPorts): DcPorts | null {
 	const m = oc.m;
@@ -95,7 +95,8 @@ function hasStructuralExtreme(net: ResolvedNetwork): boolean {
 	const n = net.nodeNames.length;
 	const els = net.elements;
 	const shorts = new UnionFind(n);
-	for (const e of els) if (VOLTAGE_EDGE.has(e.type) || e.type === 'C') shorts.union(...branchNodes(e));
+	for (const e of els)
+		if (VOLTAGE_EDGE.has(e.type) || e.type === 'C') shorts.union(...branchNodes(e));
 	for (const k of net.reactive) {
 		const e = els[k];
 		if (e.type === 'L' && shorts.connected(e.nodes[0], e.nodes[1])) return true;
@@ -104,7 +105,8 @@ function hasStructuralExtreme(net: ResolvedNetwork): boolean {
 		if (els[k].type !== 'C') continue;
 		const uf = new UnionFind(n);
 		els.forEach((e, j) => {
-			if (j !== k && (e.type === 'R' || e.type === 'C' || VOLTAGE_EDGE.has(e.type))) uf.union(...branchNodes(e));
+			if (j !== k && (e.type === 'R' || e.type === 'C' || VOLTAGE_EDGE.has(e.type)))
+				uf.union(...branchNodes(e));
 		});
 		if (!uf.connected(els[k].nodes[0], els[k].nodes[1])) return true;
 	}

@@ -5,10 +5,27 @@ import { checkTopology } from './topology';
 import { GROUND, type ResolvedElement, type ResolvedNetwork, type Warning } from './types';
 
 const NODE_COUNT: Record<ElementType, number> = {
-	R: 2, C: 2, L: 2, V: 2, I: 2, CCCS: 2, CCVS: 2, VCCS: 4, VCVS: 4, OPAMP: 3
+	R: 2,
+	C: 2,
+	L: 2,
+	V: 2,
+	I: 2,
+	CCCS: 2,
+	CCVS: 2,
+	VCCS: 4,
+	VCVS: 4,
+	OPAMP: 3
 };
 const UNIT: Record<ElementType, string | undefined> = {
-	R: 'Ω', C: 'F', L: 'H', V: 'V', I: 'A', VCCS: 'S', CCVS: 'Ω', VCVS: undefined, CCCS: undefined,
+	R: 'Ω',
+	C: 'F',
+	L: 'H',
+	V: 'V',
+	I: 'A',
+	VCCS: 'S',
+	CCVS: 'Ω',
+	VCVS: undefined,
+	CCCS: undefined,
 	OPAMP: undefined
 };
 const KNOWN = new Set(Object.keys(NODE_COUNT));
@@ -25,7 +42,8 @@ export function validateNetwork(doc: unknown): ResolvedNetwork {
 	const parsed = networkDocumentSchema.safeParse(doc);
 	if (!parsed.success) throw fromZod(doc, parsed.error.issues[0]);
 	const d = parsed.data;
-	if (d.elements.length === 0) throw new SolverError('empty_network', 'the network has no elements');
+	if (d.elements.length === 0)
+		throw new SolverError('empty_network', 'the network has no elements');
 
 	const warnings: Warning[] = [];
 	const nodeIndex = new Map<string, number>();
@@ -45,7 +63,9 @@ export function validateNetwork(doc: unknown): ResolvedNetwork {
 
 	const elements: ResolvedElement[] = d.elements.map((e, k) => {
 		if (ids.has(e.id)) {
-			throw new SolverError('duplicate_id', `element id "${e.id}" is used twice`, { element: e.id });
+			throw new SolverError('duplicate_id', `element id "${e.id}" is used twice`, {
+				element: e.id
+			});
 		}
 		ids.set(e.id, k);
 		const want = NODE_COUNT[e.type];
@@ -137,9 +157,13 @@ function readValue(e: { id: string; type: ElementType; value?: string | number }
 		throw new SolverError(err.code, `element "${e.id}": ${err.message}`, { element: e.id });
 	}
 	if (v === 0 && (e.type === 'R' || e.type === 'C' || e.type === 'L')) {
-		throw new SolverError('zero_value', `element "${e.id}": a ${e.type} of value 0 is not allowed`, {
-			element: e.id
-		});
+		throw new SolverError(
+			'zero_value',
+			`element "${e.id}": a ${e.type} of value 0 is not allowed`,
+			{
+				element: e.id
+			}
+		);
 	}
 	return v;
 }
@@ -175,7 +199,9 @@ function preflight(doc: unknown): void {
 			});
 		}
 		if (typeof value === 'number' && !Number.isFinite(value)) {
-			throw new SolverError('non_finite', `element "${name}": value is not finite`, { element: name });
+			throw new SolverError('non_finite', `element "${name}": value is not finite`, {
+				element: name
+			});
 		}
 	}
 }

@@ -1,10 +1,7 @@
 import type { Analysis, PoleInfo, ResolvedNetwork, Warning } from './types';
 
 /** Pole–zero pairs closer than 1 % of the pole's magnitude: flagged, never dropped. */
-export function pairPolesAndZeros(
-	poles: PoleInfo[],
-	zeros: Analysis['zeros']
-): Analysis['pairs'] {
+export function pairPolesAndZeros(poles: PoleInfo[], zeros: Analysis['zeros']): Analysis['pairs'] {
 	const pairs: Analysis['pairs'] = [];
 	const usedZero = new Set<number>();
 	poles.forEach((p, i) => {

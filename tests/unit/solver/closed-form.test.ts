@@ -8,7 +8,16 @@ describe('RC low-pass', () => {
 	// Source: closed form, corner frequency 1/(2πRC), single real pole at −1/RC, DC gain 1.
 	const R = 4.7e3;
 	const C = 2.2e-9;
-	const a = analyze(net([el('Vin', 'V', ['in', 'gnd'], 1), el('R1', 'R', ['in', 'out'], '4.7k'), el('C1', 'C', ['out', 'gnd'], '2.2n')], 'out'));
+	const a = analyze(
+		net(
+			[
+				el('Vin', 'V', ['in', 'gnd'], 1),
+				el('R1', 'R', ['in', 'out'], '4.7k'),
+				el('C1', 'C', ['out', 'gnd'], '2.2n')
+			],
+			'out'
+		)
+	);
 	test('pole, corner, DC gain, time constant (tolerance 1e-10)', () => {
 		expect(a.poles).toHaveLength(1);
 		expectRel(a.poles[0].re, -1 / (R * C), 1e-10, 'pole');
@@ -24,9 +33,19 @@ describe('RC low-pass', () => {
 		expect(a.step!.overshoot).toBeLessThan(1e-9);
 	});
 	test('magnitude and phase at the corner are −3.0103 dB and −45° (closed form, 1e-9)', () => {
-		const b = analyze(net([el('Vin', 'V', ['in', 'gnd'], 1), el('R1', 'R', ['in', 'out'], R), el('C1', 'C', ['out', 'gnd'], C)], 'out'), {
-			frequency: { fMin: 1 / (TWO_PI * R * C), fMax: 10 / (TWO_PI * R * C), points: 2 }
-		});
+		const b = analyze(
+			net(
+				[
+					el('Vin', 'V', ['in', 'gnd'], 1),
+					el('R1', 'R', ['in', 'out'], R),
+					el('C1', 'C', ['out', 'gnd'], C)
+				],
+				'out'
+			),
+			{
+				frequency: { fMin: 1 / (TWO_PI * R * C), fMax: 10 / (TWO_PI * R * C), points: 2 }
+			}
+		);
 		expectRel(b.frequencyResponse!.magnitudeDb[0], -10 * Math.log10(2), 1e-9, 'dB at corner');
 		expectRel(b.frequencyResponse!.phaseDeg[0], -45, 1e-9, 'phase at corner');
 		expectRel(b.frequencyResponse!.groupDelay[0], (R * C) / 2, 1e-9, 'group delay RC/(1+1)');
@@ -51,7 +70,11 @@ describe('10:1 passive probe on a scope input (common practice, no citation)', (
 	);
 	// Closed form: the two-node determinant (ga+gt+sCt)(gt+gi+s(Ct+Cin)) − (gt+sCt)² = 0.
 	const [ga, gt, gi] = [1 / Rs, 1 / Rt, 1 / Rin];
-	const exact = quadratic(Ct * Cin, (ga + gt) * (Ct + Cin) + Ct * gi - gt * Ct, ga * gt + ga * gi + gt * gi);
+	const exact = quadratic(
+		Ct * Cin,
+		(ga + gt) * (Ct + Cin) + Ct * gi - gt * Ct,
+		ga * gt + ga * gi + gt * gi
+	);
 	test('exact natural frequencies 1768 Hz and 353.7 MHz (closed form, 1e-9)', () => {
 		expect(worstRootError(a.poles, exact)).toBeLessThan(1e-9);
 		expect(a.poles[0].hz).toBeCloseTo(1768.4, 1);
@@ -70,7 +93,12 @@ describe('10:1 passive probe on a scope input (common practice, no citation)', (
 		expectRel(second.tau, Ct * ((Rs * Rt) / (Rs + Rt)), 1e-10, 'second τ');
 		expect(a.poles[0].estimate!.hz).toBeCloseTo(1965, 0);
 		expect(a.poles[1].estimate!.hz! / 1e6).toBeCloseTo(318.3, 1);
-		expectRel(a.poles[0].relativeError, Math.abs(-1 / first.tau! - exact[1].re) / Math.abs(exact[1].re), 1e-8, 'estimate error');
+		expectRel(
+			a.poles[0].relativeError,
+			Math.abs(-1 / first.tau! - exact[1].re) / Math.abs(exact[1].re),
+			1e-8,
+			'estimate error'
+		);
 	});
 	test('compensated (9M·10p = 1M·90p): the slow pole is cancelled by a zero and flagged', () => {
 		expect(a.pairs).toHaveLength(1);
@@ -109,7 +137,10 @@ describe('doubly terminated Butterworth LC ladders (normalized values from memor
 		});
 	for (const n of [3, 5]) {
 		test(`n = ${n} from g_k = 2 sin((2k−1)π/2n): poles on the circle at the Butterworth angles (1e-9)`, () => {
-			const g = Array.from({ length: n }, (_, k) => 2 * Math.sin(((2 * k + 1) * Math.PI) / (2 * n)));
+			const g = Array.from(
+				{ length: n },
+				(_, k) => 2 * Math.sin(((2 * k + 1) * Math.PI) / (2 * n))
+			);
 			const wc = TWO_PI * 1e6;
 			const a = analyze(ladder(g, wc, 50));
 			expect(worstRootError(a.poles, butterworth(n, wc))).toBeLessThan(1e-9);
@@ -152,7 +183,12 @@ describe('unity-gain Sallen–Key low-pass', () => {
 	});
 	test('overshoot of the second-order step: 100·exp(−πζ/√(1−ζ²)) (closed form, 1e-6)', () => {
 		const zeta = 1 / (2 * Q);
-		expectRel(a.step!.overshoot, 100 * Math.exp((-Math.PI * zeta) / Math.sqrt(1 - zeta * zeta)), 1e-6, 'overshoot %');
+		expectRel(
+			a.step!.overshoot,
+			100 * Math.exp((-Math.PI * zeta) / Math.sqrt(1 - zeta * zeta)),
+			1e-6,
+			'overshoot %'
+		);
 	});
 });
 
@@ -188,7 +224,12 @@ describe('RLC series resonance', () => {
 	const [R, L, C] = [20, 1e-3, 100e-9];
 	const a = analyze(
 		net(
-			[el('Vin', 'V', ['in', 'gnd'], 1), el('R1', 'R', ['in', 'a'], R), el('L1', 'L', ['a', 'b'], '1m'), el('C1', 'C', ['b', 'gnd'], '100n')],
+			[
+				el('Vin', 'V', ['in', 'gnd'], 1),
+				el('R1', 'R', ['in', 'a'], R),
+				el('L1', 'L', ['a', 'b'], '1m'),
+				el('C1', 'C', ['b', 'gnd'], '100n')
+			],
 			'b'
 		)
 	);

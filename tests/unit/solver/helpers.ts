@@ -1,6 +1,12 @@
 import { expect } from 'vitest';
 
-export type El = { id: string; type: string; nodes: (string | number)[]; value?: string | number; control?: string };
+export type El = {
+	id: string;
+	type: string;
+	nodes: (string | number)[];
+	value?: string | number;
+	control?: string;
+};
 
 export function net(elements: El[], output: string, input = 'Vin', reference?: string) {
 	return {
@@ -11,20 +17,42 @@ export function net(elements: El[], output: string, input = 'Vin', reference?: s
 	};
 }
 
-export const el = (id: string, type: string, nodes: (string | number)[], value?: string | number, control?: string): El =>
-	({ id, type, nodes, ...(value !== undefined ? { value } : {}), ...(control ? { control } : {}) });
+export const el = (
+	id: string,
+	type: string,
+	nodes: (string | number)[],
+	value?: string | number,
+	control?: string
+): El => ({
+	id,
+	type,
+	nodes,
+	...(value !== undefined ? { value } : {}),
+	...(control ? { control } : {})
+});
 
 export const rel = (a: number, b: number) => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
 
 /** Relative-error comparison that names what is compared when it fails. */
-export function expectRel(actual: number | null | undefined, expected: number, tol: number, what: string) {
+export function expectRel(
+	actual: number | null | undefined,
+	expected: number,
+	tol: number,
+	what: string
+) {
 	expect(actual, `${what}: got null`).not.toBeNull();
 	const e = rel(actual as number, expected);
-	expect(e, `${what}: ${actual} vs ${expected} (relative error ${e.toExponential(2)} > ${tol})`).toBeLessThanOrEqual(tol);
+	expect(
+		e,
+		`${what}: ${actual} vs ${expected} (relative error ${e.toExponential(2)} > ${tol})`
+	).toBeLessThanOrEqual(tol);
 }
 
 /** Matches two lists of complex roots (any order) by nearest neighbour; returns worst relative error. */
-export function worstRootError(got: { re: number; im: number }[], want: { re: number; im: number }[]): number {
+export function worstRootError(
+	got: { re: number; im: number }[],
+	want: { re: number; im: number }[]
+): number {
 	expect(got.length, `root count ${got.length} vs ${want.length}`).toBe(want.length);
 	const used = new Set<number>();
 	let worst = 0;
@@ -50,9 +78,15 @@ export function quadratic(a: number, b: number, c: number): { re: number; im: nu
 	const disc = b * b - 4 * a * c;
 	if (disc >= 0) {
 		const q = -0.5 * (b + Math.sign(b || 1) * Math.sqrt(disc));
-		return [{ re: q / a, im: 0 }, { re: c / q, im: 0 }];
+		return [
+			{ re: q / a, im: 0 },
+			{ re: c / q, im: 0 }
+		];
 	}
 	const re = -b / (2 * a);
 	const im = Math.sqrt(-disc) / (2 * a);
-	return [{ re, im }, { re, im: -im }];
+	return [
+		{ re, im },
+		{ re, im: -im }
+	];
 }

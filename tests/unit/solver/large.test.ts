@@ -1,9 +1,14 @@
 import { describe, expect, test } from 'vitest';
 import { analyze, validateNetwork } from '../../../src/lib/solver/index';
-import { openCircuitPorts, shortCircuitFromOpen, shortCircuitPorts, shortCircuitTimeConstants } from '../../../src/lib/solver/time-constants';
+import {
+	openCircuitPorts,
+	shortCircuitFromOpen,
+	shortCircuitPorts,
+	shortCircuitTimeConstants
+} from '../../../src/lib/solver/time-constants';
 import { el, net, rel, type El } from './helpers';
 
-/** An RLC ladder long enough (m > 60) for the large-network paths. */
+/** An RLC ladder long enough (m > 20) for the large-network paths. */
 function rlcLadder(sections: number) {
 	const els: El[] = [el('Vin', 'V', ['n0', 'gnd'], 1), el('Rs', 'R', ['n0', 'a0'], 50)];
 	for (let i = 0; i < sections; i++) {
@@ -11,10 +16,12 @@ function rlcLadder(sections: number) {
 		els.push(el(`Rg${i}`, 'R', [`a${i}`, 'gnd'], 1e5));
 		// Inductors in series with a resistor, so none sits directly across two shorted capacitors.
 		if (i % 4 === 3) {
-			els.push(el(`L${i}`, 'L', [`a${i}`, `m${i}`], 1e-6 * (1 + (i % 5))), el(`Rm${i}`, 'R', [`m${i}`, `a${i + 1}`], 30));
+			els.push(
+				el(`L${i}`, 'L', [`a${i}`, `m${i}`], 1e-6 * (1 + (i % 5))),
+				el(`Rm${i}`, 'R', [`m${i}`, `a${i + 1}`], 30)
+			);
 			els.push(el(`Rp${i}`, 'R', [`a${i}`, `a${i + 1}`], 300));
-		}
-		else els.push(el(`R${i}`, 'R', [`a${i}`, `a${i + 1}`], 100 * (1 + (i % 7))));
+		} else els.push(el(`R${i}`, 'R', [`a${i}`, `a${i + 1}`], 100 * (1 + (i % 7))));
 	}
 	els.push(el('RL', 'R', [`a${sections}`, 'gnd'], 1e3));
 	return net(els, `a${sections}`);
@@ -45,7 +52,9 @@ describe('large-network paths agree with the direct ones', () => {
 	test('Σ open-circuit τ = −Σ 1/p and Σ 1/τ_sc = −Σ p on the same ladder (published identities, 1e-9)', () => {
 		const a = analyze(rlcLadder(64), { frequency: false, step: false });
 		const b1 = a.timeConstants.openCircuit.reduce((s, t) => s + t.tau!, 0);
-		expect(rel(-a.poles.reduce((s, p) => s + p.re / (p.re * p.re + p.im * p.im), 0), b1)).toBeLessThan(1e-9);
+		expect(
+			rel(-a.poles.reduce((s, p) => s + p.re / (p.re * p.re + p.im * p.im), 0), b1)
+		).toBeLessThan(1e-9);
 		const sumRate = a.timeConstants.shortCircuit.reduce((s, t) => s + 1 / t.tau!, 0);
 		expect(rel(-a.poles.reduce((s, p) => s + p.re, 0), sumRate)).toBeLessThan(1e-9);
 	});

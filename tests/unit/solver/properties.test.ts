@@ -12,14 +12,37 @@ import { el, net, rel, type El } from './helpers';
 const rcNetwork = fc.integer({ min: 2, max: 7 }).chain((n) =>
 	fc.record({
 		n: fc.constant(n),
-		tree: fc.array(fc.tuple(fc.integer({ min: -1, max: n - 1 }), fc.double({ min: 0, max: 3, noNaN: true })), { minLength: n, maxLength: n }),
-		extraR: fc.array(fc.tuple(fc.integer({ min: -1, max: n - 1 }), fc.integer({ min: -1, max: n - 1 }), fc.double({ min: 0, max: 3, noNaN: true })), { maxLength: 4 }),
-		caps: fc.array(fc.tuple(fc.integer({ min: -1, max: n - 1 }), fc.integer({ min: -1, max: n - 1 }), fc.double({ min: 0, max: 3, noNaN: true })), { minLength: 1, maxLength: 6 }),
+		tree: fc.array(
+			fc.tuple(fc.integer({ min: -1, max: n - 1 }), fc.double({ min: 0, max: 3, noNaN: true })),
+			{ minLength: n, maxLength: n }
+		),
+		extraR: fc.array(
+			fc.tuple(
+				fc.integer({ min: -1, max: n - 1 }),
+				fc.integer({ min: -1, max: n - 1 }),
+				fc.double({ min: 0, max: 3, noNaN: true })
+			),
+			{ maxLength: 4 }
+		),
+		caps: fc.array(
+			fc.tuple(
+				fc.integer({ min: -1, max: n - 1 }),
+				fc.integer({ min: -1, max: n - 1 }),
+				fc.double({ min: 0, max: 3, noNaN: true })
+			),
+			{ minLength: 1, maxLength: 6 }
+		),
 		out: fc.integer({ min: 0, max: n - 1 })
 	})
 );
 
-function build(r: { n: number; tree: [number, number][]; extraR: [number, number, number][]; caps: [number, number, number][]; out: number }) {
+function build(r: {
+	n: number;
+	tree: [number, number][];
+	extraR: [number, number, number][];
+	caps: [number, number, number][];
+	out: number;
+}) {
 	const name = (i: number) => (i < 0 ? 'gnd' : `n${i}`);
 	const els: El[] = [el('Vin', 'V', ['src', 'gnd'], 1), el('Rs', 'R', ['src', 'n0'], 100)];
 	r.tree.forEach(([to, v], i) => {
@@ -99,7 +122,9 @@ describe('identities on random RC networks (property tests)', () => {
 					}
 					const h = direct.h[i];
 					const mag = Math.hypot(h.re, h.im);
-					expect(Math.hypot(hr - h.re, hi - h.im) / Math.max(mag, 1e-12 * Math.abs(a.dcGain as number))).toBeLessThan(1e-8);
+					expect(
+						Math.hypot(hr - h.re, hi - h.im) / Math.max(mag, 1e-12 * Math.abs(a.dcGain as number))
+					).toBeLessThan(1e-8);
 				});
 			}),
 			{ numRuns: 60, seed: 777 }
@@ -113,8 +138,12 @@ describe('identities on random RC networks (property tests)', () => {
 				if (R.some((row) => row.some((x) => x === null))) return;
 				// C^½ R C^½ is symmetric with the eigenvalues of R·C, so mathjs's symmetric path applies.
 				const c = C.map((row, i) => Math.sqrt(row[i]));
-				const S = R.map((row, i) => row.map((x, j) => (c[i] * (x as number) * c[j] + c[j] * (R[j][i] as number) * c[i]) / 2));
-				const values = (eigs(S).values as unknown as number[]).map(Number).filter((v) => Math.abs(v) > 1e-14 * Math.max(...S.map((row, i) => Math.abs(row[i]))));
+				const S = R.map((row, i) =>
+					row.map((x, j) => (c[i] * (x as number) * c[j] + c[j] * (R[j][i] as number) * c[i]) / 2)
+				);
+				const values = (eigs(S).values as unknown as number[])
+					.map(Number)
+					.filter((v) => Math.abs(v) > 1e-14 * Math.max(...S.map((row, i) => Math.abs(row[i]))));
 				const mine = a.poles.map((p) => -1 / p.re);
 				values.sort((x, y) => y - x);
 				mine.sort((x, y) => y - x);

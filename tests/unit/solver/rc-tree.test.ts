@@ -7,7 +7,10 @@ import { el, expectRel, net, type El } from './helpers';
 function tree(parent: number[], R: number[], C: number[]) {
 	const els: El[] = [el('Vin', 'V', ['t0', 'gnd'], 1)];
 	for (let i = 1; i < parent.length; i++) {
-		els.push(el(`R${i}`, 'R', [`t${parent[i]}`, `t${i}`], R[i]), el(`C${i}`, 'C', [`t${i}`, 'gnd'], C[i]));
+		els.push(
+			el(`R${i}`, 'R', [`t${parent[i]}`, `t${i}`], R[i]),
+			el(`C${i}`, 'C', [`t${i}`, 'gnd'], C[i])
+		);
 	}
 	return els;
 }
@@ -35,9 +38,16 @@ describe('Elmore delay on RC trees (Elmore, J. Appl. Phys. 19, 1948)', () => {
 			fc.property(
 				fc.integer({ min: 2, max: 9 }).chain((n) =>
 					fc.record({
-						parent: fc.tuple(...Array.from({ length: n }, (_, i) => fc.integer({ min: 0, max: Math.max(0, i - 1) }))),
+						parent: fc.tuple(
+							...Array.from({ length: n }, (_, i) =>
+								fc.integer({ min: 0, max: Math.max(0, i - 1) })
+							)
+						),
 						R: fc.array(fc.double({ min: 1, max: 5, noNaN: true }), { minLength: n, maxLength: n }),
-						C: fc.array(fc.double({ min: -12, max: -8, noNaN: true }), { minLength: n, maxLength: n }),
+						C: fc.array(fc.double({ min: -12, max: -8, noNaN: true }), {
+							minLength: n,
+							maxLength: n
+						}),
 						k: fc.integer({ min: 1, max: n - 1 })
 					})
 				),
@@ -51,8 +61,13 @@ describe('Elmore delay on RC trees (Elmore, J. Appl. Phys. 19, 1948)', () => {
 					// The delay to a node near the root is a small difference of two large sums, so the
 					// error is measured against b1 (1e-9·b1), not against the difference itself.
 					const td = elmore(parent, Rv, Cv, k);
-					expect(Math.abs(b1 - a1 - td), 'b1 − a1 from poles and zeros').toBeLessThanOrEqual(1e-9 * b1);
-					expect(Math.abs(b1 - a1terms - td), 'b1 − a1 from the transfer-constant terms').toBeLessThanOrEqual(1e-9 * b1);
+					expect(Math.abs(b1 - a1 - td), 'b1 − a1 from poles and zeros').toBeLessThanOrEqual(
+						1e-9 * b1
+					);
+					expect(
+						Math.abs(b1 - a1terms - td),
+						'b1 − a1 from the transfer-constant terms'
+					).toBeLessThanOrEqual(1e-9 * b1);
 					expectRel(a.dcGain, 1, 1e-12, 'an RC tree passes DC');
 				}
 			),
@@ -68,7 +83,11 @@ describe('uniform RC ladder (closed form of the lumped and the distributed line)
 	const C = 1e-9;
 	const ladder = (N: number) => {
 		const els: El[] = [el('Vin', 'V', ['x0', 'gnd'], 1)];
-		for (let i = 1; i <= N; i++) els.push(el(`R${i}`, 'R', [`x${i - 1}`, `x${i}`], R / N), el(`C${i}`, 'C', [`x${i}`, 'gnd'], C / N));
+		for (let i = 1; i <= N; i++)
+			els.push(
+				el(`R${i}`, 'R', [`x${i - 1}`, `x${i}`], R / N),
+				el(`C${i}`, 'C', [`x${i}`, 'gnd'], C / N)
+			);
 		return net(els, `x${N}`);
 	};
 	test('all N = 40 modes match the lumped closed form (1e-9)', () => {
@@ -76,7 +95,8 @@ describe('uniform RC ladder (closed form of the lumped and the distributed line)
 		const a = analyze(ladder(N), { frequency: false, step: false });
 		expect(a.poles).toHaveLength(N);
 		a.poles.forEach((p, i) => {
-			const exact = ((4 * N * N) / (R * C)) * Math.sin(((2 * i + 1) * Math.PI) / (2 * (2 * N + 1))) ** 2;
+			const exact =
+				((4 * N * N) / (R * C)) * Math.sin(((2 * i + 1) * Math.PI) / (2 * (2 * N + 1))) ** 2;
 			expectRel(-p.re, exact, 1e-9, `mode ${i + 1}`);
 		});
 	});
@@ -86,10 +106,17 @@ describe('uniform RC ladder (closed form of the lumped and the distributed line)
 		const N = 100;
 		const a = analyze(ladder(N), { frequency: false, step: false });
 		const limit = (4 * R * C) / Math.PI ** 2;
-		expectRel(a.poles[0].tau, limit * (1 + 1 / (2 * N)) ** 2, 1e-4, 'dominant τ against the expansion');
+		expectRel(
+			a.poles[0].tau,
+			limit * (1 + 1 / (2 * N)) ** 2,
+			1e-4,
+			'dominant τ against the expansion'
+		);
 		expect(Math.abs(a.poles[0].tau! / limit - 1)).toBeLessThan(1.1 / N);
 		const coarse = analyze(ladder(10), { frequency: false, step: false });
-		expect(Math.abs(coarse.poles[0].tau! / limit - 1)).toBeGreaterThan(Math.abs(a.poles[0].tau! / limit - 1));
+		expect(Math.abs(coarse.poles[0].tau! / limit - 1)).toBeGreaterThan(
+			Math.abs(a.poles[0].tau! / limit - 1)
+		);
 		// and the open-circuit sum Σ τ = RC(N+1)/(2N) → RC/2 (published identity b1 = Σ τ_oc)
 		expectRel(a.expansion!.denominator[0].value, (R * C * (N + 1)) / (2 * N), 1e-9, 'b1');
 	});

@@ -24,19 +24,32 @@ type Pin = {
 describe('pinned regression fixtures (tolerance 1e-9 relative)', () => {
 	const files = readdirSync(dir).filter((f) => f.endsWith('.json'));
 	test('there is a fixture for every example network', () => {
-		expect(files.sort()).toEqual(readdirSync('docs/examples').filter((f) => f.endsWith('.json')).sort());
+		expect(files.sort()).toEqual(
+			readdirSync('docs/examples')
+				.filter((f) => f.endsWith('.json'))
+				.sort()
+		);
 	});
 	for (const f of files) {
 		test(f, () => {
 			const pin: Pin = JSON.parse(readFileSync(`${dir}/${f}`, 'utf8'));
-			const a = analyze(JSON.parse(readFileSync(pin.source, 'utf8')), { frequency: { points: 5 }, step: false });
+			const a = analyze(JSON.parse(readFileSync(pin.source, 'utf8')), {
+				frequency: { points: 5 },
+				step: false
+			});
 			expect(worstRootError(a.poles, pin.poles)).toBeLessThan(1e-9);
-			expect(a.poles.map((p) => p.owners[0]?.element ?? null)).toEqual(pin.poles.map((p) => p.owner));
+			expect(a.poles.map((p) => p.owners[0]?.element ?? null)).toEqual(
+				pin.poles.map((p) => p.owner)
+			);
 			if (pin.zeros.length) expect(worstRootError(a.zeros, pin.zeros)).toBeLessThan(1e-9);
 			else expect(a.zeros).toEqual([]);
 			if (pin.dcGain === null) expect(a.dcGain).toBeNull();
 			else expectRel(a.dcGain, pin.dcGain, 1e-9, 'DC gain');
-			const cmp = (got: { element: string; tau: number | null }[], want: [string, number | null][], what: string) => {
+			const cmp = (
+				got: { element: string; tau: number | null }[],
+				want: [string, number | null][],
+				what: string
+			) => {
 				expect(got.map((t) => t.element)).toEqual(want.map((w) => w[0]));
 				got.forEach((t, i) => {
 					if (want[i][1] === null || want[i][1] === 0) expect(t.tau).toBe(want[i][1]);
@@ -46,8 +59,12 @@ describe('pinned regression fixtures (tolerance 1e-9 relative)', () => {
 			cmp(a.timeConstants.openCircuit, pin.openCircuit, 'τ_oc');
 			cmp(a.timeConstants.shortCircuit, pin.shortCircuit, 'τ_sc');
 			cmp(a.timeConstants.sequential, pin.sequential, 'sequential');
-			(a.expansion?.denominator ?? []).forEach((c, i) => expectRel(c.value, pin.b[i], 1e-9, `b${i + 1}`));
-			a.frequencyResponse!.magnitudeDb.forEach((m, i) => expect(Math.abs((m as number) - (pin.magnitudeDb[i] as number))).toBeLessThan(1e-7));
+			(a.expansion?.denominator ?? []).forEach((c, i) =>
+				expectRel(c.value, pin.b[i], 1e-9, `b${i + 1}`)
+			);
+			a.frequencyResponse!.magnitudeDb.forEach((m, i) =>
+				expect(Math.abs((m as number) - (pin.magnitudeDb[i] as number))).toBeLessThan(1e-7)
+			);
 		});
 	}
 });

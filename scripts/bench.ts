@@ -1,0 +1,211 @@
+/**
+ * `npm run bench`: median time of a full analysis (poles, zeros, all time constants, a 200-point
+ * response and step) on generated RC ladders and random RC meshes with 10…1000 capacitors, a
+ * 1000-point sweep, and the growth exponent between sizes. Prints a table; writes
+ * bench-results/solver.json. Repeats shrink with size so the whole run stays near 3 minutes.
+ */
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { analyze, frequencyResponseAt } from '../src/lib/solver/index';
+
+type Doc = {
+	schema: 1;
+	elements: { id: string; type: string; nodes: string[]; value: number }[];
+	input: string;
+	output: { node: string };
+};
+
+/** Deterministic generator so every run measures the same networks. */
+function rng(seed: number) {
+	let s = seed >>> 0;
+	return () => {
+		s = (s * 1664525 + 1013904223) >>> 0;
+		return s / 2 ** 32;
+	};
+}
+
+function ladder(n: number): Doc {
+	const els: Doc['elements'] = [{ id: 'Vin', type: 'V', nodes: ['x0', 'gnd'], value: 1 }];
+	for (let i = 1; i <= n; i++) {
+		els.push({ id: `R${i}`, type: 'R', nodes: [`x${i - 1}`, `x${i}`], value: 1e3 });
+		els.push({ id: `C${i}`, type: 'C', nodes: [`x${i}`, 'gnd'], value: 1e-9 });
+	}
+	return { schema: 1, elements: els, input: 'Vin', output: { node: `x${n}` } };
+}
+
+/** A grid-like mesh: n/2 nodes, each with a capacitor to ground, resistors to neighbours and a few
+ *  random chords, plus capacitors across random resistor pairs; values spread over two decades. */
+function mesh(n: number, seed = 7): Doc {
+	const r = rng(seed);
+	const nodes = Math.max(2, Math.ceil(n / 2));
+	const side = Math.ceil(Math.sqrt(nodes));
+	const els: Doc['elements'] = [
+		{ id: 'Vin', type: 'V', nodes: ['src', 'gnd'], value: 1 },
+		{ id: 'Rs', type: 'R', nodes: ['src', 'm0'], value: 50 }
+	];
+	const val = (lo: number) => lo * 10 ** (2 * r());
+	let nr = 0;
+	let nc = 0;
+	for (let i = 0; i < nodes; i++) {
+		if (i % side !== side - 1 && i + 1 < nodes)
+			els.push({ id: `R${nr++}`, type: 'R', nodes: [`m${i}`, `m${i + 1}`], value: val(100) });
+		if (i + side < nodes)
+			els.push({ id: `R${nr++}`, type: 'R', nodes: [`m${i}`, `m${i + side}`], value: val(100) });
+		if (r() < 0.2)
+			els.push({ id: `R${nr++}`, type: 'R', nodes: [`m${i}`, 'gnd'], value: val(1e4) });
+		els.push({ id: `C${nc++}`, type: 'C', nodes: [`m${i}`, 'gnd'], value: val(1e-12) });
+	}
+	while (nc < n) {
+		const a = Math.floor(r() * nodes);
+		let b = Math.floor(r() * nodes);
+		if (b === a) b = (a + 1) % nodes;
+		els.push({ id: `C${nc++}`, type: 'C', nodes: [`m${a}`, `m${b}`], value: val(1e-12) });
+	}
+	els.push({ id: 'Rl', type: 'R', nodes: [`m${nodes - 1}`, 'gnd'], value: 1e4 });
+	return { schema: 1, elements: els, input: 'Vin', output: { node: `m${nodes - 1}` } };
+}
+
+function median(xs: number[]): number {
+	const s = xs.slice().sort((a, b) => a - b);
+	return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+}
+
+function time(fn: () => void, reps: number): number[] {
+	const out: number[] = [];
+	for (let i = 0; i < reps; i++) {
+		const t = performance.now();
+		fn();
+		out.push(performance.now() - t);
+	}
+	return out;
+}
+
+/**
+ * Machine calibration: a fixed 200×200 dense LU-like kernel (≈5.3 Mflop). Shared CI machines vary
+ * by an order of magnitude; dividing by this figure makes runs comparable.
+ */
+function calibrate(): number {
+	const n = 200;
+	const a = new Float64Array(n * n).map(
+		(_, i) => 1 + ((i * 7) % 13) / 13 + (i % (n + 1) === 0 ? n : 0)
+	);
+	return median(
+		time(() => {
+			const b = a.slice();
+			for (let k = 0; k < n; k++)
+				for (let i = k + 1; i < n; i++) {
+					const f = b[i * n + k] / b[k * n + k];
+					for (let j = k + 1; j < n; j++) b[i * n + j] -= f * b[k * n + j];
+				}
+		}, 9)
+	);
+}
+
+const SIZES = [10, 30, 50, 100, 300, 1000];
+const reps = (n: number) => (n <= 50 ? 25 : n <= 100 ? 9 : n <= 300 ? 3 : 1);
+/** The whole run should stay near three minutes; a size whose projected time would blow the
+ *  budget is reported as skipped with its projection rather than silently left out. */
+const BUDGET_MS = 150_000;
+const began = performance.now();
+const calibrationMs = calibrate();
+process.stderr.write(`calibration (200×200 elimination): ${calibrationMs.toFixed(1)} ms\n`);
+const rows: {
+	family: string;
+	n: number;
+	medianMs: number | null;
+	runs: number;
+	poles: number;
+	exponent: number | null;
+	note: string;
+}[] = [];
+
+for (const [family, make] of [
+	['ladder', ladder],
+	['mesh', mesh]
+] as const) {
+	let prev: { n: number; ms: number } | null = null;
+	for (const n of SIZES) {
+		const doc = make(n);
+		const spent = performance.now() - began;
+		const projected = prev ? prev.ms * (n / prev.n) ** 3 : 0;
+		if (prev && spent + projected * (family === 'ladder' ? 2.2 : 1.1) > BUDGET_MS) {
+			rows.push({
+				family,
+				n,
+				medianMs: null,
+				runs: 0,
+				poles: 0,
+				exponent: null,
+				note: `skipped: projected ${(projected / 1000).toFixed(0)} s (n³) exceeds the run budget`
+			});
+			process.stderr.write(
+				`${family} ${n}: skipped (projected ${(projected / 1000).toFixed(0)} s)\n`
+			);
+			continue;
+		}
+		const r = n >= 300 ? 1 : reps(n);
+		if (n < 300) analyze(doc); // warm the JIT on this shape (large sizes warm themselves)
+		let poles = 0;
+		const ms = median(time(() => (poles = analyze(doc).poles.length), r));
+		const exponent = prev ? Math.log(ms / prev.ms) / Math.log(n / prev.n) : null;
+		rows.push({ family, n, medianMs: ms, runs: r, poles, exponent, note: '' });
+		prev = { n, ms };
+		process.stderr.write(`${family} ${n}: ${ms.toFixed(1)} ms\n`);
+	}
+}
+
+// 1000-point sweep: inside analyze (pole–zero form) and by direct complex solves of the network.
+const sweep: { n: number; analyzeMs: number; directMs: number | null; note: string }[] = [];
+for (const n of [10, 30, 100, 300]) {
+	if (performance.now() - began > BUDGET_MS + 20_000 && n > 30) {
+		sweep.push({ n, analyzeMs: NaN, directMs: null, note: 'skipped: run budget spent' });
+		continue;
+	}
+	const doc = ladder(n);
+	const a = median(
+		time(() => analyze(doc, { frequency: { points: 1000 }, step: false }), n <= 100 ? 5 : 1)
+	);
+	const freqs = Array.from({ length: 1000 }, (_, i) => 10 ** (2 + (6 * i) / 999));
+	const direct = n <= 100 ? median(time(() => frequencyResponseAt(doc, freqs), 1)) : null;
+	sweep.push({
+		n,
+		analyzeMs: a,
+		directMs: direct,
+		note: direct === null ? 'direct O(N³) per point not run above 100 nodes' : ''
+	});
+	process.stderr.write(`sweep ${n}: ${a.toFixed(1)} ms / ${direct?.toFixed(1) ?? '—'} ms\n`);
+}
+
+const pad = (s: string, w: number) => s.padStart(w);
+console.log('\nFull analysis (median)');
+console.log(
+	`${'family'.padEnd(8)}${pad('n', 6)}${pad('median ms', 12)}${pad('runs', 6)}${pad('poles', 7)}${pad('growth', 8)}`
+);
+for (const r of rows) {
+	console.log(
+		`${r.family.padEnd(8)}${pad(String(r.n), 6)}${pad(r.medianMs === null ? '—' : r.medianMs.toFixed(2), 12)}${pad(String(r.runs), 6)}${pad(String(r.poles), 7)}${pad(r.exponent === null ? '—' : r.exponent.toFixed(2), 8)}  ${r.note}`
+	);
+}
+console.log('\n1000-point frequency sweep (RC ladder)');
+console.log(`${pad('n', 6)}${pad('in analyze ms', 15)}${pad('direct ms', 12)}`);
+for (const s of sweep)
+	console.log(
+		`${pad(String(s.n), 6)}${pad(s.analyzeMs.toFixed(1), 15)}${pad(s.directMs === null ? '—' : s.directMs.toFixed(1), 12)}  ${s.note}`
+	);
+const t50 = rows.find((r) => r.family === 'ladder' && r.n === 50)!.medianMs ?? NaN;
+const t300 = Math.max(...rows.filter((r) => r.n === 300).map((r) => r.medianMs ?? Infinity));
+console.log(
+	`\nCalibration: ${calibrationMs.toFixed(1)} ms for a 200×200 elimination (≈2.7 M multiply-adds); divide by it to compare machines.`
+);
+console.log(
+	`Targets: 50 elements ≤ 5 ms: ${t50.toFixed(2)} ms ${t50 <= 5 ? 'met' : 'MISSED'}; 300 capacitors ≤ 1 s: ${t300.toFixed(0)} ms ${t300 <= 1000 ? 'met' : 'MISSED'}`
+);
+
+mkdirSync('bench-results', { recursive: true });
+writeFileSync(
+	'bench-results/solver.json',
+	JSON.stringify(
+		{ date: new Date().toISOString(), node: process.version, calibrationMs, analysis: rows, sweep },
+		null,
+		2
+	) + '\n'
+);
