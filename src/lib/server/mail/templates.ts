@@ -16,7 +16,7 @@ const oneLine = (value: string) => value.replace(/[\r\n]+/g, ' ').trim();
 
 const article = (role: string) => (/^[aeiou]/i.test(role) ? 'an' : 'a');
 
-interface Parts {
+export interface Parts {
 	subject: string;
 	/** Paragraphs of plain text; the HTML escapes them. */
 	paragraphs: string[];
@@ -24,7 +24,7 @@ interface Parts {
 	after: string[];
 }
 
-function compose({ subject, paragraphs, action, after }: Parts): MailContent {
+export function compose({ subject, paragraphs, action, after }: Parts): MailContent {
 	const footer = 'Polewise — poles, zeros and time constants for analog front ends.';
 	const text = [...paragraphs, `${action.label}:\n${action.url}`, ...after, '—', footer].join('\n\n') + '\n';
 	const p = (s: string) => `<p style="margin:0 0 14px">${escapeHtml(s)}</p>`;

@@ -4,6 +4,7 @@ import type { QueryInterface } from 'sequelize';
 import * as m0001 from './0001-accounts-and-sheets';
 import * as m0002 from './0002-auth';
 import * as m0003 from './0003-sharing';
+import * as m0005 from './0005-review';
 
 export interface Migration {
 	name: string;
@@ -14,5 +15,6 @@ export interface Migration {
 export const migrations: Migration[] = [
 	{ name: '0001-accounts-and-sheets', ...m0001 },
 	{ name: '0002-auth', ...m0002 },
-	{ name: '0003-sharing', ...m0003 }
+	{ name: '0003-sharing', ...m0003 },
+	{ name: '0005-review', ...m0005 }
 ];
