@@ -34,7 +34,7 @@ export const network = (r: string) => ({
  */
 export async function matrixWorld() {
 	const [owner, admin, member, editor, commenter, viewer, guest, outsider] = await Promise.all(
-		['Owner', 'Admin', 'Member', 'Editor', 'Commenter', 'Viewer', 'Guest', 'Outsider'].map(person)
+		['Owner', 'Admin', 'Member', 'Editor', 'Commenter', 'Viewer', 'Guest', 'Outsider'].map((name) => person(name))
 	);
 	const workspace = await createWorkspace(owner.id, 'Bench 7 — probe front ends');
 	await updateWorkspace(workspace.id, { defaultSheetRole: 'viewer' });
