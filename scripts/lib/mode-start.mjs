@@ -54,7 +54,8 @@ export async function main({ root, dev }) {
 			app = startChild(root, path.join(root, 'node_modules', '.bin', 'vite'), ['dev', '--host', config.appHost, '--port', String(config.appPort), '--strictPort'], env, { name: 'vite' });
 		} else {
 			ensureBuild(root);
-			app = startChild(root, process.execPath, ['build'], { ...env, HOST: config.appHost, PORT: String(config.appPort), ORIGIN: process.env.ORIGIN ?? origin }, { name: 'app' });
+			// adapter-node refuses bodies over 512 KB by default; uploads may be 5 MB (docs/exchange.md).
+			app = startChild(root, process.execPath, ['build'], { ...env, HOST: config.appHost, PORT: String(config.appPort), ORIGIN: process.env.ORIGIN ?? origin, BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '8M' }, { name: 'app' });
 		}
 		children.push(app);
 		console.log(`

@@ -5,6 +5,7 @@ import * as m0001 from './0001-accounts-and-sheets';
 import * as m0002 from './0002-auth';
 import * as m0003 from './0003-sharing';
 import * as m0005 from './0005-review';
+import * as m0006 from './0006-exchange';
 
 export interface Migration {
 	name: string;
@@ -16,5 +17,6 @@ export const migrations: Migration[] = [
 	{ name: '0001-accounts-and-sheets', ...m0001 },
 	{ name: '0002-auth', ...m0002 },
 	{ name: '0003-sharing', ...m0003 },
-	{ name: '0005-review', ...m0005 }
+	{ name: '0005-review', ...m0005 },
+	{ name: '0006-exchange', ...m0006 }
 ];
