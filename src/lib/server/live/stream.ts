@@ -1,15 +1,16 @@
 // A server-sent events response for one channel. It replays what the caller missed (after
 // Last-Event-ID, or ?after= on the first connect), then follows new events. Each event's id is the
 // live_events row id, so the browser's automatic reconnect resumes exactly where it stopped.
-import { eventsAfter, oldestKeptId, type LiveEvent } from './events';
+import { eventsAfter, latestEventId, oldestKeptId, type LiveEvent } from './events';
 import { subscribe } from './hub';
 
 const HEARTBEAT_MS = 20_000;
 const RECHECK_MS = 60_000;
 
-export function startingId(request: Request, url: URL): number {
-	const raw = request.headers.get('last-event-id') ?? url.searchParams.get('after') ?? '0';
-	return /^\d{1,15}$/.test(raw) ? Number(raw) : 0;
+/** Where to resume: Last-Event-ID (a reconnect), else ?after= (the id the page loaded with), else null: from now on. */
+export function startingId(request: Request, url: URL): number | null {
+	const raw = request.headers.get('last-event-id') ?? url.searchParams.get('after');
+	return raw !== null && /^\d{1,15}$/.test(raw) ? Number(raw) : null;
 }
 
 const frame = (e: LiveEvent) => `id: ${e.id}\ndata: ${JSON.stringify({ kind: e.kind, ...e.payload })}\n\n`;
@@ -18,9 +19,11 @@ const frame = (e: LiveEvent) => `id: ${e.id}\ndata: ${JSON.stringify({ kind: e.k
  * `stillAllowed` is asked every minute: a person whose access was withdrawn stops receiving
  * events on an open stream too.
  */
-export function eventStream(channel: string, from: number, signal: AbortSignal, stillAllowed: () => Promise<boolean>): Response {
+export async function eventStream(channel: string, from: number | null, signal: AbortSignal, stillAllowed: () => Promise<boolean>): Promise<Response> {
 	const encoder = new TextEncoder();
-	let cursor = from;
+	// Fixed before the response starts, so nothing published meanwhile can slip past.
+	let cursor = from ?? (await latestEventId(channel));
+	const resync = from !== null && from > 0 && from < (await oldestKeptId()) - 1;
 	let busy = false;
 	let again = false;
 	let closed = false;
@@ -60,7 +63,7 @@ export function eventStream(channel: string, from: number, signal: AbortSignal, 
 				}
 			};
 			send('retry: 2000\n\n');
-			if (from > 0 && from < (await oldestKeptId()) - 1) send(`data: ${JSON.stringify({ kind: 'resync' })}\n\n`);
+			if (resync) send(`data: ${JSON.stringify({ kind: 'resync' })}\n\n`);
 			cleanups.push(subscribe(channel, () => void pump()));
 			const beat = setInterval(() => send(': still here\n\n'), HEARTBEAT_MS);
 			const recheck = setInterval(() => {
