@@ -4,7 +4,7 @@ import { dcInputImpedance, impedanceFromReading } from './input-impedance';
 import { evalModal, modalForm, relativeDegree } from './modal';
 import { expansion } from './expansion';
 import { evalPz, logSpace, pzForm, unwrapDeg, type PzForm } from './frequency-response';
-import { participation } from './participation';
+import { poleInfo } from './pole-info';
 import { portMatrices } from './port-matrices';
 import { portModelFrom } from './port-model';
 import { sequentialTimeConstants } from './sequential';
@@ -20,7 +20,7 @@ import {
 import { validateNetwork } from './validate';
 import { analysisWarnings, pairPolesAndZeros } from './warnings';
 import { bandwidth, frequencyRange, numeratorScale } from './response-range';
-import type { Analysis, AnalyzeOptions, PoleInfo, Warning } from './types';
+import type { Analysis, AnalyzeOptions, Warning } from './types';
 import { SolverError } from './errors';
 
 const LN10 = Math.log(10);
@@ -99,26 +99,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	const order = roots.map((_, i) => i).sort((i, j) => byMagnitude(roots[i], roots[j]));
 	const poleAtZero = roots.some((r) => r.re === 0 && r.im === 0);
 	const dcGain = poleAtZero || ocPorts.singular ? null : nullIfBad(ocPorts.h0);
-	const poles: PoleInfo[] = order.map((i, rank) => {
-		const r = roots[i];
-		const est = sequential[rank];
-		const estRe = est && est.tau !== null && est.tau !== 0 ? -1 / est.tau : null;
-		const mag = Math.hypot(r.re, r.im);
-		return {
-			...singularity(r.re, r.im),
-			estimate: est
-				? {
-						element: est.element,
-						tau: est.tau,
-						re: estRe,
-						hz: estRe === null ? null : Math.abs(estRe) / (2 * Math.PI)
-					}
-				: null,
-			relativeError: estRe !== null && mag > 0 ? Math.hypot(estRe - r.re, r.im) / mag : null,
-			owners: participation(net, elementsOfPorts, r),
-			cancelledBy: null
-		};
-	});
+	const poles = poleInfo(net, roots, order, sequential, elementsOfPorts);
 	const zeros: Analysis['zeros'] = zeroRoots
 		.slice()
 		.sort(byMagnitude)

@@ -2,6 +2,7 @@ import { networkDocumentSchema, type ElementType } from '../network/schema';
 import { SolverError } from './errors';
 import { parseValue } from './parse-value';
 import { checkTopology } from './topology';
+import { fromZod, preflight } from './validate-shape';
 import { GROUND, type ResolvedElement, type ResolvedNetwork, type Warning } from './types';
 
 const NODE_COUNT: Record<ElementType, number> = {
@@ -28,7 +29,6 @@ const UNIT: Record<ElementType, string | undefined> = {
 	CCCS: undefined,
 	OPAMP: undefined
 };
-const KNOWN = new Set(Object.keys(NODE_COUNT));
 
 const isGround = (name: string) => name === 'gnd' || name === '0';
 
@@ -177,45 +177,4 @@ function outputNode(name: string, nodeIndex: Map<string, number>): number {
 		});
 	}
 	return i;
-}
-
-/** Catches the mistakes zod would report vaguely, so the message names the element. */
-function preflight(doc: unknown): void {
-	if (typeof doc !== 'object' || doc === null || Array.isArray(doc)) {
-		throw new SolverError('bad_document', 'the network document must be a JSON object');
-	}
-	const els = (doc as { elements?: unknown }).elements;
-	if (Array.isArray(els) && els.length === 0) {
-		throw new SolverError('empty_network', 'the network has no elements');
-	}
-	if (!Array.isArray(els)) return;
-	for (const e of els) {
-		if (typeof e !== 'object' || e === null) continue;
-		const { id, type, value } = e as { id?: unknown; type?: unknown; value?: unknown };
-		const name = typeof id === 'string' ? id : '?';
-		if (typeof type === 'string' && !KNOWN.has(type)) {
-			throw new SolverError('unknown_type', `element "${name}": unknown type "${type}"`, {
-				element: name
-			});
-		}
-		if (typeof value === 'number' && !Number.isFinite(value)) {
-			throw new SolverError('non_finite', `element "${name}": value is not finite`, {
-				element: name
-			});
-		}
-	}
-}
-
-function fromZod(doc: unknown, issue: { path: PropertyKey[]; message: string }): SolverError {
-	const path = issue.path;
-	if (path[0] === 'elements' && typeof path[1] === 'number') {
-		const raw = (doc as { elements: Record<string, unknown>[] }).elements[path[1]];
-		const id = typeof raw?.id === 'string' ? raw.id : `#${path[1] + 1}`;
-		const field = String(path[2] ?? '');
-		const code = field === 'value' ? 'bad_value' : field === 'nodes' ? 'bad_nodes' : 'bad_document';
-		return new SolverError(code, `element "${id}": ${field || 'entry'}: ${issue.message}`, {
-			element: id
-		});
-	}
-	return new SolverError('bad_document', `${path.join('.') || 'document'}: ${issue.message}`);
 }
