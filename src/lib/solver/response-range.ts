@@ -19,18 +19,19 @@ export function frequencyRange(
 }
 
 /**
- * The −3 dB frequency: first point, scanning up from fMin, where |H| falls below 1/√2 of the
- * reference (|DC gain|, or |H| at fMin when the DC gain is infinite), refined by bisection in
- * log f. Null for a zero DC gain (a high-pass has no low-pass bandwidth) or no crossing in range.
+ * The −3 dB frequency: first point, scanning up from fMin, where |H| falls below 1/√2 of
+ * |DC gain|, refined by bisection in log f. Null when there is no finite non-zero DC gain to
+ * refer to — a high-pass (DC gain 0), or a pole at the origin (an integrator has no bandwidth) —
+ * or when no crossing lies in range.
  */
 export function bandwidth(
 	pz: PzForm,
 	dcGain: number | null,
 	range: { fMin: number; fMax: number }
 ): number | null {
-	if (dcGain === 0) return null;
+	if (dcGain === 0 || dcGain === null) return null;
 	const logAt = (f: number) => evalPz(pz, 2 * Math.PI * f).logMag;
-	const ref = dcGain !== null ? Math.log(Math.abs(dcGain)) : logAt(range.fMin);
+	const ref = Math.log(Math.abs(dcGain));
 	const target = ref - 0.5 * Math.log(2);
 	const n = 400;
 	const a = Math.log(range.fMin);

@@ -35,6 +35,7 @@ describe('controlled sources and the ideal op-amp (closed forms of the textbook 
 		expect(a.poles).toHaveLength(1);
 		expect(a.poles[0].re).toBe(0);
 		expect(a.dcGain).toBeNull();
+		expect(a.bandwidth).toBeNull();
 		expect(a.timeConstants.openCircuit[0].tau).toBeNull();
 		const f = a.frequencyResponse!.f[1];
 		expectRel(
