@@ -4,6 +4,7 @@ import type { QueryInterface } from 'sequelize';
 import * as m0001 from './0001-accounts-and-sheets';
 import * as m0002 from './0002-auth';
 import * as m0003 from './0003-sharing';
+import * as m0004 from './0004-design';
 import * as m0005 from './0005-review';
 import * as m0006 from './0006-exchange';
 
@@ -17,6 +18,7 @@ export const migrations: Migration[] = [
 	{ name: '0001-accounts-and-sheets', ...m0001 },
 	{ name: '0002-auth', ...m0002 },
 	{ name: '0003-sharing', ...m0003 },
+	{ name: '0004-design', ...m0004 },
 	{ name: '0005-review', ...m0005 },
 	{ name: '0006-exchange', ...m0006 }
 ];

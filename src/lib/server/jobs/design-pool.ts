@@ -1,0 +1,61 @@
+// The worker-thread pool for the design aids: separate from the analysis pool so a ten-thousand
+// run tolerance job never queues the editor's live analyses behind it. Built: the bundled
+// build/workers/design.worker.mjs; dev and tests: the TypeScript source through tsx.
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { Piscina } from 'piscina';
+import type { DesignOutcome, DesignTask } from '../workers/design.worker';
+import { ApiProblem } from '../api/respond';
+
+let pool: Piscina | null = null;
+
+function workerFile(): { filename: string; execArgv: string[] } {
+	const here = path.dirname(fileURLToPath(import.meta.url));
+	const source = path.join(here, '..', 'workers', 'design.worker.ts');
+	if (existsSync(source)) return { filename: source, execArgv: ['--import', 'tsx'] };
+	let dir = here;
+	for (let i = 0; i < 10; i++) {
+		const candidate = path.join(dir, 'workers', 'design.worker.mjs');
+		if (existsSync(candidate)) return { filename: candidate, execArgv: [] };
+		dir = path.dirname(dir);
+	}
+	throw new Error('design worker not found: run `npm run build` (it bundles build/workers)');
+}
+
+export function designPool(): Piscina {
+	if (!pool) {
+		const { filename, execArgv } = workerFile();
+		// One thread by default: design requests are rarer than analyses, and a 2-core machine
+		// must keep a core for the server and the analysis pool.
+		pool = new Piscina({ filename, execArgv, minThreads: 1, maxThreads: Number(process.env.DESIGN_THREADS ?? 1), idleTimeout: 60_000, maxQueue: 32 });
+	}
+	return pool;
+}
+
+export const DESIGN_TIMEOUT_MS = Number(process.env.DESIGN_TIMEOUT_MS ?? 30_000);
+
+/** One design task under a time limit; a refusal by the solver or the design aids is 422. */
+export async function runDesign(task: DesignTask, timeoutMs = DESIGN_TIMEOUT_MS): Promise<unknown> {
+	const signal = AbortSignal.timeout(timeoutMs);
+	let outcome: DesignOutcome;
+	try {
+		outcome = (await designPool().run(task, { signal })) as DesignOutcome;
+	} catch (error) {
+		if (signal.aborted) throw new ApiProblem(503, `the ${task.kind} took longer than ${timeoutMs / 1000} s and was stopped`, { code: 'timeout' });
+		if (error instanceof Error && /queue is at limit/i.test(error.message)) {
+			throw new ApiProblem(503, 'the server is busy with other design runs; try again in a moment', { code: 'busy' });
+		}
+		throw error;
+	}
+	if (!outcome.ok) {
+		const { error, ...where } = outcome.error;
+		throw new ApiProblem(422, error, where);
+	}
+	return outcome.value;
+}
+
+export async function closeDesignPool(): Promise<void> {
+	await pool?.destroy();
+	pool = null;
+}

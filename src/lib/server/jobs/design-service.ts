@@ -1,0 +1,89 @@
+// What people do with the design aids, shared by the JSON API and the sheet page: each verb
+// starts with the access module, then hands the numbers to the design worker pool.
+import { authorizeSheet, AccessDenied, type Actor } from '../access';
+import { readRevision } from '../sharing/sheet-actions';
+import {
+	cancelDesignJob,
+	createDesignJob,
+	getDesignJob,
+	getDesignSettings,
+	listDesignJobs,
+	queueIdOf,
+	saveDesignSettings,
+	setQueueId,
+	type DesignJobRecord
+} from '../db/design-jobs';
+import type { DesignSettings, SpecLimits, ElementTolerance } from '../../network/design-schema';
+import { ApiProblem } from '../api/respond';
+import { runDesign } from './design-pool';
+import { cancelQueued, designQueue, enqueueDesignJob } from './design-queue';
+import type { MonteCarloRequest } from '../../design/tolerance';
+
+type UserActor = Actor & { kind: 'user' };
+
+export interface MonteCarloInput {
+	sheetId: string;
+	revision?: number;
+	runs?: number;
+	seed?: number;
+	tolerances?: ElementTolerance[];
+	spec?: SpecLimits;
+}
+
+/** Queue a Monte Carlo run on a stored revision (the latest unless one is named). */
+export async function startMonteCarlo(actor: UserActor, input: MonteCarloInput): Promise<DesignJobRecord> {
+	const { revision } = await readRevision(actor, input.sheetId, input.revision, 'analyze');
+	const settings = await getDesignSettings(input.sheetId);
+	const tolerances = (input.tolerances ?? settings.tolerances.elements).filter((t) => t.distribution !== 'fixed' && t.tolerance > 0);
+	if (tolerances.length === 0) throw new ApiProblem(400, 'tolerances: give at least one element a tolerance above 0 that is not fixed', { code: 'no_tolerances' });
+	const spec = input.spec ?? settings.spec;
+	const request: MonteCarloRequest = { tolerances, runs: input.runs ?? settings.tolerances.runs, seed: input.seed ?? settings.tolerances.seed, spec };
+	// Refuse a network or element the run could not use now, not minutes later in the queue.
+	await runDesign({ kind: 'mc-chunk', key: `check-${revision.id}`, document: revision.document, request, from: 0, to: 0 });
+	const job = await createDesignJob({ sheetId: input.sheetId, revision: revision.number, kind: 'monte-carlo', request: { request }, total: request.runs, createdBy: actor.id });
+	await setQueueId(job.id, await enqueueDesignJob(job.id));
+	return job;
+}
+
+async function visibleJob(actor: Actor, jobId: string, action: 'read' | 'analyze'): Promise<DesignJobRecord> {
+	const job = await getDesignJob(jobId);
+	if (!job) throw new AccessDenied(404, 'Not found.');
+	await authorizeSheet(actor, job.sheetId, action);
+	return job;
+}
+
+export async function jobFor(actor: Actor, jobId: string): Promise<DesignJobRecord> {
+	// Reading a job is also what wakes the queue runner in a freshly started process.
+	void designQueue().catch(() => {});
+	return visibleJob(actor, jobId, 'read');
+}
+
+export async function cancelJobFor(actor: UserActor, jobId: string): Promise<DesignJobRecord> {
+	await visibleJob(actor, jobId, 'analyze');
+	await cancelQueued(await queueIdOf(jobId));
+	return (await cancelDesignJob(jobId))!;
+}
+
+export async function jobsOfSheet(actor: Actor, sheetId: string): Promise<DesignJobRecord[]> {
+	await authorizeSheet(actor, sheetId, 'read');
+	void designQueue().catch(() => {});
+	return listDesignJobs(sheetId);
+}
+
+export async function settingsOf(actor: Actor, sheetId: string): Promise<DesignSettings> {
+	await authorizeSheet(actor, sheetId, 'read');
+	return getDesignSettings(sheetId);
+}
+
+export async function saveSettingsOf(actor: UserActor, sheetId: string, settings: DesignSettings): Promise<DesignSettings> {
+	await authorizeSheet(actor, sheetId, 'save');
+	return saveDesignSettings(sheetId, actor.id, settings);
+}
+
+/** Pass/fail of a stored revision against the sheet's spec limits (for comparisons and reviews). */
+export async function specOfRevision(actor: Actor, sheetId: string, number?: number) {
+	const { revision } = await readRevision(actor, sheetId, number, 'analyze');
+	const { spec } = await getDesignSettings(sheetId);
+	const outcome = await runDesign({ kind: 'spec', document: revision.document, spec });
+	return { sheetId, revision: revision.number, spec, ...(outcome as object) };
+}
