@@ -1,9 +1,9 @@
 // The analysis of a stored revision, for the API and read-only links. Revisions are immutable,
 // so the same revision always gives the same result; a network the solver refuses is 422 with
-// the solver's code and the element or node at fault.
+// the solver's code and the element or node at fault. The solver runs in the worker pool.
 import { json } from '@sveltejs/kit';
-import { analyze, SolverError } from '../../solver';
 import { problem } from '../api/respond';
+import { analyzeInPool } from '../jobs/analysis-pool';
 import type { Actor } from '../access';
 import { readRevision } from './sheet-actions';
 
@@ -17,11 +17,11 @@ export async function analysisResponse(actor: Actor, sheetId: string, number?: n
 	if (count > ANALYSIS_ELEMENT_LIMIT) {
 		return problem(422, `Revision ${revision.number} has ${count} elements; analysis here is limited to ${ANALYSIS_ELEMENT_LIMIT}.`, { code: 'too_large' });
 	}
-	try {
-		const analysis = analyze(revision.document);
-		return json({ sheetId, revision: revision.number, analysis }, { headers: { 'cache-control': 'private, max-age=300' } });
-	} catch (e) {
-		if (e instanceof SolverError) return problem(422, e.message, { ...e.toJSON(), revision: revision.number });
-		throw e;
+	// In the worker pool like POST /api/analyze: a large stored network never blocks the server.
+	const outcome = await analyzeInPool({ document: revision.document });
+	if (!outcome.ok) {
+		const { error, ...where } = outcome.error;
+		return problem(422, error, { ...where, revision: revision.number });
 	}
+	return json({ sheetId, revision: revision.number, analysis: outcome.analysis }, { headers: { 'cache-control': 'private, max-age=300' } });
 }
