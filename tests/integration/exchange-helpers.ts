@@ -17,7 +17,15 @@ export interface Reply {
 
 export async function send(
 	handler: RequestHandler,
-	o: { user: User | null; params: Record<string, string>; method?: string; path?: string; form?: FormData; body?: BodyInit; headers?: Record<string, string> }
+	o: {
+		user: User | null;
+		params: Record<string, string>;
+		method?: string;
+		path?: string;
+		form?: FormData;
+		body?: BodyInit;
+		headers?: Record<string, string>;
+	}
 ): Promise<Reply> {
 	const url = new URL(o.path ?? '/api/test', 'http://127.0.0.1:5173');
 	const method = o.method ?? (o.form || o.body ? 'POST' : 'GET');
@@ -41,9 +49,16 @@ export async function send(
 	return { status: response.status, headers: response.headers, text, bytes, json };
 }
 
-export function fileForm(content: string | Uint8Array, name: string, fields: Record<string, string> = {}): FormData {
+export function fileForm(
+	content: string | Uint8Array,
+	name: string,
+	fields: Record<string, string> = {}
+): FormData {
 	const form = new FormData();
-	form.set('file', new File([typeof content === 'string' ? content : new Uint8Array(content)], name));
+	form.set(
+		'file',
+		new File([typeof content === 'string' ? content : new Uint8Array(content)], name)
+	);
 	for (const [k, v] of Object.entries(fields)) form.set(k, v);
 	return form;
 }
@@ -53,6 +68,11 @@ export async function exchangeWorld(doc: unknown = network('1k')) {
 	const owner = await person('Exchange owner');
 	const outsider = await person('Exchange outsider');
 	const workspace = await createWorkspace(owner.id, 'Bench 3 — bench checks');
-	const { sheet } = await createSheet({ userId: owner.id, workspaceId: workspace.id, name: 'Low-pass 160 kHz', document: doc });
+	const { sheet } = await createSheet({
+		userId: owner.id,
+		workspaceId: workspace.id,
+		name: 'Low-pass 160 kHz',
+		document: doc
+	});
 	return { owner, outsider, workspace, sheet };
 }

@@ -17,11 +17,13 @@ function sortKeys(obj: Record<string, unknown>, preferred: string[] = []): strin
  * e.g. { '': ['format', 'version'], 'document.elements.*': ['id', 'type'] }.
  */
 export function canonicalize(value: unknown, orders: KeyOrder = {}, path = ''): unknown {
-	if (Array.isArray(value)) return value.map((v) => canonicalize(v, orders, path ? `${path}.*` : '*'));
+	if (Array.isArray(value))
+		return value.map((v) => canonicalize(v, orders, path ? `${path}.*` : '*'));
 	if (value && typeof value === 'object') {
 		const obj = value as Record<string, unknown>;
 		const out: Record<string, unknown> = {};
-		for (const k of sortKeys(obj, orders[path])) out[k] = canonicalize(obj[k], orders, path ? `${path}.${k}` : k);
+		for (const k of sortKeys(obj, orders[path]))
+			out[k] = canonicalize(obj[k], orders, path ? `${path}.${k}` : k);
 		return out;
 	}
 	if (typeof value === 'number' && !Number.isFinite(value)) return null;

@@ -52,12 +52,14 @@ export function guessColumns(table: CsvTable): ColumnGuess {
 	const notes: string[] = [];
 	const header = table.header;
 	const width = Math.max(table.columns, header?.length ?? 0);
-	const find = (re: RegExp, taken: number[]) => (header ?? []).findIndex((h, i) => !taken.includes(i) && re.test(h));
+	const find = (re: RegExp, taken: number[]) =>
+		(header ?? []).findIndex((h, i) => !taken.includes(i) && re.test(h));
 	let frequency = header ? find(FREQ_NAME, []) : -1;
 	if (frequency < 0) frequency = 0;
 	let phase: number | null = header ? find(PHASE_NAME, [frequency]) : -1;
 	let magnitude = header ? find(MAG_NAME, [frequency, phase ?? -1]) : -1;
-	if (magnitude < 0) magnitude = [...Array(width).keys()].find((i) => i !== frequency && i !== phase) ?? 1;
+	if (magnitude < 0)
+		magnitude = [...Array(width).keys()].find((i) => i !== frequency && i !== phase) ?? 1;
 	if (phase < 0) {
 		// Without a name, a third column is taken as phase (the usual analyzer export order).
 		const next = [...Array(width).keys()].find((i) => i !== frequency && i !== magnitude);
@@ -77,12 +79,17 @@ export function guessColumns(table: CsvTable): ColumnGuess {
 		magnitudeKind = mk;
 		notes.push(`magnitude in ${mk === 'dB' ? 'dB' : 'linear ratio'} (from the header)`);
 	} else {
-		const values = table.rows.map((r) => cellNumber(r.cells[magnitude] ?? '', table.decimalComma)).filter((v): v is number => v !== null);
+		const values = table.rows
+			.map((r) => cellNumber(r.cells[magnitude] ?? '', table.decimalComma))
+			.filter((v): v is number => v !== null);
 		// A linear magnitude is never negative; a passive divider's ratio stays near or below 1.
 		magnitudeKind = values.some((v) => v < 0) || Math.max(...values, 0) > 2 ? 'dB' : 'linear';
-		notes.push(`magnitude read as ${magnitudeKind === 'dB' ? 'dB (values go negative or above 2)' : 'a linear ratio (all values between 0 and 2)'}: check this`);
+		notes.push(
+			`magnitude read as ${magnitudeKind === 'dB' ? 'dB (values go negative or above 2)' : 'a linear ratio (all values between 0 and 2)'}: check this`
+		);
 	}
-	const phaseUnit: PhaseUnit = (phase !== null && header?.[phase] ? phaseUnitOf(header[phase]) : null) ?? 'deg';
+	const phaseUnit: PhaseUnit =
+		(phase !== null && header?.[phase] ? phaseUnitOf(header[phase]) : null) ?? 'deg';
 	if (phase !== null) notes.push(`phase in ${phaseUnit === 'deg' ? 'degrees' : 'radians'}`);
 	else notes.push('no phase column');
 	return { frequency, frequencyUnit, magnitude, magnitudeKind, phase, phaseUnit, notes };

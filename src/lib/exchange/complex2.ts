@@ -9,7 +9,10 @@ export type M2 = [[C, C], [C, C]];
 export const one: C = { re: 1, im: 0 };
 export const add = (a: C, b: C): C => ({ re: a.re + b.re, im: a.im + b.im });
 export const sub = (a: C, b: C): C => ({ re: a.re - b.re, im: a.im - b.im });
-export const mul = (a: C, b: C): C => ({ re: a.re * b.re - a.im * b.im, im: a.re * b.im + a.im * b.re });
+export const mul = (a: C, b: C): C => ({
+	re: a.re * b.re - a.im * b.im,
+	im: a.re * b.im + a.im * b.re
+});
 export const scale = (a: C, k: number): C => ({ re: a.re * k, im: a.im * k });
 export const abs = (a: C) => Math.hypot(a.re, a.im);
 export function div(a: C, b: C): C {

@@ -70,17 +70,22 @@ export function readTable(input: string): CsvTable {
 			const end = result.meta.cursor;
 			const cells = result.data.map((c) => c.trim());
 			const blank = cells.every((c) => c === '');
-			if (!blank && !COMMENT.test(cells[0] ?? '')) raw.push({ line, cells: trimTrailingEmpty(cells) });
+			if (!blank && !COMMENT.test(cells[0] ?? ''))
+				raw.push({ line, cells: trimTrailingEmpty(cells) });
 			for (let i = start; i < end; i++) if (text.charCodeAt(i) === 10) line++;
 			start = end;
 		}
 	});
-	if (raw.length === 0) throw new CsvProblem('the file has no data rows (only blank or comment lines)');
+	if (raw.length === 0)
+		throw new CsvProblem('the file has no data rows (only blank or comment lines)');
 	if (raw.length > MAX_ROWS + 1) throw new CsvProblem(`the file has more than ${MAX_ROWS} rows`);
 	// A decimal comma is only possible when the comma is not the delimiter; the mark most cells
 	// use wins, so a stray "2.5" in a decimal-comma file is reported on its own row.
-	const count = (re: RegExp) => raw.reduce((n, r) => n + r.cells.filter((c) => re.test(c)).length, 0);
-	const decimalComma = delimiter !== ',' && count(/^[+-]?\d*,\d+([eE][+-]?\d+)?$/) > count(/^[+-]?\d*\.\d+([eE][+-]?\d+)?$/);
+	const count = (re: RegExp) =>
+		raw.reduce((n, r) => n + r.cells.filter((c) => re.test(c)).length, 0);
+	const decimalComma =
+		delimiter !== ',' &&
+		count(/^[+-]?\d*,\d+([eE][+-]?\d+)?$/) > count(/^[+-]?\d*\.\d+([eE][+-]?\d+)?$/);
 	const first = raw[0];
 	const isHeader = first.cells.some((c) => cellNumber(c, decimalComma) === null);
 	const rows = isHeader ? raw.slice(1) : raw;

@@ -12,7 +12,10 @@ describe('deviation', () => {
 	});
 
 	it('gives max and RMS in dB over the band, skipping points the model does not reach', () => {
-		const measured = { f: [5, 31.6227766, 316.227766, 3162.27766, 20000], magnitudeDb: [1, -9, -31, -50, -70] };
+		const measured = {
+			f: [5, 31.6227766, 316.227766, 3162.27766, 20000],
+			magnitudeDb: [1, -9, -31, -50, -70]
+		};
 		const d = deviation(model, measured);
 		// Differences: +1, −1, 0 (within rounding), → max 1 dB, RMS sqrt(2/3)
 		expect(d.points).toBe(3);
@@ -25,6 +28,10 @@ describe('deviation', () => {
 	});
 
 	it('is empty when nothing overlaps', () => {
-		expect(deviation(model, { f: [1, 2], magnitudeDb: [0, 0] })).toMatchObject({ points: 0, maxDb: null, rmsDb: null });
+		expect(deviation(model, { f: [1, 2], magnitudeDb: [0, 0] })).toMatchObject({
+			points: 0,
+			maxDb: null,
+			rmsDb: null
+		});
 	});
 });

@@ -42,7 +42,11 @@ export function modelDbAt(model: Curve, f: number): number | null {
 	return a + t * (b - a);
 }
 
-export function deviation(model: Curve, measured: Curve, band: { fMin?: number | null; fMax?: number | null } = {}): Deviation {
+export function deviation(
+	model: Curve,
+	measured: Curve,
+	band: { fMin?: number | null; fMax?: number | null } = {}
+): Deviation {
 	const lo = band.fMin ?? -Infinity;
 	const hi = band.fMax ?? Infinity;
 	let points = 0;

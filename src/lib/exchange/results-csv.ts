@@ -9,7 +9,14 @@ export type ResultTable = (typeof RESULT_TABLES)[number];
 
 type Cell = string | number | null | undefined;
 
-const cell = (v: Cell) => (v === null || v === undefined ? '' : typeof v === 'number' ? (Number.isFinite(v) ? String(v) : '') : v);
+const cell = (v: Cell) =>
+	v === null || v === undefined
+		? ''
+		: typeof v === 'number'
+			? Number.isFinite(v)
+				? String(v)
+				: ''
+			: v;
 
 function csv(fields: string[], rows: Cell[][]): string {
 	// "\r\n" is what RFC 4180 asks for; spreadsheets read either.
@@ -20,17 +27,57 @@ export function polesCsv(a: Analysis): string {
 	const rows: Cell[][] = [];
 	a.poles.forEach((p, i) =>
 		rows.push([
-			'pole', i + 1, p.re, p.im, p.hz, p.q, p.zeta, p.tau,
-			p.estimate?.element, p.estimate?.tau, p.estimate?.hz, p.relativeError,
+			'pole',
+			i + 1,
+			p.re,
+			p.im,
+			p.hz,
+			p.q,
+			p.zeta,
+			p.tau,
+			p.estimate?.element,
+			p.estimate?.tau,
+			p.estimate?.hz,
+			p.relativeError,
 			p.owners.map((o) => `${o.element} ${(o.share * 100).toFixed(1)}%`).join('; '),
 			p.cancelledBy === null ? null : `zero ${p.cancelledBy + 1}`
 		])
 	);
 	a.zeros.forEach((z, i) =>
-		rows.push(['zero', i + 1, z.re, z.im, z.hz, z.q, z.zeta, z.tau, null, null, null, null, null, z.cancels === null ? null : `pole ${z.cancels + 1}`])
+		rows.push([
+			'zero',
+			i + 1,
+			z.re,
+			z.im,
+			z.hz,
+			z.q,
+			z.zeta,
+			z.tau,
+			null,
+			null,
+			null,
+			null,
+			null,
+			z.cancels === null ? null : `pole ${z.cancels + 1}`
+		])
 	);
 	return csv(
-		['kind', 'index', 're_rad_per_s', 'im_rad_per_s', 'frequency_hz', 'q', 'zeta', 'tau_s', 'estimate_element', 'estimate_tau_s', 'estimate_hz', 'estimate_relative_error', 'owners', 'near_cancellation'],
+		[
+			'kind',
+			'index',
+			're_rad_per_s',
+			'im_rad_per_s',
+			'frequency_hz',
+			'q',
+			'zeta',
+			'tau_s',
+			'estimate_element',
+			'estimate_tau_s',
+			'estimate_hz',
+			'estimate_relative_error',
+			'owners',
+			'near_cancellation'
+		],
 		rows
 	);
 }
@@ -42,9 +89,30 @@ export function timeConstantsCsv(a: Analysis): string {
 	const rows = tc.openCircuit.map((o, i) => {
 		const s = tc.shortCircuit[i];
 		const r = rank.get(o.element);
-		return [o.element, kinds.get(o.element) ?? null, o.resistance, o.tau, s?.resistance, s?.tau, r?.i, r?.tau] as Cell[];
+		return [
+			o.element,
+			kinds.get(o.element) ?? null,
+			o.resistance,
+			o.tau,
+			s?.resistance,
+			s?.tau,
+			r?.i,
+			r?.tau
+		] as Cell[];
 	});
-	return csv(['element', 'kind', 'open_circuit_resistance_ohm', 'open_circuit_tau_s', 'short_circuit_resistance_ohm', 'short_circuit_tau_s', 'sequential_rank', 'sequential_tau_s'], rows);
+	return csv(
+		[
+			'element',
+			'kind',
+			'open_circuit_resistance_ohm',
+			'open_circuit_tau_s',
+			'short_circuit_resistance_ohm',
+			'short_circuit_tau_s',
+			'sequential_rank',
+			'sequential_tau_s'
+		],
+		rows
+	);
 }
 
 export function responseCsv(a: Analysis): string {
@@ -59,9 +127,17 @@ export function responseCsv(a: Analysis): string {
 export function stepCsv(a: Analysis): string {
 	const s = a.step;
 	if (!s) return csv(['time_s', 'output'], []);
-	return csv(['time_s', 'output'], s.t.map((t, i) => [t, s.y[i]]));
+	return csv(
+		['time_s', 'output'],
+		s.t.map((t, i) => [t, s.y[i]])
+	);
 }
 
 export function resultsCsv(a: Analysis, table: ResultTable): string {
-	return { poles: polesCsv, 'time-constants': timeConstantsCsv, response: responseCsv, step: stepCsv }[table](a);
+	return {
+		poles: polesCsv,
+		'time-constants': timeConstantsCsv,
+		response: responseCsv,
+		step: stepCsv
+	}[table](a);
 }

@@ -11,14 +11,24 @@ const doc = {
 	],
 	schema: 1
 };
-const layout = { version: 1, format: 'polewise-canvas', items: [{ y: 40, x: 20, id: 'i1', kind: 'R', name: 'R1', value: '9M', rotation: 0, flip: false }], wires: [], input: null };
+const layout = {
+	version: 1,
+	format: 'polewise-canvas',
+	items: [{ y: 40, x: 20, id: 'i1', kind: 'R', name: 'R1', value: '9M', rotation: 0, flip: false }],
+	wires: [],
+	input: null
+};
 
 describe('sheet file', () => {
 	it('writes canonically: reading and writing again gives the same bytes', () => {
 		const first = writeSheetFile({ name: 'Probe 10:1 — Ω', document: doc, layout });
 		const again = writeSheetFile(readSheetFile(first));
 		expect(again).toBe(first);
-		expect(first.startsWith('{\n  "format": "polewise-sheet",\n  "version": 1,\n  "name": "Probe 10:1 — Ω",\n  "document": {\n    "schema": 1,')).toBe(true);
+		expect(
+			first.startsWith(
+				'{\n  "format": "polewise-sheet",\n  "version": 1,\n  "name": "Probe 10:1 — Ω",\n  "document": {\n    "schema": 1,'
+			)
+		).toBe(true);
 		expect(first.endsWith('}\n')).toBe(true);
 	});
 
@@ -31,16 +41,40 @@ describe('sheet file', () => {
 		['not JSON', '{"format":', /not valid JSON/],
 		['a list', '[]', /expected a JSON object/],
 		['another format', '{"format":"other"}', /format is "other"/],
-		['a newer version', JSON.stringify({ format: 'polewise-sheet', version: 2, name: 'x', document: doc }), /version 2 of the sheet format/],
-		['an empty name', JSON.stringify({ format: 'polewise-sheet', version: 1, name: ' ', document: doc }), /name is empty/],
-		['a bad layout', JSON.stringify({ format: 'polewise-sheet', version: 1, name: 'x', document: doc, layout: { format: 'x' } }), /layout.format/],
+		[
+			'a newer version',
+			JSON.stringify({ format: 'polewise-sheet', version: 2, name: 'x', document: doc }),
+			/version 2 of the sheet format/
+		],
+		[
+			'an empty name',
+			JSON.stringify({ format: 'polewise-sheet', version: 1, name: ' ', document: doc }),
+			/name is empty/
+		],
+		[
+			'a bad layout',
+			JSON.stringify({
+				format: 'polewise-sheet',
+				version: 1,
+				name: 'x',
+				document: doc,
+				layout: { format: 'x' }
+			}),
+			/layout.format/
+		],
 		['neither kind', '{"a":1}', /neither a sheet file/]
 	])('refuses %s', (_name, text, message) => {
 		expect(() => readSheetFile(text)).toThrow(message);
 	});
 
 	it('refuses a bad network with the analyzer’s message and element', () => {
-		const bad = { ...doc, elements: [...doc.elements.slice(0, 2), { id: 'C1', type: 'C', nodes: ['b', 'gnd'], value: '10pp' }] };
+		const bad = {
+			...doc,
+			elements: [
+				...doc.elements.slice(0, 2),
+				{ id: 'C1', type: 'C', nodes: ['b', 'gnd'], value: '10pp' }
+			]
+		};
 		try {
 			readSheetFile(JSON.stringify(bad));
 			expect.unreachable();

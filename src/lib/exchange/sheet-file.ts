@@ -27,7 +27,16 @@ const ORDER: KeyOrder = {
 };
 
 export function writeSheetFile(content: SheetFileContent): string {
-	return canonicalJson({ format: SHEET_FILE_FORMAT, version: SHEET_FILE_VERSION, name: content.name, document: content.document, layout: content.layout ?? null }, ORDER);
+	return canonicalJson(
+		{
+			format: SHEET_FILE_FORMAT,
+			version: SHEET_FILE_VERSION,
+			name: content.name,
+			document: content.document,
+			layout: content.layout ?? null
+		},
+		ORDER
+	);
 }
 
 /** A file name safe on every system: the sheet name, letters, digits, dashes. */
@@ -62,7 +71,11 @@ const layoutSchema = z.object({
 const envelopeSchema = z.object({
 	format: z.literal(SHEET_FILE_FORMAT),
 	version: z.number({ error: 'version must be a number' }),
-	name: z.string({ error: 'name must be text' }).trim().min(1, 'name is empty').max(120, 'name is too long (at most 120 characters)'),
+	name: z
+		.string({ error: 'name must be text' })
+		.trim()
+		.min(1, 'name is empty')
+		.max(120, 'name is too long (at most 120 characters)'),
 	document: z.unknown(),
 	layout: z.unknown().optional()
 });
@@ -72,29 +85,41 @@ const envelopeSchema = z.object({
  * `fallbackName` names a bare document (from its title or the uploaded file's name).
  */
 export function readSheetFile(text: string, fallbackName = 'Imported sheet'): SheetFileContent {
-	if (text.length > SHEET_FILE_MAX_BYTES) throw new SheetFileError(`the file is over ${SHEET_FILE_MAX_BYTES / 1_000_000} MB`);
+	if (text.length > SHEET_FILE_MAX_BYTES)
+		throw new SheetFileError(`the file is over ${SHEET_FILE_MAX_BYTES / 1_000_000} MB`);
 	let data: unknown;
 	try {
 		data = JSON.parse(text.replace(/^\uFEFF/, ''));
 	} catch (e) {
 		throw new SheetFileError(`the file is not valid JSON (${(e as Error).message})`);
 	}
-	if (!data || typeof data !== 'object' || Array.isArray(data)) throw new SheetFileError('the file is not a sheet file: expected a JSON object');
+	if (!data || typeof data !== 'object' || Array.isArray(data))
+		throw new SheetFileError('the file is not a sheet file: expected a JSON object');
 	const obj = data as Record<string, unknown>;
 	let content: SheetFileContent;
 	if ('format' in obj) {
-		if (obj.format !== SHEET_FILE_FORMAT) throw new SheetFileError(`the file's format is "${String(obj.format)}", not "${SHEET_FILE_FORMAT}"`);
+		if (obj.format !== SHEET_FILE_FORMAT)
+			throw new SheetFileError(
+				`the file's format is "${String(obj.format)}", not "${SHEET_FILE_FORMAT}"`
+			);
 		const env = envelopeSchema.safeParse(obj);
 		if (!env.success) throw new SheetFileError(env.error.issues[0].message);
 		if (env.data.version > SHEET_FILE_VERSION) {
-			throw new SheetFileError(`the file is version ${env.data.version} of the sheet format; this Polewise reads up to version ${SHEET_FILE_VERSION}`);
+			throw new SheetFileError(
+				`the file is version ${env.data.version} of the sheet format; this Polewise reads up to version ${SHEET_FILE_VERSION}`
+			);
 		}
 		content = { name: env.data.name, document: env.data.document, layout: env.data.layout ?? null };
 	} else if ('schema' in obj && 'elements' in obj) {
-		const title = typeof obj.title === 'string' && obj.title.trim() ? obj.title.trim().slice(0, 120) : fallbackName;
+		const title =
+			typeof obj.title === 'string' && obj.title.trim()
+				? obj.title.trim().slice(0, 120)
+				: fallbackName;
 		content = { name: title, document: obj, layout: null };
 	} else {
-		throw new SheetFileError(`the file is neither a sheet file ("format": "${SHEET_FILE_FORMAT}") nor a network document ("schema": 1)`);
+		throw new SheetFileError(
+			`the file is neither a sheet file ("format": "${SHEET_FILE_FORMAT}") nor a network document ("schema": 1)`
+		);
 	}
 	if (content.layout !== null) {
 		const l = layoutSchema.safeParse(content.layout);

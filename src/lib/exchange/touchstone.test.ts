@@ -13,7 +13,15 @@ const m: M2 = [
 
 describe('Touchstone writer', () => {
 	it('writes comments, the option line and 2-port data lines in the order S11 S21 S12 S22', () => {
-		const text = writeTouchstone({ parameter: 'S', format: 'RI', unit: 'MHz', z0: 50, f: [1e6, 2.5e6], values: [m, m], comments: ['Sheet: probe — 10:1'] });
+		const text = writeTouchstone({
+			parameter: 'S',
+			format: 'RI',
+			unit: 'MHz',
+			z0: 50,
+			f: [1e6, 2.5e6],
+			values: [m, m],
+			comments: ['Sheet: probe — 10:1']
+		});
 		const lines = text.split('\r\n');
 		expect(lines.at(-1)).toBe('');
 		expect(lines[0]).toBe('! Sheet: probe - 10:1');
@@ -33,10 +41,26 @@ describe('Touchstone writer', () => {
 			[c(0, 1), c(0.1)],
 			[c(0.1), c(-1)]
 		];
-		const ma = writeTouchstone({ parameter: 'S', format: 'MA', unit: 'Hz', z0: 75, f: [1], values: [one], comments: [] }).split('\r\n');
+		const ma = writeTouchstone({
+			parameter: 'S',
+			format: 'MA',
+			unit: 'Hz',
+			z0: 75,
+			f: [1],
+			values: [one],
+			comments: []
+		}).split('\r\n');
 		expect(ma[0]).toBe('# Hz S MA R 75');
 		expect(ma[2].split(' ').map(Number)).toEqual([1, 1, 90, 0.1, 0, 0.1, 0, 1, 180]);
-		const db = writeTouchstone({ parameter: 'S', format: 'DB', unit: 'Hz', z0: 50, f: [1], values: [one], comments: [] }).split('\r\n');
+		const db = writeTouchstone({
+			parameter: 'S',
+			format: 'DB',
+			unit: 'Hz',
+			z0: 50,
+			f: [1],
+			values: [one],
+			comments: []
+		}).split('\r\n');
 		expect(db[2].split(' ').map(Number)).toEqual([1, 0, 90, -20, 0, -20, 0, 0, 180]);
 	});
 
@@ -45,7 +69,15 @@ describe('Touchstone writer', () => {
 			[c(100), c(50)],
 			[c(50), c(100)]
 		];
-		const lines = writeTouchstone({ parameter: 'Z', format: 'RI', unit: 'Hz', z0: 50, f: [10], values: [z], comments: [] }).split('\r\n');
+		const lines = writeTouchstone({
+			parameter: 'Z',
+			format: 'RI',
+			unit: 'Hz',
+			z0: 50,
+			f: [10],
+			values: [z],
+			comments: []
+		}).split('\r\n');
 		expect(lines[0]).toMatch(/^! Z-parameters normalized to R = 50 ohm/);
 		expect(lines[1]).toBe('# Hz Z RI R 50');
 		expect(lines[3].split(' ').map(Number)).toEqual([10, 2, 0, 1, 0, 1, 0, 2, 0]);

@@ -24,7 +24,21 @@ export interface TouchstoneInput {
 	comments: string[];
 }
 
-const ASCII: Record<string, string> = { 'Ω': 'Ohm', 'µ': 'u', 'μ': 'u', '—': '-', '–': '-', '−': '-', '→': '->', '·': '.', '°': ' deg', '’': "'", '“': '"', '”': '"', '∥': '||' };
+const ASCII: Record<string, string> = {
+	Ω: 'Ohm',
+	µ: 'u',
+	μ: 'u',
+	'—': '-',
+	'–': '-',
+	'−': '-',
+	'→': '->',
+	'·': '.',
+	'°': ' deg',
+	'’': "'",
+	'“': '"',
+	'”': '"',
+	'∥': '||'
+};
 
 /** Printable ASCII only (0x20–0x7E), as the specification requires. */
 export function asciiComment(text: string): string {
@@ -46,32 +60,50 @@ function pair(c: C, format: TouchstoneFormat): string {
 	return `${num(first)} ${num(angle)}`;
 }
 
-const frequencyText = (f: number, unit: FrequencyUnit) => String(Number((f / FREQUENCY_UNITS[unit]).toPrecision(12)));
+const frequencyText = (f: number, unit: FrequencyUnit) =>
+	String(Number((f / FREQUENCY_UNITS[unit]).toPrecision(12)));
 const resistanceText = (r: number) => String(Number(r.toPrecision(12)));
 
 export function writeTouchstone(t: TouchstoneInput): string {
 	const norm = t.parameter === 'Z' ? 1 / t.z0 : t.parameter === 'Y' ? t.z0 : 1;
 	const lines = t.comments.map((c) => `! ${asciiComment(c)}`.trimEnd());
-	if (t.parameter !== 'S') lines.push(`! ${t.parameter}-parameters normalized to R = ${resistanceText(t.z0)} ohm (Touchstone 1.x convention): multiply ${t.parameter === 'Z' ? 'by' : 'divide by'} R for ${t.parameter === 'Z' ? 'ohms' : 'siemens'}`);
+	if (t.parameter !== 'S')
+		lines.push(
+			`! ${t.parameter}-parameters normalized to R = ${resistanceText(t.z0)} ohm (Touchstone 1.x convention): multiply ${t.parameter === 'Z' ? 'by' : 'divide by'} R for ${t.parameter === 'Z' ? 'ohms' : 'siemens'}`
+		);
 	lines.push(`# ${t.unit} ${t.parameter} ${t.format} R ${resistanceText(t.z0)}`);
-	const [a, b] = t.format === 'RI' ? ['Re', 'Im'] : t.format === 'MA' ? ['Mag', 'Ang'] : ['dB', 'Ang'];
+	const [a, b] =
+		t.format === 'RI' ? ['Re', 'Im'] : t.format === 'MA' ? ['Mag', 'Ang'] : ['dB', 'Ang'];
 	const p = t.parameter;
-	lines.push(`! freq ${[`${p}11`, `${p}21`, `${p}12`, `${p}22`].map((n) => `${a}${n} ${b}${n}`).join(' ')}`);
+	lines.push(
+		`! freq ${[`${p}11`, `${p}21`, `${p}12`, `${p}22`].map((n) => `${a}${n} ${b}${n}`).join(' ')}`
+	);
 	t.f.forEach((f, i) => {
 		const m = t.values[i];
-		const order = [m[0][0], m[1][0], m[0][1], m[1][1]].map((c) => ({ re: c.re * norm, im: c.im * norm }));
+		const order = [m[0][0], m[1][0], m[0][1], m[1][1]].map((c) => ({
+			re: c.re * norm,
+			im: c.im * norm
+		}));
 		lines.push(`${frequencyText(f, t.unit)} ${order.map((c) => pair(c, t.format)).join(' ')}`);
 	});
 	return `${lines.join('\r\n')}\r\n`;
 }
 
 /** Frequencies for the export: an explicit list, or log/linear spaced points (both ends included). */
-export function frequencyList(spec: { list?: number[]; fMin?: number; fMax?: number; points?: number; spacing?: 'log' | 'linear' }): number[] {
+export function frequencyList(spec: {
+	list?: number[];
+	fMin?: number;
+	fMax?: number;
+	points?: number;
+	spacing?: 'log' | 'linear';
+}): number[] {
 	if (spec.list?.length) return [...spec.list].sort((x, y) => x - y);
 	const { fMin = 1e3, fMax = 1e9, points = 101, spacing = 'log' } = spec;
 	const n = Math.max(1, Math.floor(points));
 	if (n === 1) return [fMin];
 	return Array.from({ length: n }, (_, i) =>
-		spacing === 'log' ? 10 ** (Math.log10(fMin) + ((Math.log10(fMax) - Math.log10(fMin)) * i) / (n - 1)) : fMin + ((fMax - fMin) * i) / (n - 1)
+		spacing === 'log'
+			? 10 ** (Math.log10(fMin) + ((Math.log10(fMax) - Math.log10(fMin)) * i) / (n - 1))
+			: fMin + ((fMax - fMin) * i) / (n - 1)
 	);
 }

@@ -7,7 +7,11 @@
 // the ports has no Z, a shunt element across them has no Y — we say so instead of writing
 // numbers that mean nothing. Both ports may be the same node pair: that is how a single shunt
 // element is described as a two-port.
-import { networkDocumentSchema, type NetworkDocument, type NetworkElement } from '../network/schema';
+import {
+	networkDocumentSchema,
+	type NetworkDocument,
+	type NetworkElement
+} from '../network/schema';
 import { frequencyResponseAt, SolverError, validateNetwork } from '../solver';
 import { add, type C, inv2, mul2, one, sub, scale, type M2 } from './complex2';
 
@@ -52,7 +56,8 @@ export function portNodes(document: unknown): string[] {
 export function defaultPorts(document: unknown): { port1: PortPair; port2: PortPair } {
 	const doc = networkDocumentSchema.parse(document);
 	const input = doc.elements.find((e) => e.id === doc.input);
-	const name = (n: string | number | undefined) => (n === undefined || isGround(String(n)) ? 'gnd' : String(n));
+	const name = (n: string | number | undefined) =>
+		n === undefined || isGround(String(n)) ? 'gnd' : String(n);
 	return {
 		port1: { plus: name(input?.nodes[0]), minus: name(input?.nodes[1]) },
 		port2: { plus: name(doc.output.node), minus: name(doc.output.reference) }
@@ -61,20 +66,32 @@ export function defaultPorts(document: unknown): { port1: PortPair; port2: PortP
 
 function checkPorts(document: unknown, r: TwoPortRequest) {
 	const nodes = new Set(portNodes(document));
-	for (const [label, p] of [['input port', r.port1], ['output port', r.port2]] as const) {
+	for (const [label, p] of [
+		['input port', r.port1],
+		['output port', r.port2]
+	] as const) {
 		for (const n of [p.plus, p.minus]) {
-			if (!nodes.has(isGround(n) ? 'gnd' : n)) throw new TwoPortError(`${label}: node "${n}" is not a node of the network`, { node: n });
+			if (!nodes.has(isGround(n) ? 'gnd' : n))
+				throw new TwoPortError(`${label}: node "${n}" is not a node of the network`, { node: n });
 		}
-		if ((isGround(p.plus) ? 'gnd' : p.plus) === (isGround(p.minus) ? 'gnd' : p.minus)) throw new TwoPortError(`${label}: both terminals are on node "${p.plus}"`, { node: p.plus });
+		if ((isGround(p.plus) ? 'gnd' : p.plus) === (isGround(p.minus) ? 'gnd' : p.minus))
+			throw new TwoPortError(`${label}: both terminals are on node "${p.plus}"`, { node: p.plus });
 	}
-	if (!(r.z0 > 0) || !Number.isFinite(r.z0)) throw new TwoPortError('the reference impedance must be a positive number of ohms');
+	if (!(r.z0 > 0) || !Number.isFinite(r.z0))
+		throw new TwoPortError('the reference impedance must be a positive number of ohms');
 }
 
 /**
  * The sheet's network with its input source taken out (the driven port stands in for it; other
  * independent sources are at zero as in every analysis) and both ports terminated in Z0.
  */
-function terminated(doc: NetworkDocument, drive: PortPair, load: PortPair, z0: number, read: PortPair): NetworkDocument {
+function terminated(
+	doc: NetworkDocument,
+	drive: PortPair,
+	load: PortPair,
+	z0: number,
+	read: PortPair
+): NetworkDocument {
 	const controls = new Set(doc.elements.map((e) => e.control).filter(Boolean));
 	const kept: NetworkElement[] = doc.elements
 		.filter((e) => e.id !== doc.input || controls.has(e.id))
@@ -85,7 +102,12 @@ function terminated(doc: NetworkDocument, drive: PortPair, load: PortPair, z0: n
 		{ id: `${PREFIX}-z0-drive`, type: 'R', nodes: [emf, drive.plus], value: z0 },
 		{ id: `${PREFIX}-z0-load`, type: 'R', nodes: [load.plus, load.minus], value: z0 }
 	);
-	return { schema: 1, elements: kept, input: `${PREFIX}-source`, output: { node: read.plus, reference: read.minus } };
+	return {
+		schema: 1,
+		elements: kept,
+		input: `${PREFIX}-source`,
+		output: { node: read.plus, reference: read.minus }
+	};
 }
 
 function solve(doc: NetworkDocument, f: number[]): C[] {
@@ -116,7 +138,8 @@ export function twoPort(r: TwoPortRequest): TwoPortResult {
 		if (e instanceof SolverError) throw new TwoPortError(e.message, e.toJSON());
 		throw e;
 	}
-	if (r.frequencies.some((f) => !(f > 0) || !Number.isFinite(f))) throw new TwoPortError('every frequency must be greater than 0 Hz');
+	if (r.frequencies.some((f) => !(f > 0) || !Number.isFinite(f)))
+		throw new TwoPortError('every frequency must be greater than 0 Hz');
 	const doc = parsed.data;
 	const { port1: p1, port2: p2, z0, frequencies: f } = r;
 	// Drive port 1 (port 2 loaded), read both ports; then the other way round.
@@ -129,7 +152,12 @@ export function twoPort(r: TwoPortRequest): TwoPortResult {
 			[sub(scale(v11[i], 2), one), scale(v12[i], 2)],
 			[scale(v21[i], 2), sub(scale(v22[i], 2), one)]
 		];
-		for (const row of m) for (const c of row) if (!Number.isFinite(c.re) || !Number.isFinite(c.im)) throw new TwoPortError(`the terminated network cannot be solved at ${freq} Hz`, { frequency: freq });
+		for (const row of m)
+			for (const c of row)
+				if (!Number.isFinite(c.re) || !Number.isFinite(c.im))
+					throw new TwoPortError(`the terminated network cannot be solved at ${freq} Hz`, {
+						frequency: freq
+					});
 		return m;
 	});
 	return { f: f.slice(), z0, s };
@@ -138,7 +166,8 @@ export function twoPort(r: TwoPortRequest): TwoPortResult {
 /** Below this |det| the matrix is taken as singular (S entries of a passive port are ≤ 1). */
 const SINGULAR = 1e-12;
 
-export type Conversion = { ok: true; values: M2[] } | { ok: false; message: string; frequency: number };
+export type Conversion =
+	{ ok: true; values: M2[] } | { ok: false; message: string; frequency: number };
 
 /** Z = Z0 (I + S)(I − S)⁻¹ — absent where (I − S) is singular (a series path between the ports). */
 export function zFromS(t: TwoPortResult): Conversion {
@@ -154,13 +183,26 @@ function convert(t: TwoPortResult, kind: 'Z' | 'Y'): Conversion {
 	const values: M2[] = [];
 	for (let i = 0; i < t.f.length; i++) {
 		const s = t.s[i];
-		const iPlus: M2 = [[add(one, s[0][0]), s[0][1]], [s[1][0], add(one, s[1][1])]];
-		const iMinus: M2 = [[sub(one, s[0][0]), scale(s[0][1], -1)], [scale(s[1][0], -1), sub(one, s[1][1])]];
+		const iPlus: M2 = [
+			[add(one, s[0][0]), s[0][1]],
+			[s[1][0], add(one, s[1][1])]
+		];
+		const iMinus: M2 = [
+			[sub(one, s[0][0]), scale(s[0][1], -1)],
+			[scale(s[1][0], -1), sub(one, s[1][1])]
+		];
 		const [num, den] = kind === 'Z' ? [iPlus, iMinus] : [iMinus, iPlus];
 		const inverse = inv2(den, SINGULAR);
 		if (!inverse) {
-			const why = kind === 'Z' ? 'an element in series between the ports (no open-circuit description)' : 'an element across the ports (no short-circuit description)';
-			return { ok: false, frequency: t.f[i], message: `${kind}-parameters do not exist for this two-port at ${t.f[i]} Hz: I ${kind === 'Z' ? '−' : '+'} S is singular there, as with ${why}` };
+			const why =
+				kind === 'Z'
+					? 'an element in series between the ports (no open-circuit description)'
+					: 'an element across the ports (no short-circuit description)';
+			return {
+				ok: false,
+				frequency: t.f[i],
+				message: `${kind}-parameters do not exist for this two-port at ${t.f[i]} Hz: I ${kind === 'Z' ? '−' : '+'} S is singular there, as with ${why}`
+			};
 		}
 		const k = kind === 'Z' ? t.z0 : 1 / t.z0;
 		values.push(mul2(num, inverse).map((row) => row.map((c) => scale(c, k))) as M2);

@@ -12,7 +12,11 @@ import type { Upload } from './upload';
 
 const ALLOWED_TEXT = 'PNG, JPEG, GIF, WebP images and PDF documents';
 
-export async function listAttachmentsAs(actor: Actor, sheetId: string, commentId: string | null | 'all' = null) {
+export async function listAttachmentsAs(
+	actor: Actor,
+	sheetId: string,
+	commentId: string | null | 'all' = null
+) {
 	await authorizeSheet(actor, sheetId, 'read');
 	return store.listAttachments(sheetId, commentId);
 }
@@ -24,23 +28,52 @@ export async function attachmentFileAs(actor: Actor, sheetId: string, id: string
 	return a;
 }
 
-export async function uploadAttachmentAs(actor: Actor & { kind: 'user' }, sheetId: string, upload: Upload) {
+export async function uploadAttachmentAs(
+	actor: Actor & { kind: 'user' },
+	sheetId: string,
+	upload: Upload
+) {
 	const commentId = upload.fields.commentId || null;
 	await authorizeSheet(actor, sheetId, commentId ? 'comment' : 'save');
 	if (commentId) {
-		const comment = /^[0-9a-f-]{36}$/i.test(commentId) ? await getComment(sheetId, commentId) : null;
-		if (!comment || comment.deletedAt) throw new ApiProblem(404, 'commentId: no such comment on this sheet.');
+		const comment = /^[0-9a-f-]{36}$/i.test(commentId)
+			? await getComment(sheetId, commentId)
+			: null;
+		if (!comment || comment.deletedAt)
+			throw new ApiProblem(404, 'commentId: no such comment on this sheet.');
 	}
 	if (upload.bytes.length === 0) throw new ApiProblem(400, 'file: the file is empty.');
 	const type = sniffType(upload.bytes);
-	if (!type) throw new ApiProblem(415, `Only ${ALLOWED_TEXT} can be attached; the file's content is none of them.`, { code: 'unsupported_type', allowed: ALLOWED_TYPES });
+	if (!type)
+		throw new ApiProblem(
+			415,
+			`Only ${ALLOWED_TEXT} can be attached; the file's content is none of them.`,
+			{ code: 'unsupported_type', allowed: ALLOWED_TYPES }
+		);
 	if (!extensionFits(upload.fileName, type)) {
-		throw new ApiProblem(415, `The file is named "${upload.fileName}" but its content is ${type}; rename it or attach the real file.`, { code: 'disguised_type' });
+		throw new ApiProblem(
+			415,
+			`The file is named "${upload.fileName}" but its content is ${type}; rename it or attach the real file.`,
+			{ code: 'disguised_type' }
+		);
 	}
-	if ((await store.countAttachments(sheetId)) >= PER_SHEET.attachments) throw new ApiProblem(409, `A sheet holds at most ${PER_SHEET.attachments} attachments; delete one first.`);
+	if ((await store.countAttachments(sheetId)) >= PER_SHEET.attachments)
+		throw new ApiProblem(
+			409,
+			`A sheet holds at most ${PER_SHEET.attachments} attachments; delete one first.`
+		);
 	const sha256 = createHash('sha256').update(upload.bytes).digest('hex');
-	const fileName = upload.fileName === 'file' ? `attachment.${type.split('/')[1]}` : upload.fileName;
-	return store.createAttachment({ sheetId, commentId, userId: actor.id, fileName, contentType: type, sha256, data: upload.bytes });
+	const fileName =
+		upload.fileName === 'file' ? `attachment.${type.split('/')[1]}` : upload.fileName;
+	return store.createAttachment({
+		sheetId,
+		commentId,
+		userId: actor.id,
+		fileName,
+		contentType: type,
+		sha256,
+		data: upload.bytes
+	});
 }
 
 export async function deleteAttachmentAs(actor: Actor, sheetId: string, id: string) {

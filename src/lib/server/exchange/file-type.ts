@@ -1,7 +1,13 @@
 // The type of an uploaded file from its first bytes (magic numbers), never from its name or the
 // Content-Type the browser sent: a script renamed to .png is refused. Only formats we can show
 // or hand back safely are allowed; malware scanning is out of scope (docs/exchange.md).
-export const ALLOWED_TYPES = ['image/png', 'image/jpeg', 'image/gif', 'image/webp', 'application/pdf'] as const;
+export const ALLOWED_TYPES = [
+	'image/png',
+	'image/jpeg',
+	'image/gif',
+	'image/webp',
+	'application/pdf'
+] as const;
 export type AllowedType = (typeof ALLOWED_TYPES)[number];
 
 const EXTENSIONS: Record<AllowedType, string[]> = {
@@ -12,7 +18,8 @@ const EXTENSIONS: Record<AllowedType, string[]> = {
 	'application/pdf': ['pdf']
 };
 
-const starts = (b: Uint8Array, sig: number[], at = 0) => b.length >= at + sig.length && sig.every((x, i) => b[at + i] === x);
+const starts = (b: Uint8Array, sig: number[], at = 0) =>
+	b.length >= at + sig.length && sig.every((x, i) => b[at + i] === x);
 const ascii = (s: string) => [...s].map((c) => c.charCodeAt(0));
 
 /** The file's real type, or null when it is none of the allowed ones. */
@@ -40,6 +47,10 @@ export function extensionFits(fileName: string, type: AllowedType): boolean {
 /** A file name safe to store and to put in Content-Disposition: no paths, no control characters. */
 export function cleanFileName(name: string, fallback = 'file'): string {
 	const base = name.split(/[\\/]/).pop() ?? '';
-	const clean = base.replace(/[\u0000-\u001f\u007f"<>|:*?]/g, '').trim().slice(0, 200);
+	// eslint-disable-next-line no-control-regex -- control characters are exactly what must go
+	const clean = base
+		.replace(/[\u0000-\u001f\u007f"<>|:*?]/g, '')
+		.trim()
+		.slice(0, 200);
 	return clean && clean !== '.' && clean !== '..' ? clean : fallback;
 }

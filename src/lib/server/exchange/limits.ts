@@ -8,7 +8,8 @@ export function uploadLimit(): number {
 	return Number.isInteger(v) && v > 0 ? v : DEFAULT_UPLOAD_LIMIT;
 }
 
-export const limitText = (bytes: number) => (bytes % (1024 * 1024) === 0 ? `${bytes / (1024 * 1024)} MB` : `${Math.round(bytes / 1024)} KB`);
+export const limitText = (bytes: number) =>
+	bytes % (1024 * 1024) === 0 ? `${bytes / (1024 * 1024)} MB` : `${Math.round(bytes / 1024)} KB`;
 
 /** Per sheet, so one sheet cannot fill the database. */
 export const PER_SHEET = { measurements: 50, attachments: 100 };

@@ -10,7 +10,12 @@ export function contentDisposition(kind: 'attachment' | 'inline', fileName: stri
 	return `${kind}; filename="${fallback}"; filename*=UTF-8''${encodeURIComponent(fileName)}`;
 }
 
-export function fileResponse(body: Buffer | string, contentType: string, fileName: string, { inline = false } = {}): Response {
+export function fileResponse(
+	body: Buffer | string,
+	contentType: string,
+	fileName: string,
+	{ inline = false } = {}
+): Response {
 	const showInline = inline && isImage(contentType);
 	return new Response(typeof body === 'string' ? body : new Uint8Array(body), {
 		status: 200,

@@ -7,15 +7,25 @@ import { ApiProblem } from '../api/respond';
 import { analyzeInPool } from '../jobs/analysis-pool';
 import { readRevision } from '../sharing/sheet-actions';
 
-export async function revisionAnalysis(document: unknown, revision: number, options?: AnalyzeOptions): Promise<Analysis> {
+export async function revisionAnalysis(
+	document: unknown,
+	revision: number,
+	options?: AnalyzeOptions
+): Promise<Analysis> {
 	const outcome = await analyzeInPool({ document, options });
 	if (!outcome.ok) throw new ApiProblem(422, outcome.error.error, { ...outcome.error, revision });
 	return outcome.analysis as Analysis;
 }
 
 /** `?revision=n` (default: the latest) → that revision, checked for `action`. */
-export async function revisionFromQuery(actor: Actor, sheetId: string, url: URL, action: 'read' | 'analyze' = 'read') {
+export async function revisionFromQuery(
+	actor: Actor,
+	sheetId: string,
+	url: URL,
+	action: 'read' | 'analyze' = 'read'
+) {
 	const raw = url.searchParams.get('revision');
-	if (raw !== null && !/^[1-9]\d{0,8}$/.test(raw)) throw new ApiProblem(400, 'revision must be a revision number (1, 2, …)');
+	if (raw !== null && !/^[1-9]\d{0,8}$/.test(raw))
+		throw new ApiProblem(400, 'revision must be a revision number (1, 2, …)');
 	return readRevision(actor, sheetId, raw === null ? undefined : Number(raw), action);
 }

@@ -6,7 +6,11 @@ import { sniffType } from './file-type';
 export function uploadedText(bytes: Buffer, what = 'a CSV text file'): string {
 	const sniffed = sniffType(bytes);
 	if (sniffed || bytes.subarray(0, 8192).includes(0)) {
-		throw new ApiProblem(415, `The file is not ${what}${sniffed ? ` (its content is ${sniffed})` : ' (it holds binary data)'}.`, { code: 'unsupported_type' });
+		throw new ApiProblem(
+			415,
+			`The file is not ${what}${sniffed ? ` (its content is ${sniffed})` : ' (it holds binary data)'}.`,
+			{ code: 'unsupported_type' }
+		);
 	}
 	try {
 		return new TextDecoder('utf-8', { fatal: true }).decode(bytes);

@@ -4,30 +4,57 @@
 import { z } from 'zod';
 import type { Actor } from '../access';
 import { ApiProblem } from '../api/respond';
-import { defaultPorts, fileStem, frequencyList, twoPort, TwoPortError, writeTouchstone, yFromS, zFromS } from '../../exchange';
+import {
+	defaultPorts,
+	fileStem,
+	frequencyList,
+	twoPort,
+	TwoPortError,
+	writeTouchstone,
+	yFromS,
+	zFromS
+} from '../../exchange';
 import { revisionFromQuery } from './stored-results';
 
 export const TOUCHSTONE_LIMITS = { points: 1001, elements: 400, listLength: 1001 };
 
 const node = z.string().trim().min(1, 'a node name is required').max(64);
 const port = z.object({ plus: node, minus: node.default('gnd') });
-const positive = (what: string) => z.coerce.number({ error: `${what} must be a number` }).positive(`${what} must be greater than 0`).finite();
+const positive = (what: string) =>
+	z.coerce
+		.number({ error: `${what} must be a number` })
+		.positive(`${what} must be greater than 0`)
+		.finite();
 
 export const touchstoneQuery = z
 	.object({
 		parameter: z.enum(['S', 'Z', 'Y'], { error: 'parameter must be S, Z or Y' }).default('S'),
 		format: z.enum(['RI', 'MA', 'DB'], { error: 'format must be RI, MA or DB' }).default('RI'),
-		unit: z.enum(['Hz', 'kHz', 'MHz', 'GHz'], { error: 'unit must be Hz, kHz, MHz or GHz' }).default('Hz'),
+		unit: z
+			.enum(['Hz', 'kHz', 'MHz', 'GHz'], { error: 'unit must be Hz, kHz, MHz or GHz' })
+			.default('Hz'),
 		z0: positive('z0').default(50),
 		port1: port.optional(),
 		port2: port.optional(),
 		fMin: positive('fMin').optional(),
 		fMax: positive('fMax').optional(),
-		points: z.coerce.number().int('points must be a whole number').min(1, 'points must be at least 1').max(TOUCHSTONE_LIMITS.points, `points is at most ${TOUCHSTONE_LIMITS.points}`).default(101),
+		points: z.coerce
+			.number()
+			.int('points must be a whole number')
+			.min(1, 'points must be at least 1')
+			.max(TOUCHSTONE_LIMITS.points, `points is at most ${TOUCHSTONE_LIMITS.points}`)
+			.default(101),
 		spacing: z.enum(['log', 'linear'], { error: 'spacing must be log or linear' }).default('log'),
-		frequencies: z.array(positive('each frequency')).min(1).max(TOUCHSTONE_LIMITS.listLength, `at most ${TOUCHSTONE_LIMITS.listLength} frequencies`).optional()
+		frequencies: z
+			.array(positive('each frequency'))
+			.min(1)
+			.max(TOUCHSTONE_LIMITS.listLength, `at most ${TOUCHSTONE_LIMITS.listLength} frequencies`)
+			.optional()
 	})
-	.refine((q) => q.fMin === undefined || q.fMax === undefined || q.fMax >= q.fMin, { message: 'fMax must not be below fMin', path: ['fMax'] });
+	.refine((q) => q.fMin === undefined || q.fMax === undefined || q.fMax >= q.fMin, {
+		message: 'fMax must not be below fMin',
+		path: ['fMax']
+	});
 export type TouchstoneQuery = z.infer<typeof touchstoneQuery>;
 
 /** `port1=a,gnd` style query values → the object form the schema reads. */
@@ -56,23 +83,50 @@ export function readTouchstoneQuery(input: unknown): TouchstoneQuery {
 
 export async function touchstoneAs(actor: Actor, sheetId: string, url: URL, q: TouchstoneQuery) {
 	const { sheet, revision } = await revisionFromQuery(actor, sheetId, url, 'analyze');
-	const doc = revision.document as { elements?: unknown[]; input?: string; output?: { node: unknown; reference?: unknown } };
+	const doc = revision.document as {
+		elements?: unknown[];
+		input?: string;
+		output?: { node: unknown; reference?: unknown };
+	};
 	if ((doc.elements?.length ?? 0) > TOUCHSTONE_LIMITS.elements) {
-		throw new ApiProblem(413, `Touchstone export is limited to networks of ${TOUCHSTONE_LIMITS.elements} elements; this one has ${doc.elements!.length}.`);
+		throw new ApiProblem(
+			413,
+			`Touchstone export is limited to networks of ${TOUCHSTONE_LIMITS.elements} elements; this one has ${doc.elements!.length}.`
+		);
 	}
 	let ports;
 	try {
-		ports = q.port1 && q.port2 ? { port1: q.port1, port2: q.port2 } : { ...defaultPorts(revision.document), ...(q.port1 ? { port1: q.port1 } : {}), ...(q.port2 ? { port2: q.port2 } : {}) };
+		ports =
+			q.port1 && q.port2
+				? { port1: q.port1, port2: q.port2 }
+				: {
+						...defaultPorts(revision.document),
+						...(q.port1 ? { port1: q.port1 } : {}),
+						...(q.port2 ? { port2: q.port2 } : {})
+					};
 	} catch {
-		throw new ApiProblem(422, 'The stored network is not a valid document; open it in the editor to fix it.');
+		throw new ApiProblem(
+			422,
+			'The stored network is not a valid document; open it in the editor to fix it.'
+		);
 	}
-	const frequencies = frequencyList({ list: q.frequencies, fMin: q.fMin ?? 1e3, fMax: q.fMax ?? 1e9, points: q.points, spacing: q.spacing });
+	const frequencies = frequencyList({
+		list: q.frequencies,
+		fMin: q.fMin ?? 1e3,
+		fMax: q.fMax ?? 1e9,
+		points: q.points,
+		spacing: q.spacing
+	});
 	try {
 		const t = twoPort({ document: revision.document, ...ports, z0: q.z0, frequencies });
 		let values = t.s;
 		if (q.parameter !== 'S') {
 			const c = q.parameter === 'Z' ? zFromS(t) : yFromS(t);
-			if (!c.ok) throw new ApiProblem(422, c.message, { code: `no_${q.parameter.toLowerCase()}_parameters`, frequency: c.frequency });
+			if (!c.ok)
+				throw new ApiProblem(422, c.message, {
+					code: `no_${q.parameter.toLowerCase()}_parameters`,
+					frequency: c.frequency
+				});
 			values = c.values;
 		}
 		const port = (p: { plus: string; minus: string }) => `${p.plus} (+) to ${p.minus} (-)`;
@@ -91,9 +145,14 @@ export async function touchstoneAs(actor: Actor, sheetId: string, url: URL, q: T
 				`Small-signal linear model: says nothing about voltage ratings, insulation or safety (see IEC 61010)`
 			]
 		});
-		return { text, fileName: `${fileStem(sheet.name)}-r${revision.number}.s2p`, points: t.f.length };
+		return {
+			text,
+			fileName: `${fileStem(sheet.name)}-r${revision.number}.s2p`,
+			points: t.f.length
+		};
 	} catch (e) {
-		if (e instanceof TwoPortError) throw new ApiProblem(422, e.message, { code: 'bad_ports', ...e.details, error: e.message });
+		if (e instanceof TwoPortError)
+			throw new ApiProblem(422, e.message, { code: 'bad_ports', ...e.details, error: e.message });
 		throw e;
 	}
 }

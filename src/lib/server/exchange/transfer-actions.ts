@@ -4,14 +4,27 @@
 import { authorizeWorkspace, type Actor } from '../access';
 import { ApiProblem } from '../api/respond';
 import { createSheet } from '../db/sheets';
-import { readSheetFile, SheetFileError, writeSheetFile, type SheetFileContent } from '../../exchange';
+import {
+	readSheetFile,
+	SheetFileError,
+	writeSheetFile,
+	type SheetFileContent
+} from '../../exchange';
 import { sheetName } from '../../schemas/names';
 import { revisionFromQuery } from './stored-results';
 import { uploadedText } from './text-file';
 
 export async function exportSheetAs(actor: Actor, sheetId: string, url: URL) {
 	const { sheet, revision } = await revisionFromQuery(actor, sheetId, url);
-	return { sheet, revision, text: writeSheetFile({ name: sheet.name, document: revision.document, layout: revision.layout ?? null }) };
+	return {
+		sheet,
+		revision,
+		text: writeSheetFile({
+			name: sheet.name,
+			document: revision.document,
+			layout: revision.layout ?? null
+		})
+	};
 }
 
 export function parseSheetFile(bytes: Buffer, fileName: string): SheetFileContent {
@@ -19,14 +32,30 @@ export function parseSheetFile(bytes: Buffer, fileName: string): SheetFileConten
 	try {
 		return readSheetFile(text, fileName.replace(/\.[^.]+$/, '') || 'Imported sheet');
 	} catch (e) {
-		if (e instanceof SheetFileError) throw new ApiProblem(422, e.message, { code: 'bad_sheet_file', ...e.details, error: e.message });
+		if (e instanceof SheetFileError)
+			throw new ApiProblem(422, e.message, {
+				code: 'bad_sheet_file',
+				...e.details,
+				error: e.message
+			});
 		throw e;
 	}
 }
 
-export async function importSheetAs(actor: Actor & { kind: 'user' }, workspaceId: string, content: SheetFileContent, name?: string) {
+export async function importSheetAs(
+	actor: Actor & { kind: 'user' },
+	workspaceId: string,
+	content: SheetFileContent,
+	name?: string
+) {
 	await authorizeWorkspace(actor, workspaceId, 'create_sheet');
 	const checked = sheetName.safeParse(name?.trim() ? name : content.name);
 	if (!checked.success) throw new ApiProblem(400, `name: ${checked.error.issues[0].message}`);
-	return createSheet({ userId: actor.id, workspaceId, name: checked.data, document: content.document, layout: content.layout ?? undefined });
+	return createSheet({
+		userId: actor.id,
+		workspaceId,
+		name: checked.data,
+		document: content.document,
+		layout: content.layout ?? undefined
+	});
 }

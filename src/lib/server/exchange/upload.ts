@@ -13,7 +13,11 @@ export interface Upload {
 	fields: Record<string, string>;
 }
 
-const tooLarge = (limit: number) => new ApiProblem(413, `The file is over the ${limitText(limit)} upload limit.`, { code: 'too_large', limit });
+const tooLarge = (limit: number) =>
+	new ApiProblem(413, `The file is over the ${limitText(limit)} upload limit.`, {
+		code: 'too_large',
+		limit
+	});
 
 async function readCapped(request: Request, cap: number, limit: number): Promise<Buffer> {
 	const declared = Number(request.headers.get('content-length') ?? NaN);
@@ -35,24 +39,39 @@ async function readCapped(request: Request, cap: number, limit: number): Promise
 	return Buffer.concat(chunks);
 }
 
-export async function readUpload(request: Request, url: URL, limit = uploadLimit()): Promise<Upload> {
+export async function readUpload(
+	request: Request,
+	url: URL,
+	limit = uploadLimit()
+): Promise<Upload> {
 	const type = request.headers.get('content-type') ?? '';
 	if (type.startsWith('multipart/form-data')) {
 		// The form's boundaries and other fields take a little room beyond the file itself.
 		const body = await readCapped(request, limit + 64 * 1024, limit);
 		let form: FormData;
 		try {
-			form = await new Response(new Uint8Array(body), { headers: { 'content-type': type } }).formData();
+			form = await new Response(new Uint8Array(body), {
+				headers: { 'content-type': type }
+			}).formData();
 		} catch {
 			throw new ApiProblem(400, 'The upload is not a readable multipart form.');
 		}
 		const file = form.get('file');
-		if (!file || typeof file === 'string') throw new ApiProblem(400, 'file: choose a file to upload (form field "file").');
+		if (!file || typeof file === 'string')
+			throw new ApiProblem(400, 'file: choose a file to upload (form field "file").');
 		if (file.size > limit) throw tooLarge(limit);
 		const fields: Record<string, string> = {};
 		for (const [k, v] of form.entries()) if (typeof v === 'string') fields[k] = v;
-		return { fileName: cleanFileName(file.name), bytes: Buffer.from(await file.arrayBuffer()), fields };
+		return {
+			fileName: cleanFileName(file.name),
+			bytes: Buffer.from(await file.arrayBuffer()),
+			fields
+		};
 	}
 	const bytes = await readCapped(request, limit, limit);
-	return { fileName: cleanFileName(url.searchParams.get('name') ?? ''), bytes, fields: Object.fromEntries(url.searchParams) };
+	return {
+		fileName: cleanFileName(url.searchParams.get('name') ?? ''),
+		bytes,
+		fields: Object.fromEntries(url.searchParams)
+	};
 }

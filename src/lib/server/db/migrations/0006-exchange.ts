@@ -53,9 +53,13 @@ export async function up({ context: q }: { context: QueryInterface }) {
 		`ALTER TABLE attachments ADD CONSTRAINT attachments_type_check CHECK (content_type IN ('image/png','image/jpeg','image/gif','image/webp','application/pdf'))`
 	);
 	// The comments table comes from the review migration; tie to it when it is there.
-	const [[found]] = (await q.sequelize.query(`SELECT to_regclass('public.comments') IS NOT NULL AS present`)) as [[{ present: boolean }], unknown];
+	const [[found]] = (await q.sequelize.query(
+		`SELECT to_regclass('public.comments') IS NOT NULL AS present`
+	)) as [[{ present: boolean }], unknown];
 	if (found.present) {
-		await q.sequelize.query(`ALTER TABLE attachments ADD CONSTRAINT attachments_comment_fk FOREIGN KEY (comment_id) REFERENCES comments(id) ON DELETE CASCADE`);
+		await q.sequelize.query(
+			`ALTER TABLE attachments ADD CONSTRAINT attachments_comment_fk FOREIGN KEY (comment_id) REFERENCES comments(id) ON DELETE CASCADE`
+		);
 	}
 }
 

@@ -8,11 +8,16 @@ import { readUpload } from '$lib/server/exchange/upload';
 
 export const GET = endpoint(async (event) => {
 	const comment = event.url.searchParams.get('comment');
-	return json({ attachments: await listAttachmentsAs(apiActor(event), event.params.id!, comment ?? null) });
+	return json({
+		attachments: await listAttachmentsAs(apiActor(event), event.params.id!, comment ?? null)
+	});
 });
 
 export const POST = endpoint(async (event) => {
 	const actor = apiActor(event);
 	const upload = await readUpload(event.request, event.url);
-	return json({ attachment: await uploadAttachmentAs(actor, event.params.id!, upload) }, { status: 201 });
+	return json(
+		{ attachment: await uploadAttachmentAs(actor, event.params.id!, upload) },
+		{ status: 201 }
+	);
 });

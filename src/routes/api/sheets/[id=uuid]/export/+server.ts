@@ -5,6 +5,14 @@ import { fileResponse } from '$lib/server/exchange/serve';
 import { exportSheetAs } from '$lib/server/exchange/transfer-actions';
 
 export const GET = endpoint(async (event) => {
-	const { sheet, revision, text } = await exportSheetAs(apiActor(event), event.params.id!, event.url);
-	return fileResponse(text, 'application/json; charset=utf-8', `${fileStem(sheet.name)}-r${revision.number}.polewise.json`);
+	const { sheet, revision, text } = await exportSheetAs(
+		apiActor(event),
+		event.params.id!,
+		event.url
+	);
+	return fileResponse(
+		text,
+		'application/json; charset=utf-8',
+		`${fileStem(sheet.name)}-r${revision.number}.polewise.json`
+	);
 });

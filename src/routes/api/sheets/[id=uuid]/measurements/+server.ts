@@ -8,11 +8,16 @@ import { readUpload } from '$lib/server/exchange/upload';
 
 export const GET = endpoint(async (event) => {
 	const curves = ['1', 'true'].includes(event.url.searchParams.get('curves') ?? '');
-	return json({ measurements: await listMeasurementsAs(apiActor(event), event.params.id!, curves) });
+	return json({
+		measurements: await listMeasurementsAs(apiActor(event), event.params.id!, curves)
+	});
 });
 
 export const POST = endpoint(async (event) => {
 	const actor = apiActor(event);
 	const upload = await readUpload(event.request, event.url);
-	return json({ measurement: await uploadMeasurementAs(actor, event.params.id!, upload) }, { status: 201 });
+	return json(
+		{ measurement: await uploadMeasurementAs(actor, event.params.id!, upload) },
+		{ status: 201 }
+	);
 });

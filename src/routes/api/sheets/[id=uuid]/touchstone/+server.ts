@@ -5,10 +5,19 @@
 import { z } from 'zod';
 import { apiActor, endpoint, readBody } from '$lib/server/api/respond';
 import { fileResponse } from '$lib/server/exchange/serve';
-import { queryToInput, readTouchstoneQuery, touchstoneAs } from '$lib/server/exchange/touchstone-actions';
+import {
+	queryToInput,
+	readTouchstoneQuery,
+	touchstoneAs
+} from '$lib/server/exchange/touchstone-actions';
 
 async function answer(event: Parameters<Parameters<typeof endpoint>[0]>[0], input: unknown) {
-	const { text, fileName } = await touchstoneAs(apiActor(event), event.params.id!, event.url, readTouchstoneQuery(input));
+	const { text, fileName } = await touchstoneAs(
+		apiActor(event),
+		event.params.id!,
+		event.url,
+		readTouchstoneQuery(input)
+	);
 	return fileResponse(text, 'text/plain; charset=us-ascii', fileName);
 }
 

@@ -6,7 +6,9 @@ import { fileResponse } from '$lib/server/exchange/serve';
 
 export const GET = endpoint(async (event) => {
 	const a = await attachmentFileAs(apiActor(event), event.params.id!, event.params.attachmentId!);
-	return fileResponse(a.data, a.contentType, a.fileName, { inline: event.url.searchParams.get('inline') === '1' });
+	return fileResponse(a.data, a.contentType, a.fileName, {
+		inline: event.url.searchParams.get('inline') === '1'
+	});
 });
 
 export const DELETE = endpoint(async (event) => {

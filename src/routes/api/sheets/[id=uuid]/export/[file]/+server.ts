@@ -7,8 +7,21 @@ import { revisionAnalysis, revisionFromQuery } from '$lib/server/exchange/stored
 
 export const GET = endpoint(async (event) => {
 	const table = event.params.file!.replace(/\.csv$/, '') as ResultTable;
-	if (!event.params.file!.endsWith('.csv') || !RESULT_TABLES.includes(table)) throw new ApiProblem(404, `No such export; try ${RESULT_TABLES.map((t) => `${t}.csv`).join(', ')}.`);
-	const { sheet, revision } = await revisionFromQuery(apiActor(event), event.params.id!, event.url, 'analyze');
+	if (!event.params.file!.endsWith('.csv') || !RESULT_TABLES.includes(table))
+		throw new ApiProblem(
+			404,
+			`No such export; try ${RESULT_TABLES.map((t) => `${t}.csv`).join(', ')}.`
+		);
+	const { sheet, revision } = await revisionFromQuery(
+		apiActor(event),
+		event.params.id!,
+		event.url,
+		'analyze'
+	);
 	const analysis = await revisionAnalysis(revision.document, revision.number);
-	return fileResponse(resultsCsv(analysis, table), 'text/csv; charset=utf-8', `${fileStem(sheet.name)}-r${revision.number}-${table}.csv`);
+	return fileResponse(
+		resultsCsv(analysis, table),
+		'text/csv; charset=utf-8',
+		`${fileStem(sheet.name)}-r${revision.number}-${table}.csv`
+	);
 });

@@ -4,6 +4,10 @@ import { measurementFileAs } from '$lib/server/exchange/measurement-actions';
 import { fileResponse } from '$lib/server/exchange/serve';
 
 export const GET = endpoint(async (event) => {
-	const { fileName, source } = await measurementFileAs(apiActor(event), event.params.id!, event.params.measurementId!);
+	const { fileName, source } = await measurementFileAs(
+		apiActor(event),
+		event.params.id!,
+		event.params.measurementId!
+	);
 	return fileResponse(source, 'text/csv; charset=utf-8', fileName);
 });
