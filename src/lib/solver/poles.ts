@@ -1,7 +1,14 @@
 import type { Assembled } from './assemble';
 import { polePencil, polish, zeroPencil, type Pencil } from './polish';
 import type { PortModel } from './port-model';
-import { poleMatrix, spectrum, vectorsFor, zeroMatrix, type Spectrum } from './spectrum';
+import {
+	poleMatrix,
+	spectrum,
+	symmetricSpectrum,
+	vectorsFor,
+	zeroMatrix,
+	type Spectrum
+} from './spectrum';
 import type { EigenPair } from './eigenvectors';
 
 export interface Root {
@@ -50,7 +57,7 @@ function refine(sp: Spectrum, pencil: () => Pencil, withVectors: boolean): Root[
 			re = 0;
 			im = 0;
 		}
-		const vectors = withVectors ? vectorsFor(sp, r.muRe, r.muIm) : null;
+		const vectors = withVectors ? (r.vectors ?? vectorsFor(sp, r.muRe, r.muIm)) : null;
 		roots.push({ re, im, muRe: r.muRe, muIm: r.muIm, partner: -1, vectors });
 		if (r.im > 0) {
 			const conj: Root = {
@@ -75,7 +82,8 @@ function refine(sp: Spectrum, pencil: () => Pencil, withVectors: boolean): Root[
 
 /** Natural frequencies with their right/left eigenvectors in port (charge/flux) coordinates. */
 export function computePoles(a: Assembled, pm: PortModel): { roots: Root[]; sp: Spectrum } {
-	const sp = spectrum(poleMatrix(pm), pm.m, pm.s0);
+	const sp =
+		(isReciprocal(a) ? symmetricSpectrum(pm) : null) ?? spectrum(poleMatrix(pm), pm.m, pm.s0);
 	return { roots: refine(sp, () => polePencil(a), true), sp };
 }
 
@@ -87,4 +95,16 @@ export function computeZeros(a: Assembled, pm: PortModel): Root[] | null {
 	if (scale === 0 || Math.abs(pm.h0) <= 1e-13 * scale) return null;
 	const sp = spectrum(zeroMatrix(pm), pm.m, pm.s0, false);
 	return refine(sp, () => zeroPencil(a), false);
+}
+
+/**
+ * Modified nodal equations are symmetric when the network is reciprocal (no controlled source or
+ * op-amp; V sources and branches stamp symmetrically): then H = Pᵀ(G + s0·C)⁻¹P is symmetric
+ * and, with every d > 0 (capacitors), the symmetric eigen path applies (spectrum.ts).
+ */
+function isReciprocal(a: Assembled): boolean {
+	const n = a.size;
+	for (let i = 0; i < n; i++)
+		for (let j = i + 1; j < n; j++) if (a.g[i * n + j] !== a.g[j * n + i]) return false;
+	return true;
 }

@@ -1,6 +1,7 @@
 import { hessenberg, hqr, type Hessenberg } from './eigen';
 import { eigenvectors, type EigenPair } from './eigenvectors';
 import type { PortModel } from './port-model';
+import { symmetricEigen } from './symmetric-eigen';
 
 /**
  * Eigenvalues μ of a shifted port matrix, mapped to natural frequencies s = s0 − 1/μ.
@@ -13,9 +14,10 @@ import type { PortModel } from './port-model';
 export const INFINITE_MU = 1e-12;
 
 export interface Spectrum {
-	hs: Hessenberg;
-	/** Kept eigenvalues (finite s), with their μ. */
-	s: { re: number; im: number; muRe: number; muIm: number }[];
+	/** Hessenberg form for inverse iteration; null on the symmetric path (vectors are in `s`). */
+	hs: Hessenberg | null;
+	/** Kept eigenvalues (finite s), with their μ (and their vectors on the symmetric path). */
+	s: { re: number; im: number; muRe: number; muIm: number; vectors?: EigenPair }[];
 	/** All μ, for the frequency-response solves. */
 	mu: { re: Float64Array; im: Float64Array };
 	s0: number;
@@ -46,7 +48,62 @@ export function spectrum(M: Float64Array, m: number, s0: number, wantVectors = t
 }
 
 export function vectorsFor(sp: Spectrum, muRe: number, muIm: number): EigenPair {
+	if (!sp.hs) throw new Error('symmetric spectrum: vectors come with the eigenvalues');
 	return eigenvectors(sp.hs, muRe, muIm);
+}
+
+/**
+ * The symmetric path for reciprocal networks with every d > 0 (RC networks): the pole matrix
+ * M = D·H is similar to S = D^½·H·D^½, symmetric when H is. For S v = μ v the right and left
+ * eigenvectors of M are x = D^½ v and y = D^-½ v (yᵀx = 1), so participation x_k·y_k is v_k².
+ * H is symmetrized by averaging: for a reciprocal network its asymmetry is factorization
+ * round-off, and the average is at least as close to the exact matrix. Null when it does not
+ * apply or the iteration fails (the caller takes the general path).
+ */
+export function symmetricSpectrum(pm: PortModel): Spectrum | null {
+	const m = pm.m;
+	const { d, H } = pm;
+	for (let i = 0; i < m; i++) if (!(d[i] > 0) || !Number.isFinite(d[i])) return null;
+	const r = new Float64Array(m);
+	for (let i = 0; i < m; i++) r[i] = Math.sqrt(d[i]);
+	const S = new Float64Array(m * m);
+	for (let i = 0; i < m; i++) {
+		for (let j = i; j < m; j++) {
+			const v = 0.5 * (H[i * m + j] + H[j * m + i]) * r[i] * r[j];
+			S[i * m + j] = v;
+			S[j * m + i] = v;
+		}
+	}
+	const eig = symmetricEigen(S, m);
+	if (!eig) return null;
+	const muRe = eig.values;
+	const mu = { re: Float64Array.from(muRe), im: new Float64Array(m) };
+	let max = 0;
+	for (let i = 0; i < m; i++) max = Math.max(max, Math.abs(muRe[i]));
+	const s: Spectrum['s'] = [];
+	for (let k = 0; k < m; k++) {
+		const a = muRe[k];
+		if (!(Math.abs(a) > INFINITE_MU * max)) continue;
+		const xr = new Float64Array(m);
+		const yr = new Float64Array(m);
+		let mx = 0;
+		let my = 0;
+		for (let i = 0; i < m; i++) {
+			const v = eig.vectors[k * m + i];
+			xr[i] = r[i] * v;
+			yr[i] = v / r[i];
+			mx = Math.max(mx, Math.abs(xr[i]));
+			my = Math.max(my, Math.abs(yr[i]));
+		}
+		// Same scaling as the general path: largest entry 1 in each vector.
+		for (let i = 0; i < m; i++) {
+			xr[i] /= mx;
+			yr[i] /= my;
+		}
+		const vectors = { xr, xi: new Float64Array(m), yr, yi: new Float64Array(m) };
+		s.push({ re: pm.s0 - 1 / a, im: 0, muRe: a, muIm: 0, vectors });
+	}
+	return { hs: null, s, mu, s0: pm.s0 };
 }
 
 /** The port model's pole matrix D·H. */
