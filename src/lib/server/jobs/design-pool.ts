@@ -1,31 +1,16 @@
 // The worker-thread pool for the design aids: separate from the analysis pool so a ten-thousand
 // run tolerance job never queues the editor's live analyses behind it. Built: the bundled
 // build/workers/design.worker.mjs; dev and tests: the TypeScript source through tsx.
-import { existsSync } from 'node:fs';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
+import { workerFile } from './worker-file';
 import type { DesignOutcome, DesignTask } from '../workers/design.worker';
 import { ApiProblem } from '../api/respond';
 
 let pool: Piscina | null = null;
 
-function workerFile(): { filename: string; execArgv: string[] } {
-	const here = path.dirname(fileURLToPath(import.meta.url));
-	const source = path.join(here, '..', 'workers', 'design.worker.ts');
-	if (existsSync(source)) return { filename: source, execArgv: ['--import', 'tsx'] };
-	let dir = here;
-	for (let i = 0; i < 10; i++) {
-		const candidate = path.join(dir, 'workers', 'design.worker.mjs');
-		if (existsSync(candidate)) return { filename: candidate, execArgv: [] };
-		dir = path.dirname(dir);
-	}
-	throw new Error('design worker not found: run `npm run build` (it bundles build/workers)');
-}
-
 export function designPool(): Piscina {
 	if (!pool) {
-		const { filename, execArgv } = workerFile();
+		const { filename, execArgv } = workerFile('design', import.meta.url);
 		// One thread by default: design requests are rarer than analyses, and a 2-core machine
 		// must keep a core for the server and the analysis pool.
 		pool = new Piscina({ filename, execArgv, minThreads: 1, maxThreads: Number(process.env.DESIGN_THREADS ?? 1), idleTimeout: 60_000, maxQueue: 32 });
