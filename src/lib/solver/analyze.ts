@@ -1,5 +1,5 @@
 import { byMagnitude, singularity } from './singularity';
-import { computePoles, computeZeros, type Root } from './poles';
+import { computePoles, computeZeros, zerosReducible, type Root } from './poles';
 import { dcInputImpedance, impedanceFromReading } from './input-impedance';
 import { evalModal, modalForm, relativeDegree } from './modal';
 import { expansion } from './expansion';
@@ -68,19 +68,21 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		const { a, pm, s0 } = shiftedModel(net, oc, sc);
 		elementsOfPorts = pm.elements;
 		({ roots } = computePoles(a, pm));
+		md = modalForm(pm, roots, 'transfer');
+		mdZ = modalForm(pm, roots, 'zin');
+		// Keep as many zeros as the relative degree allows, the ones nearest the shift first:
+		// the rest are infinite zeros that rounding pushed to enormous finite values.
+		const count = Math.max(0, roots.length - relativeDegree(md, pm.h0));
 		let zpm = pm;
-		let z = computeZeros(a, pm);
+		// With every port mode finite the modal form is exact, so no finite zero means the zero
+		// eigenproblem would only return values that the count below discards (an RC ladder).
+		let z = count === 0 && roots.length === pm.m && zerosReducible(pm) ? [] : computeZeros(a, pm);
 		for (const f of [3.7, 0.21, 17]) {
 			if (z) break;
 			zpm = portModelFrom(a, s0 * f);
 			if (zpm.pivotRatio > 1e-13) z = computeZeros(a, zpm);
 		}
-		md = modalForm(pm, roots, 'transfer');
-		mdZ = modalForm(pm, roots, 'zin');
 		if (z) {
-			// Keep as many zeros as the relative degree allows, the ones nearest the shift first:
-			// the rest are infinite zeros that rounding pushed to enormous finite values.
-			const count = Math.max(0, roots.length - relativeDegree(md, pm.h0));
 			const byMu = z
 				.map((r, i) => ({ i, mu: Math.hypot(r.muRe, r.muIm) }))
 				.sort((x, y) => y.mu - x.mu);

@@ -89,10 +89,7 @@ export function computePoles(a: Assembled, pm: PortModel): { roots: Root[]; sp: 
 
 /** Transmission zeros; `null` when H(s0) = 0 so the reduction does not apply at this shift. */
 export function computeZeros(a: Assembled, pm: PortModel): Root[] | null {
-	let scale = Math.abs(pm.h0);
-	for (let i = 0; i < pm.m; i++)
-		scale = Math.max(scale, Math.abs(pm.g[i] * pm.h[i] * pm.d[i] * pm.s0));
-	if (scale === 0 || Math.abs(pm.h0) <= 1e-13 * scale) return null;
+	if (!zerosReducible(pm)) return null;
 	const sp = spectrum(zeroMatrix(pm), pm.m, pm.s0, false);
 	return refine(sp, () => zeroPencil(a), false);
 }
@@ -107,4 +104,12 @@ function isReciprocal(a: Assembled): boolean {
 	for (let i = 0; i < n; i++)
 		for (let j = i + 1; j < n; j++) if (a.g[i * n + j] !== a.g[j * n + i]) return false;
 	return true;
+}
+
+/** Whether H(s0) is clearly non-zero, so the zero matrix D·(H − h g / h0) exists at this shift. */
+export function zerosReducible(pm: PortModel): boolean {
+	let scale = Math.abs(pm.h0);
+	for (let i = 0; i < pm.m; i++)
+		scale = Math.max(scale, Math.abs(pm.g[i] * pm.h[i] * pm.d[i] * pm.s0));
+	return scale !== 0 && Math.abs(pm.h0) > 1e-13 * scale;
 }
