@@ -36,6 +36,14 @@ export function pzForm(
 	return { logK, argK, poles, zeros };
 }
 
+/**
+ * log|x| for x = a + jb as ½·log(a² + b²), which is several times cheaper than log(hypot(a, b));
+ * hypot takes over only where the square would overflow or underflow.
+ */
+function logAbs(a: number, b: number, q: number): number {
+	return q > 1e-300 && q < 1e300 ? 0.5 * Math.log(q) : Math.log(Math.hypot(a, b));
+}
+
 export function evalPz(pz: PzForm, w: number): { logMag: number; arg: number; groupDelay: number } {
 	let logMag = pz.logK;
 	let arg = pz.argK;
@@ -43,18 +51,36 @@ export function evalPz(pz: PzForm, w: number): { logMag: number; arg: number; gr
 	for (const z of pz.zeros) {
 		const a = -z.re;
 		const b = w - z.im;
-		logMag += Math.log(Math.hypot(a, b));
+		const q = a * a + b * b;
+		logMag += logAbs(a, b, q);
 		arg += Math.atan2(b, a);
-		gd -= a / (a * a + b * b);
+		gd -= a / q;
 	}
 	for (const p of pz.poles) {
 		const a = -p.re;
 		const b = w - p.im;
-		logMag -= Math.log(Math.hypot(a, b));
+		const q = a * a + b * b;
+		logMag -= logAbs(a, b, q);
 		arg -= Math.atan2(b, a);
-		gd += a / (a * a + b * b);
+		gd += a / q;
 	}
 	return { logMag, arg, groupDelay: gd };
+}
+
+/** log|H(jω)| alone (no phase, no delay), for searches such as the bandwidth. */
+export function logMagPz(pz: PzForm, w: number): number {
+	let logMag = pz.logK;
+	for (const z of pz.zeros) {
+		const a = -z.re;
+		const b = w - z.im;
+		logMag += logAbs(a, b, a * a + b * b);
+	}
+	for (const p of pz.poles) {
+		const a = -p.re;
+		const b = w - p.im;
+		logMag -= logAbs(a, b, a * a + b * b);
+	}
+	return logMag;
 }
 
 /** Log-spaced frequencies in Hz. */

@@ -11,6 +11,10 @@ export interface RealLU {
 	rs: Float64Array;
 	/** Smallest |pivot| of the equilibrated matrix: a cheap singularity indicator. */
 	pivotRatio: number;
+	/** Per row: first column of L's non-zeros (row i of L spans lo[i] … i − 1). */
+	lo: Int32Array;
+	/** Per row: one past the last column of U's non-zeros (row i of U spans i … hi[i] − 1). */
+	hi: Int32Array;
 }
 
 export function luFactor(a: Float64Array, n: number): RealLU {
@@ -24,6 +28,14 @@ export function luFactor(a: Float64Array, n: number): RealLU {
 		for (let j = 0; j < n; j++) mx = Math.max(mx, Math.abs(lu[i * n + j]));
 		rs[i] = mx > 0 ? 1 / mx : 1;
 		for (let j = 0; j < n; j++) lu[i * n + j] *= rs[i];
+	}
+	// Network matrices are banded or nearly so: each row's non-zero extent is tracked through the
+	// elimination (a row update extends it to the pivot row's), so work and solves skip the zeros.
+	const hi = new Int32Array(n);
+	for (let i = 0; i < n; i++) {
+		let j = n;
+		while (j > i && lu[i * n + j - 1] === 0) j--;
+		hi[i] = Math.max(j, i + 1);
 	}
 	let minPivot = Infinity;
 	for (let k = 0; k < n; k++) {
@@ -43,21 +55,32 @@ export function luFactor(a: Float64Array, n: number): RealLU {
 				lu[k * n + j] = lu[p * n + j];
 				lu[p * n + j] = t;
 			}
+			const h = hi[k];
+			hi[k] = hi[p];
+			hi[p] = h;
 		}
 		minPivot = Math.min(minPivot, best);
 		const d = lu[k * n + k];
 		if (d === 0) continue;
 		const rowK = k * n;
+		const end = hi[k];
 		for (let i = k + 1; i < n; i++) {
 			const rowI = i * n;
 			const f = lu[rowI + k] / d;
 			if (f === 0) continue;
 			lu[rowI + k] = f;
-			for (let j = k + 1; j < n; j++) lu[rowI + j] -= f * lu[rowK + j];
+			for (let j = k + 1; j < end; j++) lu[rowI + j] -= f * lu[rowK + j];
+			if (hi[i] < end) hi[i] = end;
 		}
 	}
+	const lo = new Int32Array(n);
+	for (let i = 0; i < n; i++) {
+		let j = 0;
+		while (j < i && lu[i * n + j] === 0) j++;
+		lo[i] = j;
+	}
 	const pivotRatio = n === 0 ? 1 : minPivot;
-	return { n, lu, piv, rs, pivotRatio };
+	return { n, lu, piv, rs, pivotRatio, lo, hi };
 }
 
 /** Solves in place: b becomes x. */
@@ -72,16 +95,17 @@ export function luSolve(f: RealLU, b: Float64Array): Float64Array {
 			b[p] = t;
 		}
 	}
+	const { lo, hi } = f;
 	for (let i = 1; i < n; i++) {
 		let s = b[i];
 		const row = i * n;
-		for (let j = 0; j < i; j++) s -= lu[row + j] * b[j];
+		for (let j = lo[i]; j < i; j++) s -= lu[row + j] * b[j];
 		b[i] = s;
 	}
 	for (let i = n - 1; i >= 0; i--) {
 		let s = b[i];
 		const row = i * n;
-		for (let j = i + 1; j < n; j++) s -= lu[row + j] * b[j];
+		for (let j = i + 1, e = hi[i]; j < e; j++) s -= lu[row + j] * b[j];
 		b[i] = s / lu[row + i];
 	}
 	return b;

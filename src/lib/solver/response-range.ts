@@ -1,4 +1,4 @@
-import { evalPz, type PzForm } from './frequency-response';
+import { logMagPz, type PzForm } from './frequency-response';
 import type { Root } from './poles';
 
 /** Two decades beyond the extreme finite, non-zero singularities; 1 Hz–1 MHz when there are none. */
@@ -30,7 +30,7 @@ export function bandwidth(
 	range: { fMin: number; fMax: number }
 ): number | null {
 	if (dcGain === 0 || dcGain === null) return null;
-	const logAt = (f: number) => evalPz(pz, 2 * Math.PI * f).logMag;
+	const logAt = (f: number) => logMagPz(pz, 2 * Math.PI * f);
 	const ref = Math.log(Math.abs(dcGain));
 	const target = ref - 0.5 * Math.log(2);
 	const n = 400;
