@@ -1,3 +1,5 @@
+import { bandOrder } from './band-order';
+
 /**
  * Dense LU with partial pivoting on flat Float64Arrays (row-major). ml-matrix's Matrix keeps
  * rows as arrays behind get/set calls, which costs an order of magnitude on the n = 1000
@@ -15,10 +17,18 @@ export interface RealLU {
 	lo: Int32Array;
 	/** Per row: one past the last column of U's non-zeros (row i of U spans i … hi[i] − 1). */
 	hi: Int32Array;
+	/** Symmetric renumbering the factors are in (q[new] = old), or null for the given order. */
+	q: Int32Array | null;
+	work: Float64Array;
 }
 
-export function luFactor(a: Float64Array, n: number): RealLU {
-	const lu = a.slice();
+/**
+ * `band`: renumber unknowns first (band-order.ts) so a network matrix factors as a narrow band;
+ * solves take and return vectors in the original numbering either way.
+ */
+export function luFactor(a: Float64Array, n: number, band = false): RealLU {
+	const q = band ? bandOrder(a, n) : null;
+	const lu = q ? permuted(a, n, q) : a.slice();
 	const piv = new Int32Array(n);
 	// Node rows are in siemens and branch rows are dimensionless; equilibrating the rows makes
 	// one pivot threshold mean the same thing for a 1 TΩ leakage path and an op-amp branch.
@@ -80,11 +90,29 @@ export function luFactor(a: Float64Array, n: number): RealLU {
 		lo[i] = j;
 	}
 	const pivotRatio = n === 0 ? 1 : minPivot;
-	return { n, lu, piv, rs, pivotRatio, lo, hi };
+	return { n, lu, piv, rs, pivotRatio, lo, hi, q, work: new Float64Array(q ? n : 0) };
+}
+
+function permuted(a: Float64Array, n: number, q: Int32Array): Float64Array {
+	const out = new Float64Array(n * n);
+	for (let i = 0; i < n; i++) {
+		const row = q[i] * n;
+		for (let j = 0; j < n; j++) out[i * n + j] = a[row + q[j]];
+	}
+	return out;
 }
 
 /** Solves in place: b becomes x. */
 export function luSolve(f: RealLU, b: Float64Array): Float64Array {
+	if (!f.q) return solveInOrder(f, b);
+	const { q, work, n } = f;
+	for (let i = 0; i < n; i++) work[i] = b[q[i]];
+	solveInOrder(f, work);
+	for (let i = 0; i < n; i++) b[q[i]] = work[i];
+	return b;
+}
+
+function solveInOrder(f: RealLU, b: Float64Array): Float64Array {
 	const { n, lu, piv, rs } = f;
 	for (let i = 0; i < n; i++) b[i] *= rs[i];
 	for (let k = 0; k < n; k++) {
@@ -113,6 +141,15 @@ export function luSolve(f: RealLU, b: Float64Array): Float64Array {
 
 /** Solves Aᵀ x = b in place with the same factors (used for output functionals). */
 export function luSolveTransposed(f: RealLU, b: Float64Array): Float64Array {
+	if (!f.q) return solveTransposedInOrder(f, b);
+	const { q, work, n } = f;
+	for (let i = 0; i < n; i++) work[i] = b[q[i]];
+	solveTransposedInOrder(f, work);
+	for (let i = 0; i < n; i++) b[q[i]] = work[i];
+	return b;
+}
+
+function solveTransposedInOrder(f: RealLU, b: Float64Array): Float64Array {
 	const { n, lu, piv, rs } = f;
 	for (let i = 0; i < n; i++) {
 		let s = b[i];

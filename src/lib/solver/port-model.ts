@@ -43,7 +43,7 @@ export function portModelFrom(a: Assembled, s0: number): PortModel {
 			for (const [r, x] of p.vec) for (const [c, y] of p.vec) mat[r * n + c] += s0 * p.d * x * y;
 		}
 	}
-	const lu = luFactor(mat, n);
+	const lu = luFactor(mat, n, true);
 	const model: PortModel = {
 		m,
 		s0,
