@@ -26,7 +26,9 @@ test('10pp is refused inline and never reaches the analysis', async ({ page }) =
 	const value = page.getByRole('region', { name: 'Properties' }).getByLabel(/Capacitance/);
 	await value.fill('10pp');
 	await expect(value).toHaveAttribute('aria-invalid', 'true');
-	await expect(page.getByRole('region', { name: 'Properties' })).toContainText('is not a number with an SI prefix');
+	await expect(page.getByRole('region', { name: 'Properties' })).toContainText(
+		'is not a number with an SI prefix'
+	);
 	await expect(analysis(page)).toHaveAttribute('data-analysis-status', 'blocked');
 	await expect(analysis(page)).toContainText('C1:');
 	await expect(node(page, 'C1')).toContainText('⚠');
@@ -37,7 +39,15 @@ test('10pp is refused inline and never reaches the analysis', async ({ page }) =
 	await value.fill('10p');
 	await expect(analysis(page)).toHaveAttribute('data-analysis-status', 'done');
 	expect(posted).toHaveLength(1);
-	expect(JSON.parse(posted[0]).elements.find((e: { id: string }) => e.id === 'C1').value).toBe('10p');
-	const hz = Number(await page.getByRole('table', { name: 'Poles' }).getByTestId('pole-hz').first().getAttribute('data-hz'));
+	expect(JSON.parse(posted[0]).elements.find((e: { id: string }) => e.id === 'C1').value).toBe(
+		'10p'
+	);
+	const hz = Number(
+		await page
+			.getByRole('table', { name: 'Poles' })
+			.getByTestId('pole-hz')
+			.first()
+			.getAttribute('data-hz')
+	);
 	expect(Math.abs(hz - 1 / (2 * Math.PI * 1e3 * 10e-12)) / hz).toBeLessThan(1e-6);
 });

@@ -14,7 +14,9 @@ const RC = {
 	output: { node: 'out', reference: 'gnd' }
 };
 
-test('a stale save shows the conflict banner; saving mine on top loses nothing', async ({ browser }) => {
+test('a stale save shows the conflict banner; saving mine on top loses nothing', async ({
+	browser
+}) => {
 	test.setTimeout(60_000);
 	const ctxA = await browser.newContext();
 	const ctxB = await browser.newContext();
@@ -42,7 +44,8 @@ test('a stale save shows the conflict banner; saving mine on top loses nothing',
 	// Both edits survive in the history: revision 2 is A's, revision 3 is B's.
 	const r2 = await (await b.request.get(`/api/sheets/${id}/revisions/2`)).json();
 	const r3 = await (await b.request.get(`/api/sheets/${id}/revisions/3`)).json();
-	const value = (r: { revision: { document: typeof RC } }, el: string) => r.revision.document.elements.find((e) => e.id === el)!.value;
+	const value = (r: { revision: { document: typeof RC } }, el: string) =>
+		r.revision.document.elements.find((e) => e.id === el)!.value;
 	expect(value(r2, 'R1')).toBe('2k');
 	expect(value(r3, 'C1')).toBe('22n');
 	await expect(node(b, 'C1')).toContainText('22 nF');

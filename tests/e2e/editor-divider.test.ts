@@ -1,7 +1,19 @@
 // Acceptance: the 10:1 divider is drawn from an empty sheet with the mouse, its values typed,
 // input and output marked, and the pole table read back against the closed form.
 import { expect, test } from '@playwright/test';
-import { analysis, dropPart, newSheet, node, nodeOfKind, openSheet, poleHz, setValue, signUpFresh, terminal, wire } from './editor-helpers';
+import {
+	analysis,
+	dropPart,
+	newSheet,
+	node,
+	nodeOfKind,
+	openSheet,
+	poleHz,
+	setValue,
+	signUpFresh,
+	terminal,
+	wire
+} from './editor-helpers';
 
 const EMPTY = { schema: 1, elements: [], input: 'none', output: { node: 'gnd', reference: 'gnd' } };
 
@@ -23,6 +35,7 @@ function dividerPolesHz(Rs: number, Rt: number, Ct: number, Ri: number, Ci: numb
 
 test('draw the 10:1 divider from an empty sheet and read its exact poles', async ({ page }) => {
 	test.setTimeout(90_000);
+	await page.setViewportSize({ width: 1440, height: 1000 });
 	await signUpFresh(page);
 	await openSheet(page, await newSheet(page, EMPTY, 'Divider from scratch'));
 	await expect(analysis(page)).toContainText('the sheet is empty');
@@ -45,17 +58,23 @@ test('draw the 10:1 divider from an empty sheet and read its exact poles', async
 	const t = (n: string, k: string) => terminal(page, node(page, n), k);
 	const gnd = terminal(page, nodeOfKind(page, 'GND'), 'g');
 	const out = terminal(page, nodeOfKind(page, 'PROBE'), 'pos');
-	await wire(page, t('V1', 'p'), t('R1', 'a'));
-	await wire(page, t('R1', 'b'), t('R2', 'a'));
-	await wire(page, t('R1', 'b'), t('C1', 'a'));
-	await wire(page, t('R2', 'b'), t('C1', 'b'));
-	await wire(page, t('C1', 'b'), t('R3', 'a'));
-	await wire(page, t('R3', 'a'), t('C2', 'a'));
-	await wire(page, t('C2', 'a'), out);
-	await wire(page, t('V1', 'n'), gnd);
-	await wire(page, t('R3', 'b'), gnd);
-	await wire(page, t('C2', 'b'), gnd);
-	await expect(page.locator('.svelte-flow__edge')).toHaveCount(10);
+	const wires: [ReturnType<typeof t>, ReturnType<typeof t>][] = [
+		[t('V1', 'p'), t('R1', 'a')],
+		[t('R1', 'b'), t('R2', 'a')],
+		[t('R1', 'b'), t('C1', 'a')],
+		[t('R2', 'b'), t('C1', 'b')],
+		[t('C1', 'b'), t('R3', 'a')],
+		[t('R3', 'a'), t('C2', 'a')],
+		[t('C2', 'a'), out],
+		[t('V1', 'n'), gnd],
+		[t('R3', 'b'), gnd],
+		[t('C2', 'b'), gnd]
+	];
+	await page.screenshot({ path: 'test-results/editor-divider-placed.png' });
+	for (const [k, [from, to]] of wires.entries()) {
+		await wire(page, from, to);
+		await expect(page.locator('.svelte-flow__edge'), `wire ${k + 1}`).toHaveCount(k + 1);
+	}
 
 	await setValue(page, 'R1', '50');
 	await setValue(page, 'R2', '9M');
@@ -78,5 +97,7 @@ test('draw the 10:1 divider from an empty sheet and read its exact poles', async
 	expect(Number(expected[0].toPrecision(4))).toBe(1768);
 	for (const [i, f] of expected.entries()) expect(Math.abs(shown[i] - f) / f).toBeLessThan(1e-6);
 	// The owners: the slow pole belongs mostly to C2 (the 90 pF), the fast one to C1.
-	await expect(page.getByRole('table', { name: 'Poles' }).locator('tbody tr').first()).toContainText('C2');
+	await expect(
+		page.getByRole('table', { name: 'Poles' }).locator('tbody tr').first()
+	).toContainText('C2');
 });

@@ -2,7 +2,10 @@
 // JSON API, and gestures on the canvas (drag from the parts list, wire two terminals).
 import { expect, type Page } from '@playwright/test';
 
-export async function signUpFresh(page: Page, name = 'Oda Lindqvist'): Promise<{ email: string; password: string }> {
+export async function signUpFresh(
+	page: Page,
+	name = 'Oda Lindqvist'
+): Promise<{ email: string; password: string }> {
 	const email = `editor-${Date.now()}-${Math.random().toString(36).slice(2, 7)}@example.test`;
 	const password = 'divider test password 42';
 	await page.goto('/sign-up');
@@ -23,33 +26,50 @@ export async function signIn(page: Page, email: string, password: string) {
 }
 
 /** A workspace and a sheet holding `document`, made through the API as the signed-in user. */
-export async function newSheet(page: Page, document: unknown, name = 'Editor test sheet'): Promise<string> {
+export async function newSheet(
+	page: Page,
+	document: unknown,
+	name = 'Editor test sheet'
+): Promise<string> {
 	const ws = await page.request.post('/api/workspaces', { data: { name: `Bench ${Date.now()}` } });
 	expect(ws.status()).toBe(201);
 	const { workspace } = await ws.json();
-	const sh = await page.request.post(`/api/workspaces/${workspace.id}/sheets`, { data: { name, document } });
+	const sh = await page.request.post(`/api/workspaces/${workspace.id}/sheets`, {
+		data: { name, document }
+	});
 	expect(sh.status()).toBe(201);
 	return (await sh.json()).sheet.id;
 }
 
 export async function openSheet(page: Page, id: string) {
 	await page.goto(`/sheets/${id}`);
-	await expect(page.getByRole('application', { name: 'Schematic canvas' })).toBeVisible();
+	await expect(
+		page.getByRole('application', { name: 'Schematic canvas', exact: true })
+	).toBeVisible();
 	await expect(page.locator('.svelte-flow__viewport')).toBeVisible();
 }
 
-export const node = (page: Page, name: string) => page.locator('.svelte-flow__node', { has: page.locator(`[data-name="${name}"]`) });
-export const nodeOfKind = (page: Page, kind: string) => page.locator('.svelte-flow__node', { has: page.locator(`[data-kind="${kind}"]`) });
-export const terminal = (page: Page, nodeLocator: ReturnType<typeof node>, t: string) => nodeLocator.locator(`.svelte-flow__handle[data-handleid="${t}"]`);
+export const node = (page: Page, name: string) =>
+	page.locator('.svelte-flow__node', { has: page.locator(`[data-name="${name}"]`) });
+export const nodeOfKind = (page: Page, kind: string) =>
+	page.locator('.svelte-flow__node', { has: page.locator(`[data-kind="${kind}"]`) });
+export const terminal = (page: Page, nodeLocator: ReturnType<typeof node>, t: string) =>
+	nodeLocator.locator(`.svelte-flow__handle[data-handleid="${t}"]`);
 
 /** Drag a part from the parts list onto the canvas at (x, y) relative to the canvas' top-left. */
 export async function dropPart(page: Page, title: string, x: number, y: number) {
-	const canvas = page.getByRole('application', { name: 'Schematic canvas' });
-	await page.getByRole('button', { name: `Place ${title}` }).dragTo(canvas, { targetPosition: { x, y } });
+	const canvas = page.getByRole('application', { name: 'Schematic canvas', exact: true });
+	await page
+		.getByRole('button', { name: `Place ${title}` })
+		.dragTo(canvas, { targetPosition: { x, y } });
 }
 
 /** Draw a wire: press on one terminal, move, release on the other. */
-export async function wire(page: Page, from: ReturnType<typeof terminal>, to: ReturnType<typeof terminal>) {
+export async function wire(
+	page: Page,
+	from: ReturnType<typeof terminal>,
+	to: ReturnType<typeof terminal>
+) {
 	const a = (await from.boundingBox())!;
 	const b = (await to.boundingBox())!;
 	await page.mouse.move(a.x + a.width / 2, a.y + a.height / 2);
@@ -66,10 +86,12 @@ export async function setValue(page: Page, name: string, value: string) {
 	await field.fill(value);
 }
 
-export const analysis = (page: Page) => page.getByRole('region', { name: 'Analysis' });
+export const analysis = (page: Page) => page.getByRole('region', { name: 'Analysis', exact: true });
 
 /** Hz of each exact pole in the pole table, smallest first. */
 export async function poleHz(page: Page): Promise<number[]> {
 	const cells = page.getByRole('table', { name: 'Poles' }).getByTestId('pole-hz');
-	return (await cells.evaluateAll((els) => els.map((e) => Number(e.getAttribute('data-hz'))))) as number[];
+	return (await cells.evaluateAll((els) =>
+		els.map((e) => Number(e.getAttribute('data-hz')))
+	)) as number[];
 }

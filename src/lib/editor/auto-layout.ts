@@ -72,7 +72,10 @@ export function autoLayout(doc: NetworkDocument): Snapshot {
 		}
 	}
 	const slots = (n: string) =>
-		(hanging.get(n) ?? []).reduce((s, e) => s + (KINDS[e.type].width > 40 && e.nodes.length > 2 ? 2 : 1), 0);
+		(hanging.get(n) ?? []).reduce(
+			(s, e) => s + (KINDS[e.type].width > 40 && e.nodes.length > 2 ? 2 : 1),
+			0
+		);
 	const maxCol = Math.max(0, ...col.values());
 	const colX: number[] = [];
 	let x = 0;
@@ -85,7 +88,13 @@ export function autoLayout(doc: NetworkDocument): Snapshot {
 
 	const items: EditorItem[] = [];
 	const placed: Placed[] = [];
-	const add = (e: (typeof elements)[number], px: number, py: number, rotation: Rotation, flip = false) => {
+	const add = (
+		e: (typeof elements)[number],
+		px: number,
+		py: number,
+		rotation: Rotation,
+		flip = false
+	) => {
 		const item: EditorItem = {
 			id: `it-${items.length + 1}`,
 			kind: e.type,
@@ -128,14 +137,23 @@ export function autoLayout(doc: NetworkDocument): Snapshot {
 			slot += e.nodes.length > 2 ? 2 : 1;
 			if (e.type === 'OPAMP') add(e, px, p.y - 40, 0);
 			else if (e.nodes.length === 4) add(e, px, p.y, ns[0] === 'gnd' ? 180 : 0);
-			else if (KINDS[e.type].height > KINDS[e.type].width) add(e, px, p.y, ns[0] === 'gnd' ? 180 : 0);
+			else if (KINDS[e.type].height > KINDS[e.type].width)
+				add(e, px, p.y, ns[0] === 'gnd' ? 180 : 0);
 			else add(e, px - 20, p.y + 20, ns[0] === 'gnd' ? 270 : 90);
 		}
 	}
-	return { title: doc.title ?? '', ...wireUp(items, placed, doc), input: items.find((i) => i.name === doc.input)?.id ?? null };
+	return {
+		title: doc.title ?? '',
+		...wireUp(items, placed, doc),
+		input: items.find((i) => i.name === doc.input)?.id ?? null
+	};
 }
 
-function wireUp(items: EditorItem[], placed: Placed[], doc: NetworkDocument): { items: EditorItem[]; wires: Wire[] } {
+function wireUp(
+	items: EditorItem[],
+	placed: Placed[],
+	doc: NetworkDocument
+): { items: EditorItem[]; wires: Wire[] } {
 	const wires: Wire[] = [];
 	const byNet = new Map<string, { item: string; terminal: string; x: number; y: number }[]>();
 	const pin = (net: string, item: EditorItem, terminal: string, x: number, y: number) =>
@@ -149,11 +167,24 @@ function wireUp(items: EditorItem[], placed: Placed[], doc: NetworkDocument): { 
 			const ay = item.y + pt.y;
 			if (nets[i] === 'gnd') {
 				// Its own ground mark just below (or beside) the terminal.
-				const g: EditorItem = { id: `it-g${marks.length + 1}`, kind: 'GND', name: '', value: '', x: ax - 20, y: ay, rotation: 0, flip: false };
+				const g: EditorItem = {
+					id: `it-g${marks.length + 1}`,
+					kind: 'GND',
+					name: '',
+					value: '',
+					x: ax - 20,
+					y: ay,
+					rotation: 0,
+					flip: false
+				};
 				// A terminal on the top edge gets an upside-down mark above it.
 				if (pt.side === 'top') Object.assign(g, { y: ay - 40, rotation: 180 });
 				marks.push(g);
-				wires.push({ id: `w-${wires.length + 1}`, from: { item: item.id, terminal: t.name }, to: { item: g.id, terminal: 'g' } });
+				wires.push({
+					id: `w-${wires.length + 1}`,
+					from: { item: item.id, terminal: t.name },
+					to: { item: g.id, terminal: 'g' }
+				});
 			} else pin(nets[i], item, t.name, ax, ay);
 		});
 	}
@@ -161,8 +192,20 @@ function wireUp(items: EditorItem[], placed: Placed[], doc: NetworkDocument): { 
 	const outNet = String(doc.output.node);
 	const refNet = String(doc.output.reference ?? 'gnd');
 	const outPins = byNet.get(outNet) ?? [];
-	const rightmost = outPins.reduce((m, p) => (p.x > m.x ? p : m), outPins[0] ?? { x: 0, y: 0, item: '', terminal: '' });
-	const probe: EditorItem = { id: 'it-out', kind: 'PROBE', name: '', value: '', x: Math.round((rightmost.x + 80) / 20) * 20, y: Math.round((rightmost.y - 20) / 20) * 20, rotation: 0, flip: false };
+	const rightmost = outPins.reduce(
+		(m, p) => (p.x > m.x ? p : m),
+		outPins[0] ?? { x: 0, y: 0, item: '', terminal: '' }
+	);
+	const probe: EditorItem = {
+		id: 'it-out',
+		kind: 'PROBE',
+		name: '',
+		value: '',
+		x: Math.round((rightmost.x + 80) / 20) * 20,
+		y: Math.round((rightmost.y - 20) / 20) * 20,
+		rotation: 0,
+		flip: false
+	};
 	if (outPins.length) {
 		marks.push(probe);
 		pin(outNet, probe, 'pos', probe.x, probe.y + 20);
@@ -171,7 +214,11 @@ function wireUp(items: EditorItem[], placed: Placed[], doc: NetworkDocument): { 
 	for (const pins of byNet.values()) {
 		pins.sort((a, b) => a.x - b.x || a.y - b.y);
 		for (let i = 1; i < pins.length; i++) {
-			wires.push({ id: `w-${wires.length + 1}`, from: { item: pins[i - 1].item, terminal: pins[i - 1].terminal }, to: { item: pins[i].item, terminal: pins[i].terminal } });
+			wires.push({
+				id: `w-${wires.length + 1}`,
+				from: { item: pins[i - 1].item, terminal: pins[i - 1].terminal },
+				to: { item: pins[i].item, terminal: pins[i].terminal }
+			});
 		}
 	}
 	return { items: [...items, ...marks], wires };

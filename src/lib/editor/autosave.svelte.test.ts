@@ -5,7 +5,11 @@ import type { NetworkDocument } from '$lib/network/schema';
 
 const doc = (v: string, extra: NetworkDocument['elements'] = []): NetworkDocument => ({
 	schema: 1,
-	elements: [{ id: 'V1', type: 'V', nodes: ['a', 'gnd'], value: 1 }, { id: 'R1', type: 'R', nodes: ['a', 'gnd'], value: v }, ...extra],
+	elements: [
+		{ id: 'V1', type: 'V', nodes: ['a', 'gnd'], value: 1 },
+		{ id: 'R1', type: 'R', nodes: ['a', 'gnd'], value: v },
+		...extra
+	],
 	input: 'V1',
 	output: { node: 'a' }
 });
@@ -18,11 +22,21 @@ function server(start: number) {
 	const fetcher = (async (_u: string, init: RequestInit) => {
 		const b = JSON.parse(String(init.body));
 		bodies.push(b);
-		if (b.baseRevision !== latest.number) return new Response(JSON.stringify({ error: 'stale', latest }), { status: 409 });
+		if (b.baseRevision !== latest.number)
+			return new Response(JSON.stringify({ error: 'stale', latest }), { status: 409 });
 		latest = { number: latest.number + 1, document: b.document, layout: b.layout };
 		return new Response(JSON.stringify({ revision: latest }), { status: 201 });
 	}) as unknown as typeof fetch;
-	return { fetcher, bodies, get latest() { return latest; }, set latest(l) { latest = l; } };
+	return {
+		fetcher,
+		bodies,
+		get latest() {
+			return latest;
+		},
+		set latest(l) {
+			latest = l;
+		}
+	};
 }
 
 describe('Autosave', () => {
@@ -51,7 +65,11 @@ describe('Autosave', () => {
 		const s = server(1);
 		const a = new Autosave('x', 5, s.fetcher);
 		a.settle(1, { document: doc('1k'), layout: null });
-		s.latest = { number: 2, document: doc('1k', [{ id: 'C1', type: 'C', nodes: ['a', 'gnd'], value: '1n' }]), layout: null };
+		s.latest = {
+			number: 2,
+			document: doc('1k', [{ id: 'C1', type: 'C', nodes: ['a', 'gnd'], value: '1n' }]),
+			layout: null
+		};
 		a.changed({ document: doc('4.7k'), layout: null });
 		await wait(40);
 		expect(a.status).toBe('conflict');
@@ -82,9 +100,15 @@ describe('describeChanges', () => {
 		const base = doc('1k', [{ id: 'C1', type: 'C', nodes: ['a', 'gnd'], value: '1n' }]);
 		const theirs = doc('1.5k');
 		theirs.elements[1] = { ...theirs.elements[1], nodes: ['a', 'b'] };
-		expect(describeChanges(base, theirs)).toEqual(['R1: value 1k → 1.5k', 'R1: wiring changed', 'removed C1']);
+		expect(describeChanges(base, theirs)).toEqual([
+			'R1: value 1k → 1.5k',
+			'R1: wiring changed',
+			'removed C1'
+		]);
 	});
 	it('a drawing-only change says so', () => {
-		expect(describeChanges(doc('1k'), doc('1k'))).toEqual(['moved parts on the canvas (the network itself is the same)']);
+		expect(describeChanges(doc('1k'), doc('1k'))).toEqual([
+			'moved parts on the canvas (the network itself is the same)'
+		]);
 	});
 });

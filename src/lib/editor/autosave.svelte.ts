@@ -48,7 +48,12 @@ export class Autosave {
 	}
 
 	get dirty(): boolean {
-		return this.status === 'unsaved' || this.status === 'saving' || this.status === 'conflict' || this.status === 'failed';
+		return (
+			this.status === 'unsaved' ||
+			this.status === 'saving' ||
+			this.status === 'conflict' ||
+			this.status === 'failed'
+		);
 	}
 
 	changed(content: Content): void {
@@ -77,7 +82,11 @@ export class Autosave {
 			const res = await this.fetcher(`/api/sheets/${this.sheetId}/revisions`, {
 				method: 'PUT',
 				headers: { 'content-type': 'application/json' },
-				body: JSON.stringify({ baseRevision: this.baseRevision, document: content.document, layout: content.layout })
+				body: JSON.stringify({
+					baseRevision: this.baseRevision,
+					document: content.document,
+					layout: content.layout
+				})
 			});
 			const body = await res.json().catch(() => ({}));
 			if (res.status === 409 && body?.latest) {
@@ -93,6 +102,7 @@ export class Autosave {
 			this.baseRevision = body.revision.number;
 			this.baseDocument = content.document;
 			this.#saved = JSON.stringify(content);
+			// eslint-disable-next-line svelte/prefer-svelte-reactivity -- replaced whole, never mutated
 			this.savedAt = new Date();
 			this.message = null;
 			if (this.#pending === content) this.#pending = null;
@@ -102,7 +112,8 @@ export class Autosave {
 			this.message = `saving failed: ${(error as Error).message}`;
 		} finally {
 			this.#inFlight = false;
-			if (this.#pending && this.status === 'unsaved') this.#timer = setTimeout(() => void this.flush(), this.delayMs);
+			if (this.#pending && this.status === 'unsaved')
+				this.#timer = setTimeout(() => void this.flush(), this.delayMs);
 		}
 	}
 

@@ -7,8 +7,21 @@ import { buildDocument } from './to-document';
 import type { EditorItem, Snapshot } from './types';
 import type { NetworkDocument } from '$lib/network/schema';
 
-const item = (id: string, kind: EditorItem['kind'], name = '', value = ''): EditorItem => ({ id, kind, name, value, x: 0, y: 0, rotation: 0, flip: false });
-const wire = (a: string, ta: string, b: string, tb: string) => ({ id: `${a}${ta}-${b}${tb}`, from: { item: a, terminal: ta }, to: { item: b, terminal: tb } });
+const item = (id: string, kind: EditorItem['kind'], name = '', value = ''): EditorItem => ({
+	id,
+	kind,
+	name,
+	value,
+	x: 0,
+	y: 0,
+	rotation: 0,
+	flip: false
+});
+const wire = (a: string, ta: string, b: string, tb: string) => ({
+	id: `${a}${ta}-${b}${tb}`,
+	from: { item: a, terminal: ta },
+	to: { item: b, terminal: tb }
+});
 
 // The 10:1 divider of the network-format issue (common practice: 9 MΩ ∥ 10 pF over 1 MΩ ∥ 90 pF).
 const divider: NetworkDocument = {
@@ -27,8 +40,19 @@ const divider: NetworkDocument = {
 
 describe('nets from the drawing', () => {
 	it('joins wired terminals, ground marks and equal net names; names the rest n1, n2, …', () => {
-		const items = [item('r1', 'R', 'R1'), item('r2', 'R', 'R2'), item('g', 'GND'), item('l1', 'LABEL', 'mid'), item('l2', 'LABEL', 'mid'), item('c', 'C', 'C1')];
-		const wires = [wire('r1', 'b', 'l1', 't'), wire('r2', 'a', 'l2', 't'), wire('r2', 'b', 'g', 'g')];
+		const items = [
+			item('r1', 'R', 'R1'),
+			item('r2', 'R', 'R2'),
+			item('g', 'GND'),
+			item('l1', 'LABEL', 'mid'),
+			item('l2', 'LABEL', 'mid'),
+			item('c', 'C', 'C1')
+		];
+		const wires = [
+			wire('r1', 'b', 'l1', 't'),
+			wire('r2', 'a', 'l2', 't'),
+			wire('r2', 'b', 'g', 'g')
+		];
 		const { byTerminal } = computeNets(items, wires);
 		expect(byTerminal.get('r1:b')).toBe('mid');
 		expect(byTerminal.get('r2:a')).toBe('mid');
@@ -62,7 +86,12 @@ describe('drawing → document', () => {
 	});
 
 	it('missing input and output marker are problems', () => {
-		const b = buildDocument({ title: '', items: [item('r', 'R', 'R1', '1k')], wires: [], input: null });
+		const b = buildDocument({
+			title: '',
+			items: [item('r', 'R', 'R1', '1k')],
+			wires: [],
+			input: null
+		});
 		expect(b.problems.map((p) => p.message).join('|')).toMatch(/input source.*\|.*output marker/);
 	});
 });
@@ -80,13 +109,19 @@ describe('document → drawing → document', () => {
 		const moved: Snapshot = { ...s, items: s.items.map((i) => ({ ...i, x: i.x + 100 })) };
 		const { layout, document } = buildDocument(moved);
 		expect(fromDocument(document, layout).items[0].x).toBe(moved.items[0].x);
-		const edited = { ...divider, elements: divider.elements.map((e) => (e.id === 'Ct' ? { ...e, value: '11p' } : e)) };
+		const edited = {
+			...divider,
+			elements: divider.elements.map((e) => (e.id === 'Ct' ? { ...e, value: '11p' } : e))
+		};
 		const redrawn = fromDocument(edited, layout);
 		expect(redrawn.items.find((i) => i.name === 'Ct')!.value).toBe('11p');
 	});
 
 	it('sameNetwork sees a changed connection', () => {
-		const swapped = { ...divider, elements: divider.elements.map((e) => (e.id === 'Cin' ? { ...e, nodes: ['a', 'gnd'] } : e)) };
+		const swapped = {
+			...divider,
+			elements: divider.elements.map((e) => (e.id === 'Cin' ? { ...e, nodes: ['a', 'gnd'] } : e))
+		};
 		expect(sameNetwork(divider, swapped)).toBe(false);
 	});
 });

@@ -6,16 +6,22 @@ function connections(d: NetworkDocument, keep: Set<string>): Map<string, string>
 	// Connectivity without node names: each terminal lists the terminals on its node, counting
 	// only elements both revisions have (an added part is reported as added, not as rewiring).
 	const byNode = new Map<string, string[]>();
-	for (const e of d.elements.filter((x) => keep.has(x.id))) e.nodes.forEach((n, i) => {
-		const k = String(n) === '0' ? 'gnd' : String(n);
-		(byNode.get(k) ?? byNode.set(k, []).get(k)!).push(`${e.id}.${i}`);
-	});
+	for (const e of d.elements.filter((x) => keep.has(x.id)))
+		e.nodes.forEach((n, i) => {
+			const k = String(n) === '0' ? 'gnd' : String(n);
+			(byNode.get(k) ?? byNode.set(k, []).get(k)!).push(`${e.id}.${i}`);
+		});
 	const out = new Map<string, string>();
 	for (const e of d.elements.filter((x) => keep.has(x.id))) {
-		out.set(e.id, e.nodes.map((n) => {
-			const k = String(n) === '0' ? 'gnd' : String(n);
-			return k === 'gnd' ? 'gnd' : byNode.get(k)!.slice().sort().join(',');
-		}).join('|'));
+		out.set(
+			e.id,
+			e.nodes
+				.map((n) => {
+					const k = String(n) === '0' ? 'gnd' : String(n);
+					return k === 'gnd' ? 'gnd' : byNode.get(k)!.slice().sort().join(',');
+				})
+				.join('|')
+		);
 	}
 	return out;
 }
@@ -34,8 +40,10 @@ export function describeChanges(base: NetworkDocument, theirs: NetworkDocument):
 			continue;
 		}
 		if (old.type !== e.type) out.push(`${id}: type ${old.type} → ${e.type}`);
-		if (String(old.value ?? '') !== String(e.value ?? '')) out.push(`${id}: value ${old.value ?? '—'} → ${e.value ?? '—'}`);
-		if ((old.control ?? '') !== (e.control ?? '')) out.push(`${id}: driven by ${old.control ?? '—'} → ${e.control ?? '—'}`);
+		if (String(old.value ?? '') !== String(e.value ?? ''))
+			out.push(`${id}: value ${old.value ?? '—'} → ${e.value ?? '—'}`);
+		if ((old.control ?? '') !== (e.control ?? ''))
+			out.push(`${id}: driven by ${old.control ?? '—'} → ${e.control ?? '—'}`);
 		if (ca.get(id) !== cb.get(id)) out.push(`${id}: wiring changed`);
 	}
 	for (const id of a.keys()) if (!b.has(id)) out.push(`removed ${id}`);
@@ -43,6 +51,7 @@ export function describeChanges(base: NetworkDocument, theirs: NetworkDocument):
 	const oa = `${base.output.node}/${base.output.reference ?? 'gnd'}`;
 	const ob = `${theirs.output.node}/${theirs.output.reference ?? 'gnd'}`;
 	if (out.length === 0 && oa !== ob) out.push(`output ${oa} → ${ob}`);
-	if ((base.title ?? '') !== (theirs.title ?? '')) out.push(`title “${base.title ?? ''}” → “${theirs.title ?? ''}”`);
+	if ((base.title ?? '') !== (theirs.title ?? ''))
+		out.push(`title “${base.title ?? ''}” → “${theirs.title ?? ''}”`);
 	return out.length ? out : ['moved parts on the canvas (the network itself is the same)'];
 }

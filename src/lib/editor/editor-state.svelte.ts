@@ -1,7 +1,9 @@
 // The editor's state: what is drawn, what is selected, and the undo history. Every change goes
 // through `apply`, so every change is undoable and bumps `version` (which autosave and the live
 // analysis watch). Arrays are replaced, never mutated, so snapshots are cheap and `$state.raw`
-// keeps 200-element drawings fast.
+// keeps 200-element drawings fast. Sets and Maps here are scratch values inside one call, never
+// reactive state, hence the lint rule below is off for this file.
+/* eslint-disable svelte/prefer-svelte-reactivity */
 import { getContext, setContext } from 'svelte';
 import { snap, nextRotation } from './geometry';
 import { History } from './history';
@@ -71,12 +73,16 @@ export class EditorState {
 
 	undo(): void {
 		const prev = this.readonly ? null : this.#history.undo(this.snapshot);
-		if (prev) this.#set(prev), this.#dropStaleSelection();
+		if (!prev) return;
+		this.#set(prev);
+		this.#dropStaleSelection();
 	}
 
 	redo(): void {
 		const next = this.readonly ? null : this.#history.redo(this.snapshot);
-		if (next) this.#set(next), this.#dropStaleSelection();
+		if (!next) return;
+		this.#set(next);
+		this.#dropStaleSelection();
 	}
 
 	#dropStaleSelection(): void {
@@ -140,7 +146,11 @@ export class EditorState {
 		const follows = old.kind === 'V';
 		this.apply({
 			items: this.items.map((i) =>
-				i.id === id ? { ...i, name: n } : follows && i.control === old.name ? { ...i, control: n } : i
+				i.id === id
+					? { ...i, name: n }
+					: follows && i.control === old.name
+						? { ...i, control: n }
+						: i
 			)
 		});
 		return null;
@@ -205,10 +215,20 @@ export class EditorState {
 			fresh.push({ ...i, id, name, x: i.x + dx, y: i.y + dy });
 		}
 		// A copied dependent source keeps following a copied control source.
-		for (const f of fresh) if (f.control && names.has(f.control) && clip.items.some((c) => c.kind === 'V' && c.name === f.control)) f.control = names.get(f.control);
+		for (const f of fresh)
+			if (
+				f.control &&
+				names.has(f.control) &&
+				clip.items.some((c) => c.kind === 'V' && c.name === f.control)
+			)
+				f.control = names.get(f.control);
 		const wires = clip.wires
 			.filter((w) => ids.has(w.from.item) && ids.has(w.to.item))
-			.map((w) => ({ id: uid('w'), from: { ...w.from, item: ids.get(w.from.item)! }, to: { ...w.to, item: ids.get(w.to.item)! } }));
+			.map((w) => ({
+				id: uid('w'),
+				from: { ...w.from, item: ids.get(w.from.item)! },
+				to: { ...w.to, item: ids.get(w.to.item)! }
+			}));
 		this.apply({ items: [...this.items, ...fresh], wires: [...this.wires, ...wires] });
 		this.select(fresh.map((f) => f.id));
 		this.#clip = { items: fresh, wires };
@@ -245,11 +265,22 @@ export class EditorState {
 		const nets = computeNets(this.items, this.wires);
 		let items = this.items;
 		let probe = items.find((i) => i.kind === 'PROBE');
-		const target = nets.nets.find((n) => n.name === net)?.terminals.find((t) => !probe || !t.startsWith(`${probe.id}:`));
+		const target = nets.nets
+			.find((n) => n.name === net)
+			?.terminals.find((t) => !probe || !t.startsWith(`${probe.id}:`));
 		const [tItem, tTerm] = target ? target.split(':') : [null, null];
 		if (!probe) {
 			const anchor = items.find((i) => i.id === tItem);
-			probe = { id: uid('it'), kind: 'PROBE', name: '', value: '', x: snap((anchor?.x ?? 0) + 120), y: snap(anchor?.y ?? 0), rotation: 0, flip: false };
+			probe = {
+				id: uid('it'),
+				kind: 'PROBE',
+				name: '',
+				value: '',
+				x: snap((anchor?.x ?? 0) + 120),
+				y: snap(anchor?.y ?? 0),
+				rotation: 0,
+				flip: false
+			};
 			items = [...items, probe];
 		}
 		const pid = probe.id;
@@ -257,7 +288,11 @@ export class EditorState {
 		const wires = this.wires.filter((w) => !mine(w.from) && !mine(w.to));
 		// Reference on gnd is the marker's unwired negative terminal; otherwise wire it.
 		if (tItem && tTerm && !(which === 'neg' && net === 'gnd')) {
-			wires.push({ id: uid('w'), from: { item: pid, terminal: which }, to: { item: tItem, terminal: tTerm } });
+			wires.push({
+				id: uid('w'),
+				from: { item: pid, terminal: which },
+				to: { item: tItem, terminal: tTerm }
+			});
 		}
 		this.apply({ items, wires });
 	}

@@ -8,21 +8,33 @@ import type { SheetLayout, Snapshot } from './types';
 
 export function isSheetLayout(raw: unknown): raw is SheetLayout {
 	const l = raw as SheetLayout | null;
-	return !!l && l.format === 'polewise-canvas' && l.version === 1 && Array.isArray(l.items) && Array.isArray(l.wires);
+	return (
+		!!l &&
+		l.format === 'polewise-canvas' &&
+		l.version === 1 &&
+		Array.isArray(l.items) &&
+		Array.isArray(l.wires)
+	);
 }
 
 /** Same elements, types, values, controls, input and the same connectivity (names of nets aside). */
 export function sameNetwork(a: NetworkDocument, b: NetworkDocument): boolean {
 	if (a.elements.length !== b.elements.length || a.input !== b.input) return false;
 	const canon = (d: NetworkDocument) => {
-		const rename = new Map<string, string>([['gnd', 'gnd'], ['0', 'gnd']]);
+		const rename = new Map<string, string>([
+			['gnd', 'gnd'],
+			['0', 'gnd']
+		]);
 		const nodeName = (n: string | number) => {
 			const k = String(n);
 			if (!rename.has(k)) rename.set(k, `#${rename.size}`);
 			return rename.get(k)!;
 		};
 		const els = [...d.elements].sort((x, y) => (x.id < y.id ? -1 : 1));
-		const lines = els.map((e) => `${e.id}|${e.type}|${String(e.value ?? '')}|${e.control ?? ''}|${e.nodes.map(nodeName).join(',')}`);
+		const lines = els.map(
+			(e) =>
+				`${e.id}|${e.type}|${String(e.value ?? '')}|${e.control ?? ''}|${e.nodes.map(nodeName).join(',')}`
+		);
 		lines.push(`out|${nodeName(d.output.node)}|${nodeName(d.output.reference ?? 'gnd')}`);
 		return lines.join('\n');
 	};
@@ -31,7 +43,12 @@ export function sameNetwork(a: NetworkDocument, b: NetworkDocument): boolean {
 
 export function fromDocument(doc: NetworkDocument, layout?: unknown): Snapshot {
 	if (isSheetLayout(layout)) {
-		const restored: Snapshot = { title: doc.title ?? '', items: layout.items, wires: layout.wires, input: layout.input };
+		const restored: Snapshot = {
+			title: doc.title ?? '',
+			items: layout.items,
+			wires: layout.wires,
+			input: layout.input
+		};
 		if (sameNetwork(buildDocument(restored).document, doc)) return restored;
 	}
 	return autoLayout(doc);

@@ -36,7 +36,13 @@ export function transformPoint(
 export function svgTransform(kind: ItemKind, rotation: Rotation, flip: boolean): string {
 	const { width: w, height: h } = KINDS[kind];
 	const [a, b, c, d, e, f] =
-		rotation === 90 ? [0, 1, -1, 0, h, 0] : rotation === 180 ? [-1, 0, 0, -1, w, h] : rotation === 270 ? [0, -1, 1, 0, 0, w] : [1, 0, 0, 1, 0, 0];
+		rotation === 90
+			? [0, 1, -1, 0, h, 0]
+			: rotation === 180
+				? [-1, 0, 0, -1, w, h]
+				: rotation === 270
+					? [0, -1, 1, 0, 0, w]
+					: [1, 0, 0, 1, 0, 0];
 	// Compose rotation ∘ mirror: mirror is x → w − x.
 	const m = flip ? [-a, -b, c, d, a * w + e, b * w + f] : [a, b, c, d, e, f];
 	return `matrix(${m.join(' ')})`;
@@ -50,8 +56,10 @@ export interface PlacedTerminal {
 	side: Side;
 }
 
-export function placedTerminals(item: Pick<EditorItem, 'kind' | 'rotation' | 'flip'>): PlacedTerminal[] {
-	const { width, height } = boxSize(item.kind, item.rotation);
+export function placedTerminals(
+	item: Pick<EditorItem, 'kind' | 'rotation' | 'flip'>
+): PlacedTerminal[] {
+	const { width } = boxSize(item.kind, item.rotation);
 	return KINDS[item.kind].terminals.map((t) => {
 		const p = transformPoint(item.kind, item.rotation, item.flip, t.x, t.y);
 		const side: Side = p.x <= 0 ? 'left' : p.x >= width ? 'right' : p.y <= 0 ? 'top' : 'bottom';

@@ -53,27 +53,150 @@ const fourPort: Terminal[] = [
 ];
 
 export const KINDS: Record<ItemKind, KindInfo> = {
-	R: { kind: 'R', title: 'Resistor', prefix: 'R', width: 80, height: 40, terminals: two('a', 'b', 80, 40, false), unit: 'Ω', valueLabel: 'Resistance', defaultValue: '1k', circuit: true },
-	C: { kind: 'C', title: 'Capacitor', prefix: 'C', width: 80, height: 40, terminals: two('a', 'b', 80, 40, false), unit: 'F', valueLabel: 'Capacitance', defaultValue: '10p', circuit: true },
-	L: { kind: 'L', title: 'Inductor', prefix: 'L', width: 80, height: 40, terminals: two('a', 'b', 80, 40, false), unit: 'H', valueLabel: 'Inductance', defaultValue: '1µ', circuit: true },
-	V: { kind: 'V', title: 'Voltage source', prefix: 'V', width: 40, height: 80, terminals: two('p', 'n', 40, 80, true), unit: 'V', valueLabel: 'Amplitude', defaultValue: '1', circuit: true },
-	I: { kind: 'I', title: 'Current source', prefix: 'I', width: 40, height: 80, terminals: two('p', 'n', 40, 80, true), unit: 'A', valueLabel: 'Amplitude', defaultValue: '1µ', circuit: true },
-	VCCS: { kind: 'VCCS', title: 'Voltage-driven current source', prefix: 'G', width: 80, height: 80, terminals: fourPort, unit: 'S', valueLabel: 'Transconductance gm', defaultValue: '1m', circuit: true },
-	VCVS: { kind: 'VCVS', title: 'Voltage-driven voltage source', prefix: 'E', width: 80, height: 80, terminals: fourPort, valueLabel: 'Voltage gain', defaultValue: '10', circuit: true },
-	CCCS: { kind: 'CCCS', title: 'Current-driven current source', prefix: 'F', width: 40, height: 80, terminals: two('p', 'n', 40, 80, true), valueLabel: 'Current gain β', defaultValue: '100', circuit: true },
-	CCVS: { kind: 'CCVS', title: 'Current-driven voltage source', prefix: 'H', width: 40, height: 80, terminals: two('p', 'n', 40, 80, true), unit: 'Ω', valueLabel: 'Transresistance', defaultValue: '1k', circuit: true },
+	R: {
+		kind: 'R',
+		title: 'Resistor',
+		prefix: 'R',
+		width: 80,
+		height: 40,
+		terminals: two('a', 'b', 80, 40, false),
+		unit: 'Ω',
+		valueLabel: 'Resistance',
+		defaultValue: '1k',
+		circuit: true
+	},
+	C: {
+		kind: 'C',
+		title: 'Capacitor',
+		prefix: 'C',
+		width: 80,
+		height: 40,
+		terminals: two('a', 'b', 80, 40, false),
+		unit: 'F',
+		valueLabel: 'Capacitance',
+		defaultValue: '10p',
+		circuit: true
+	},
+	L: {
+		kind: 'L',
+		title: 'Inductor',
+		prefix: 'L',
+		width: 80,
+		height: 40,
+		terminals: two('a', 'b', 80, 40, false),
+		unit: 'H',
+		valueLabel: 'Inductance',
+		defaultValue: '1µ',
+		circuit: true
+	},
+	V: {
+		kind: 'V',
+		title: 'Voltage source',
+		prefix: 'V',
+		width: 40,
+		height: 80,
+		terminals: two('p', 'n', 40, 80, true),
+		unit: 'V',
+		valueLabel: 'Amplitude',
+		defaultValue: '1',
+		circuit: true
+	},
+	I: {
+		kind: 'I',
+		title: 'Current source',
+		prefix: 'I',
+		width: 40,
+		height: 80,
+		terminals: two('p', 'n', 40, 80, true),
+		unit: 'A',
+		valueLabel: 'Amplitude',
+		defaultValue: '1µ',
+		circuit: true
+	},
+	VCCS: {
+		kind: 'VCCS',
+		title: 'Voltage-driven current source',
+		prefix: 'G',
+		width: 80,
+		height: 80,
+		terminals: fourPort,
+		unit: 'S',
+		valueLabel: 'Transconductance gm',
+		defaultValue: '1m',
+		circuit: true
+	},
+	VCVS: {
+		kind: 'VCVS',
+		title: 'Voltage-driven voltage source',
+		prefix: 'E',
+		width: 80,
+		height: 80,
+		terminals: fourPort,
+		valueLabel: 'Voltage gain',
+		defaultValue: '10',
+		circuit: true
+	},
+	CCCS: {
+		kind: 'CCCS',
+		title: 'Current-driven current source',
+		prefix: 'F',
+		width: 40,
+		height: 80,
+		terminals: two('p', 'n', 40, 80, true),
+		valueLabel: 'Current gain β',
+		defaultValue: '100',
+		circuit: true
+	},
+	CCVS: {
+		kind: 'CCVS',
+		title: 'Current-driven voltage source',
+		prefix: 'H',
+		width: 40,
+		height: 80,
+		terminals: two('p', 'n', 40, 80, true),
+		unit: 'Ω',
+		valueLabel: 'Transresistance',
+		defaultValue: '1k',
+		circuit: true
+	},
 	OPAMP: {
-		kind: 'OPAMP', title: 'Ideal op-amp', prefix: 'U', width: 80, height: 80, circuit: true,
+		kind: 'OPAMP',
+		title: 'Ideal op-amp',
+		prefix: 'U',
+		width: 80,
+		height: 80,
+		circuit: true,
 		terminals: [
 			{ name: 'plus', x: 0, y: 60, label: '+ in' },
 			{ name: 'minus', x: 0, y: 20, label: '− in' },
 			{ name: 'out', x: 80, y: 40, label: 'out' }
 		]
 	},
-	GND: { kind: 'GND', title: 'Ground', prefix: 'gnd', width: 40, height: 40, terminals: [{ name: 'g', x: 20, y: 0, label: 'gnd' }], circuit: false },
-	LABEL: { kind: 'LABEL', title: 'Net name', prefix: 'net', width: 80, height: 40, terminals: [{ name: 't', x: 0, y: 20, label: 'net' }], circuit: false },
+	GND: {
+		kind: 'GND',
+		title: 'Ground',
+		prefix: 'gnd',
+		width: 40,
+		height: 40,
+		terminals: [{ name: 'g', x: 20, y: 0, label: 'gnd' }],
+		circuit: false
+	},
+	LABEL: {
+		kind: 'LABEL',
+		title: 'Net name',
+		prefix: 'net',
+		width: 80,
+		height: 40,
+		terminals: [{ name: 't', x: 0, y: 20, label: 'net' }],
+		circuit: false
+	},
 	PROBE: {
-		kind: 'PROBE', title: 'Output marker', prefix: 'out', width: 60, height: 80, circuit: false,
+		kind: 'PROBE',
+		title: 'Output marker',
+		prefix: 'out',
+		width: 60,
+		height: 80,
+		circuit: false,
 		terminals: [
 			{ name: 'pos', x: 0, y: 20, label: 'output' },
 			{ name: 'neg', x: 0, y: 60, label: 'reference' }

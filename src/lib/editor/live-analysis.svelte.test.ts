@@ -19,7 +19,10 @@ function slowServer(ms: number) {
 		init.signal?.addEventListener('abort', () => (entry.aborted = true));
 		await wait(ms);
 		if (init.signal?.aborted) throw new DOMException('aborted', 'AbortError');
-		return new Response(JSON.stringify({ poles: [], echo: JSON.parse(entry.body).elements[0].value }), { status: 200 });
+		return new Response(
+			JSON.stringify({ poles: [], echo: JSON.parse(entry.body).elements[0].value }),
+			{ status: 200 }
+		);
 	}) as unknown as typeof fetch;
 	return { seen, fetcher };
 }
@@ -56,7 +59,15 @@ describe('LiveAnalysis', () => {
 	});
 
 	it('a solver error keeps the element it names', async () => {
-		const fetcher = (async () => new Response(JSON.stringify({ error: 'node "a" is touched only by R1', code: 'dangling_node', node: 'a' }), { status: 422 })) as unknown as typeof fetch;
+		const fetcher = (async () =>
+			new Response(
+				JSON.stringify({
+					error: 'node "a" is touched only by R1',
+					code: 'dangling_node',
+					node: 'a'
+				}),
+				{ status: 422 }
+			)) as unknown as typeof fetch;
 		const live = new LiveAnalysis(1, fetcher);
 		live.update(doc('1k'), []);
 		await wait(30);

@@ -14,7 +14,7 @@ export interface AnalysisFault {
 
 export type AnalysisStatus = 'idle' | 'waiting' | 'running' | 'done' | 'blocked' | 'failed';
 
-export const ANALYZE_URL = '/api/analyze?points=240&stepPoints=400';
+export const ANALYZE_URL = '/api/analyze?points=200&stepPoints=300';
 
 export class LiveAnalysis {
 	result = $state.raw<Analysis | null>(null);
@@ -30,7 +30,7 @@ export class LiveAnalysis {
 	#lastBody = '';
 
 	constructor(
-		private readonly delayMs = 40,
+		private readonly delayMs = 16,
 		private readonly fetcher: typeof fetch = (...a) => fetch(...a)
 	) {}
 
@@ -73,7 +73,12 @@ export class LiveAnalysis {
 				this.status = 'done';
 				this.lastMs = performance.now() - editedAt;
 			} else {
-				this.fault = { message: data?.error ?? `the analysis answered ${res.status}`, code: data?.code, element: data?.element, node: data?.node };
+				this.fault = {
+					message: data?.error ?? `the analysis answered ${res.status}`,
+					code: data?.code,
+					element: data?.element,
+					node: data?.node
+				};
 				this.status = 'failed';
 			}
 		} catch (error) {

@@ -1,10 +1,14 @@
 import { KINDS, isCircuit, type ItemKind } from './kinds';
 import type { EditorItem } from './types';
 
-const NAME = /^[A-Za-z][A-Za-z0-9_.\-]*$/;
+const NAME = /^[A-Za-z][A-Za-z0-9_.-]*$/;
 
 /** The next free name for a new element of this kind: R1, R2, … */
-export function nextName(items: EditorItem[], kind: ItemKind, taken: Set<string> = new Set()): string {
+export function nextName(
+	items: EditorItem[],
+	kind: ItemKind,
+	taken: Set<string> = new Set()
+): string {
 	if (!isCircuit(kind)) return kind === 'LABEL' ? nextLabel(items) : '';
 	const used = new Set([...taken, ...items.filter((i) => isCircuit(i.kind)).map((i) => i.name)]);
 	const prefix = KINDS[kind].prefix;

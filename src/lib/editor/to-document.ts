@@ -30,7 +30,8 @@ export function buildDocument(s: Snapshot): Built {
 	const names = new Set<string>();
 	for (const it of s.items) {
 		if (!isCircuit(it.kind)) continue;
-		if (names.has(it.name)) problems.push({ item: it.id, message: `the name "${it.name}" is used twice` });
+		if (names.has(it.name))
+			problems.push({ item: it.id, message: `the name "${it.name}" is used twice` });
 		names.add(it.name);
 		itemByElement.set(it.name, it.id);
 		const nodes = KINDS[it.kind].terminals.map((t) => nets.byTerminal.get(`${it.id}:${t.name}`)!);
@@ -42,28 +43,38 @@ export function buildDocument(s: Snapshot): Built {
 		}
 		if (it.kind === 'CCCS' || it.kind === 'CCVS') {
 			if (it.control) el.control = it.control;
-			else problems.push({ item: it.id, message: `${it.name}: choose the voltage source whose current drives it` });
+			else
+				problems.push({
+					item: it.id,
+					message: `${it.name}: choose the voltage source whose current drives it`
+				});
 		}
 		elements.push(el);
 	}
 	const inputItem = s.items.find((i) => i.id === s.input);
 	if (elements.length > 0 && !inputItem) {
-		problems.push({ message: 'choose the input source (select a voltage or current source and mark it as input)' });
+		problems.push({
+			message: 'choose the input source (select a voltage or current source and mark it as input)'
+		});
 	}
 	const probe = s.items.find((i) => i.kind === 'PROBE');
 	let output: NetworkDocument['output'] = { node: GROUND_NET, reference: GROUND_NET };
 	if (probe) {
 		const pos = nets.byTerminal.get(`${probe.id}:pos`)!;
 		const negKey = `${probe.id}:neg`;
-		const negWired = s.wires.some((w) => [w.from, w.to].some((r) => `${r.item}:${r.terminal}` === negKey));
+		const negWired = s.wires.some((w) =>
+			[w.from, w.to].some((r) => `${r.item}:${r.terminal}` === negKey)
+		);
 		const neg = negWired ? nets.byTerminal.get(negKey)! : GROUND_NET;
 		const posWired = nets.nets.find((n) => n.name === pos)!.terminals.length > 1;
-		if (!posWired) problems.push({ item: probe.id, message: 'wire the output marker to the node to observe' });
+		if (!posWired)
+			problems.push({ item: probe.id, message: 'wire the output marker to the node to observe' });
 		output = { node: pos, reference: neg };
 	} else if (elements.length > 0) {
 		problems.push({ message: 'place the output marker on the node to observe' });
 	}
-	if (elements.length === 0) problems.push({ message: 'the sheet is empty: drag elements from the parts list' });
+	if (elements.length === 0)
+		problems.push({ message: 'the sheet is empty: drag elements from the parts list' });
 	const document: NetworkDocument = {
 		schema: 1,
 		...(s.title ? { title: s.title } : {}),
@@ -73,6 +84,12 @@ export function buildDocument(s: Snapshot): Built {
 		input: inputItem?.name ?? 'none',
 		output
 	};
-	const layout: SheetLayout = { format: 'polewise-canvas', version: 1, items: s.items, wires: s.wires, input: s.input };
+	const layout: SheetLayout = {
+		format: 'polewise-canvas',
+		version: 1,
+		items: s.items,
+		wires: s.wires,
+		input: s.input
+	};
 	return { document, layout, problems, nets, itemByElement };
 }

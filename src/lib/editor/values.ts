@@ -3,7 +3,8 @@
 import { formatEngineering, parseValue } from '$lib/solver';
 import { KINDS, type ItemKind } from './kinds';
 
-export type ValueCheck = { ok: true; value: number; normal: string } | { ok: false; message: string };
+export type ValueCheck =
+	{ ok: true; value: number; normal: string } | { ok: false; message: string };
 
 export function checkValue(kind: ItemKind, text: string): ValueCheck {
 	const info = KINDS[kind];
@@ -17,12 +18,17 @@ export function checkValue(kind: ItemKind, text: string): ValueCheck {
 	} catch (error) {
 		const unit = info.unit ? ` and optionally ${info.unit}` : '';
 		const reason = error instanceof Error ? error.message : String(error);
-		return { ok: false, message: `${reason}: use a number with an SI prefix${unit}, e.g. ${info.defaultValue}` };
+		return {
+			ok: false,
+			message: `${reason}: use a number with an SI prefix${unit}, e.g. ${info.defaultValue}`
+		};
 	}
 }
 
 /** Tolerance as typed ("1%", "0.5 %", "0.01"); returns the fraction or an error message. */
-export function checkTolerance(text: string): { ok: true; value: number | null } | { ok: false; message: string } {
+export function checkTolerance(
+	text: string
+): { ok: true; value: number | null } | { ok: false; message: string } {
 	const t = text.trim();
 	if (!t) return { ok: true, value: null };
 	const m = /^(\d+(?:\.\d*)?|\.\d+)\s*(%?)$/.exec(t);

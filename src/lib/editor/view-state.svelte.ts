@@ -1,6 +1,8 @@
 // What the canvas and the result panels show about each other: the element under the pointer,
 // the pole picked in a table, and the element or node a solver error points at. Kept apart from
-// EditorState because none of it is part of the drawing or its history.
+// EditorState because none of it is part of the drawing or its history. The derived Sets are
+// rebuilt whole on each change (never mutated), so plain Sets are right here.
+/* eslint-disable svelte/prefer-svelte-reactivity */
 import { getContext, setContext } from 'svelte';
 
 export interface Fault {

@@ -39,7 +39,11 @@ export interface ShortcutTarget {
 /** Runs the shortcut for a key event; returns true when the event was used. */
 export function runShortcut(e: KeyboardEvent, t: ShortcutTarget): boolean {
 	const el = e.target as HTMLElement | null;
-	if (el && (el.closest('input, textarea, select, [contenteditable="true"]') || el.isContentEditable)) return false;
+	if (
+		el &&
+		(el.closest('input, textarea, select, [contenteditable="true"]') || el.isContentEditable)
+	)
+		return false;
 	const mod = e.ctrlKey || e.metaKey;
 	const k = e.key.toLowerCase();
 	const map: [boolean, () => void][] = [

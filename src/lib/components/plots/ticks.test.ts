@@ -13,6 +13,13 @@ describe('plot helpers', () => {
 		expect(nearest([1, 2, 4, 8], 7)).toBe(3);
 	});
 	it('a null value breaks the line', () => {
-		expect(linePath([1, 2, 3], [1, null, 3], (x) => x, (y) => y)).toBe('M1.0 1.0M3.0 3.0');
+		expect(
+			linePath(
+				[1, 2, 3],
+				[1, null, 3],
+				(x) => x,
+				(y) => y
+			)
+		).toBe('M1.0 1.0M3.0 3.0');
 	});
 });

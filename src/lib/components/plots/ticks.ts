@@ -43,7 +43,12 @@ export function nearest(xs: number[], x: number): number {
 }
 
 /** SVG path through the finite points (gaps where a value is null). */
-export function linePath(xs: number[], ys: (number | null)[], sx: (v: number) => number, sy: (v: number) => number): string {
+export function linePath(
+	xs: number[],
+	ys: (number | null)[],
+	sx: (v: number) => number,
+	sy: (v: number) => number
+): string {
 	let d = '';
 	let pen = false;
 	for (let i = 0; i < xs.length; i++) {

@@ -3,10 +3,18 @@
 import { formatEngineering } from '$lib/solver';
 
 export const eng = (v: number | null | undefined, unit = '', digits = 4) =>
-	v === null || v === undefined || !Number.isFinite(v) ? (v === Infinity ? '∞' : '—') : formatEngineering(v, unit, digits);
+	v === null || v === undefined || !Number.isFinite(v)
+		? v === Infinity
+			? '∞'
+			: '—'
+		: formatEngineering(v, unit, digits);
 
 export const pct = (v: number | null | undefined, digits = 2) =>
-	v === null || v === undefined || !Number.isFinite(v) ? '—' : `${(v * 100).toPrecision(digits)} %`;
+	v === null || v === undefined || !Number.isFinite(v)
+		? '—'
+		: v >= 10
+			? `${Math.round(v * 100)} %`
+			: `${Number((v * 100).toPrecision(digits))} %`;
 
 /** A complex frequency in rad/s as "−1.11 k ± j 2.2 M". */
 export function sValue(re: number, im: number): string {
@@ -17,4 +25,8 @@ export function sValue(re: number, im: number): string {
 
 /** A plain number; values below 1e-9 of unity read as ≈ 0 (round-off of an exact zero). */
 export const plain = (v: number | null | undefined, digits = 4) =>
-	v === null || v === undefined || !Number.isFinite(v) ? '—' : Math.abs(v) < 1e-9 ? '≈ 0' : Number(v.toPrecision(digits)).toString();
+	v === null || v === undefined || !Number.isFinite(v)
+		? '—'
+		: Math.abs(v) < 1e-9
+			? '≈ 0'
+			: Number(v.toPrecision(digits)).toString();
