@@ -1,0 +1,3 @@
+import { z } from 'zod';
+
+export const readOneSchema = z.object({ id: z.uuid('That notification does not exist.') });
