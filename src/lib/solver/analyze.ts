@@ -67,7 +67,8 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	} else {
 		const { a, pm, s0 } = shiftedModel(net, oc, sc);
 		elementsOfPorts = pm.elements;
-		({ roots } = computePoles(a, pm));
+		const poleSolve = computePoles(a, pm);
+		roots = poleSolve.roots;
 		md = modalForm(pm, roots, 'transfer');
 		mdZ = modalForm(pm, roots, 'zin');
 		// Keep as many zeros as the relative degree allows, the ones nearest the shift first:
@@ -76,7 +77,10 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		let zpm = pm;
 		// With every port mode finite the modal form is exact, so no finite zero means the zero
 		// eigenproblem would only return values that the count below discards (an RC ladder).
-		let z = count === 0 && roots.length === pm.m && zerosReducible(pm) ? [] : computeZeros(a, pm);
+		let z =
+			count === 0 && roots.length === pm.m && zerosReducible(pm)
+				? []
+				: computeZeros(a, pm, poleSolve.sp);
 		for (const f of [3.7, 0.21, 17]) {
 			if (z) break;
 			zpm = portModelFrom(a, s0 * f);

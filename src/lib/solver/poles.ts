@@ -10,6 +10,7 @@ import {
 	type Spectrum
 } from './spectrum';
 import type { EigenPair } from './eigenvectors';
+import { deflatedZeroSpectrum } from './zeros-deflated';
 
 export interface Root {
 	re: number;
@@ -87,10 +88,15 @@ export function computePoles(a: Assembled, pm: PortModel): { roots: Root[]; sp: 
 	return { roots: refine(sp, () => polePencil(a), true), sp };
 }
 
-/** Transmission zeros; `null` when H(s0) = 0 so the reduction does not apply at this shift. */
-export function computeZeros(a: Assembled, pm: PortModel): Root[] | null {
+/**
+ * Transmission zeros; `null` when H(s0) = 0 so the reduction does not apply at this shift.
+ * `poles`: the pole spectrum at the same shift, whose symmetric basis lets the infinite modes be
+ * deflated first (zeros-deflated.ts).
+ */
+export function computeZeros(a: Assembled, pm: PortModel, poles?: Spectrum): Root[] | null {
 	if (!zerosReducible(pm)) return null;
-	const sp = spectrum(zeroMatrix(pm), pm.m, pm.s0, false);
+	const deflated = poles && poles.s0 === pm.s0 ? deflatedZeroSpectrum(pm, poles) : null;
+	const sp = deflated ?? spectrum(zeroMatrix(pm), pm.m, pm.s0, false);
 	return refine(sp, () => zeroPencil(a), false);
 }
 

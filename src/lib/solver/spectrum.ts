@@ -21,6 +21,8 @@ export interface Spectrum {
 	/** All μ, for the frequency-response solves. */
 	mu: { re: Float64Array; im: Float64Array };
 	s0: number;
+	/** Symmetric path: every eigenpair of S = D^½·H·D^½ (zeros-deflated.ts reuses them). */
+	basis?: { values: Float64Array; vectors: Float64Array; sqrtD: Float64Array };
 }
 
 /** M = D·A for a row-major m×m A (rows scaled by d). */
@@ -103,7 +105,7 @@ export function symmetricSpectrum(pm: PortModel): Spectrum | null {
 		const vectors = { xr, xi: new Float64Array(m), yr, yi: new Float64Array(m) };
 		s.push({ re: pm.s0 - 1 / a, im: 0, muRe: a, muIm: 0, vectors });
 	}
-	return { hs: null, s, mu, s0: pm.s0 };
+	return { hs: null, s, mu, s0: pm.s0, basis: { ...eig, sqrtD: r } };
 }
 
 /** The port model's pole matrix D·H. */
