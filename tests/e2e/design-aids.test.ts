@@ -1,0 +1,86 @@
+// The design aids on the sheet page, in Chromium against the built app: solve the demo
+// divider's trimmer and see the flat response, run a seeded Monte Carlo with progress and see
+// its yield (also after a reload), snap to E12. Each test makes its own sheet.
+import { expect, test, type Page } from '@playwright/test';
+import { newSheet, signIn, signUpFresh } from './editor-helpers';
+import { digitizerDivider } from '../../src/lib/server/db/seed/demo-sheets';
+
+const shots = process.env.DESIGN_SHOTS;
+// One fresh account for this file (sign-ups are rate limited per address); each test makes its own sheet.
+// DESIGN_ACCOUNT=email:password reuses an existing account (screenshots against a dev server).
+const given = process.env.DESIGN_ACCOUNT?.split(':');
+let account: { email: string; password: string } | null = given ? { email: given[0], password: given[1] } : null;
+
+async function openAids(page: Page) {
+	if (account) await signIn(page, account.email, account.password);
+	else account = await signUpFresh(page, 'Ines Okafor');
+	const id = await newSheet(page, digitizerDivider, 'Divider for design aids');
+	await page.goto(`/sheets/${id}`);
+	const aids = page.getByRole('region', { name: 'Design aids' });
+	await expect(aids.getByText('on saved revision 1')).toBeVisible();
+	return { id, aids };
+}
+
+test('solve the divider’s trimmer for a flat response', async ({ page }) => {
+	const { aids } = await openAids(page);
+	await aids.getByLabel('Element to adjust').selectOption('Ctop');
+	await aids.getByLabel('Goal').selectOption('flat');
+	await aids.getByRole('button', { name: 'Solve' }).click();
+	const solved = aids.getByTestId('solved-value');
+	// Closed form for the arms: 1 MΩ × (42 + 18) pF / 9 MΩ = 6.667 pF (the 50 Ω source moves it a hair).
+	await expect(solved).toContainText(/Ctop = 6\.6\d{2,3} pF/);
+	await expect(solved).toContainText('was 6.8 pF');
+	await expect(aids.getByRole('img', { name: 'Magnitude before and after' })).toBeVisible();
+	await expect(aids.getByRole('cell', { name: /6\.8 pF \(next above\)/ })).toBeVisible();
+	if (shots) await aids.screenshot({ path: `${shots}/design-solve.png` });
+});
+
+test('a seeded Monte Carlo shows progress and yield, and is still there after a reload', async ({ page }) => {
+	const { aids } = await openAids(page);
+	await aids.getByRole('tab', { name: 'Spec limits' }).click();
+	await aids.getByLabel('Flat within ± (dB)').fill('0.3');
+	await aids.getByLabel('Flat from (Hz)').fill('10');
+	await aids.getByLabel('Flat up to (Hz)').fill('1M');
+	await aids.getByRole('button', { name: 'Save limits and check' }).click();
+	await expect(aids.getByTestId('spec-verdict')).toHaveText('meets every limit');
+	await aids.getByRole('tab', { name: 'Tolerance runs' }).click();
+	await aids.getByLabel('Tolerance of Ctop in percent').fill('10');
+	await aids.getByLabel('Runs', { exact: true }).fill('3000');
+	await aids.getByLabel('Seed').fill('7');
+	await aids.getByRole('button', { name: 'Run Monte Carlo' }).click();
+	await expect(aids.getByTestId('mc-progress')).toContainText('of 3,000 runs');
+	await expect(aids.getByTestId('mc-yield')).toContainText(/Yield \d+\.\d %/, { timeout: 60_000 });
+	const yieldText = await aids.getByTestId('mc-yield').textContent();
+	await expect(aids.getByTestId('mc-progress')).toContainText('3,000 of 3,000 runs · done · revision 1');
+	await expect(aids.getByRole('img', { name: 'Histogram of Flatness (worst deviation)' })).toBeVisible();
+	if (shots) await aids.screenshot({ path: `${shots}/design-tolerance.png` });
+	await page.reload();
+	await page.getByRole('region', { name: 'Design aids' }).getByRole('tab', { name: 'Tolerance runs' }).click();
+	await expect(page.getByTestId('mc-yield')).toHaveText(yieldText!);
+});
+
+test('snap every part to E12 and see the effect', async ({ page }) => {
+	const { aids } = await openAids(page);
+	await aids.getByRole('tab', { name: 'Preferred values' }).click();
+	await aids.getByLabel('Series (IEC 60063)').selectOption('E12');
+	await aids.getByRole('button', { name: 'Snap to E12' }).click();
+	const table = aids.getByRole('table', { name: 'Preferred values' });
+	// 9 MΩ is not in E12: its neighbours are 8.2 MΩ and 10 MΩ, nearer 8.2 by ratio (IEC 60063 E12, from memory).
+	await expect(table.getByRole('row', { name: /Rtop/ })).toContainText('8.2 MΩ');
+	await expect(table.getByRole('row', { name: /Ccable/ })).toContainText('39 pF');
+	await expect(aids.getByTestId('snap-all')).toContainText('All snapped to E12');
+	if (shots) await aids.screenshot({ path: `${shots}/design-snap.png` });
+});
+
+test('sweep Ctop: pole paths and a table', async ({ page }) => {
+	const { aids } = await openAids(page);
+	await aids.getByRole('tab', { name: 'Sweep a value' }).click();
+	await aids.getByRole('button', { name: 'Sweep' }).click();
+	await expect(aids.getByRole('img', { name: 'Pole and zero paths as Ctop is swept' })).toBeVisible();
+	await expect(aids.getByText('41 points in')).toBeVisible();
+	if (shots) await aids.screenshot({ path: `${shots}/design-sweep.png` });
+	await aids.getByRole('tab', { name: 'Pole sensitivity' }).click();
+	await aids.getByRole('button', { name: 'Rank what moves each pole' }).click();
+	await expect(aids.getByText(/^Pole 1: /)).toBeVisible();
+	if (shots) await aids.screenshot({ path: `${shots}/design-sensitivity.png` });
+});
