@@ -82,7 +82,8 @@ export function dcPorts(net: ResolvedNetwork, modeOf: (k: number) => ReactiveMod
 		singular: model.pivotRatio < SINGULAR_PIVOT
 	};
 	// Scatter the solved ports back into the full port list.
-	const where = full.map((k) => present.indexOf(k));
+	const at = new Map(present.map((k, i) => [k, i]));
+	const where = full.map((k) => at.get(k) ?? -1);
 	for (let i = 0; i < m; i++) {
 		const k = full[i];
 		const [na, nb] = [els[k].nodes[0], els[k].nodes[1]];

@@ -15,13 +15,20 @@ export function participation(
 ): { element: string; share: number }[] {
 	const v = root.vectors;
 	if (!v) return [];
-	const p = elements.map((_, k) =>
-		Math.hypot(v.xr[k] * v.yr[k] - v.xi[k] * v.yi[k], v.xr[k] * v.yi[k] + v.xi[k] * v.yr[k])
-	);
-	const total = p.reduce((s, x) => s + x, 0);
+	const m = elements.length;
+	const p = new Float64Array(m);
+	let total = 0;
+	for (let k = 0; k < m; k++) {
+		const re = v.xr[k] * v.yr[k] - v.xi[k] * v.yi[k];
+		const im = v.xr[k] * v.yi[k] + v.xi[k] * v.yr[k];
+		p[k] = im === 0 ? Math.abs(re) : Math.hypot(re, im);
+		total += p[k];
+	}
 	if (!(total > 0) || !Number.isFinite(total)) return [];
-	return elements
-		.map((k, i) => ({ element: net.elements[k].id, share: p[i] / total }))
-		.filter((o) => o.share >= 1e-6)
-		.sort((a, b) => b.share - a.share);
+	const out: { element: string; share: number }[] = [];
+	for (let k = 0; k < m; k++) {
+		const share = p[k] / total;
+		if (share >= 1e-6) out.push({ element: net.elements[elements[k]].id, share });
+	}
+	return out.sort((a, b) => b.share - a.share);
 }

@@ -16,15 +16,20 @@ export function portMatrices(net: ResolvedNetwork, oc: DcPorts): Analysis['portM
 	const m = oc.m;
 	const kinds = oc.elements.map((k) => net.elements[k].type as 'C' | 'L');
 	const sign = kinds.map((t) => (t === 'C' ? 1 : -1));
-	const R = Array.from({ length: m }, (_, i) =>
-		Array.from({ length: m }, (_, j) => {
-			if (oc.singular || oc.infinite[i] || oc.infinite[j]) return null;
+	// Plain loops: this is m² cells of output, built on every analysis.
+	const R: (number | null)[][] = new Array(m);
+	const C: number[][] = new Array(m);
+	for (let i = 0; i < m; i++) {
+		const row: (number | null)[] = new Array(m);
+		const crow: number[] = new Array(m).fill(0);
+		const bad = oc.singular || oc.infinite[i] === 1;
+		for (let j = 0; j < m; j++) {
 			const v = sign[i] * oc.H[i * m + j];
-			return Number.isFinite(v) ? v : null;
-		})
-	);
-	const C = Array.from({ length: m }, (_, i) =>
-		Array.from({ length: m }, (_, j) => (i === j ? Math.abs(oc.d[i]) : 0))
-	);
+			row[j] = bad || oc.infinite[j] || !Number.isFinite(v) ? null : v;
+		}
+		crow[i] = Math.abs(oc.d[i]);
+		R[i] = row;
+		C[i] = crow;
+	}
 	return { ports: oc.elements.map((k) => net.elements[k].id), kinds, R, C };
 }

@@ -50,11 +50,21 @@ export function stepEvaluator(md: Modal): (t: number) => number {
 	const realGain = Float64Array.from(rk);
 	const cx = Float64Array.from(cp);
 	const direct = md.direct;
+	// Below −40, expm1 is exactly −1 in double precision (its own cut-off is −56·ln 2) and below
+	// −746 exp is exactly 0: skipping the call for decayed modes changes no digit.
 	return (t: number) => {
 		let y = direct + origin * t;
-		for (let i = 0; i < realRate.length; i++) y += realGain[i] * Math.expm1(realRate[i] * t);
+		for (let i = 0; i < realRate.length; i++) {
+			const x = realRate[i] * t;
+			y += realGain[i] * (x < -40 ? -1 : Math.expm1(x));
+		}
 		for (let i = 0; i < cx.length; i += 4) {
-			const er = Math.exp(cx[i] * t);
+			const x = cx[i] * t;
+			if (x < -746) {
+				y -= cx[i + 2];
+				continue;
+			}
+			const er = Math.exp(x);
 			const w = cx[i + 1] * t;
 			y += cx[i + 2] * (er * Math.cos(w) - 1) - cx[i + 3] * er * Math.sin(w);
 		}
