@@ -14,6 +14,7 @@ const RC = {
 };
 
 test('10pp is refused inline and never reaches the analysis', async ({ page }) => {
+	test.setTimeout(60_000);
 	await signUpFresh(page);
 	await openSheet(page, await newSheet(page, RC, 'Bad value'));
 	await expect(analysis(page)).toHaveAttribute('data-analysis-status', 'done');

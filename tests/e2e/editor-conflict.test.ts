@@ -54,6 +54,7 @@ test('a stale save shows the conflict banner; saving mine on top loses nothing',
 });
 
 test('loading their version keeps mine aside and can bring it back', async ({ browser }) => {
+	test.setTimeout(60_000); // two browsers and two accounts' pages on a shared 2-core machine
 	const ctxA = await browser.newContext();
 	const ctxB = await browser.newContext();
 	const a = await ctxA.newPage();

@@ -15,6 +15,7 @@ const RC = {
 };
 
 test('undo and redo walk edits back and forth; a reload after autosave shows the same circuit', async ({
+	test.setTimeout(60_000);
 	page
 }) => {
 	await signUpFresh(page);

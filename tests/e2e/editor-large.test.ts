@@ -21,7 +21,7 @@ const ladder = {
 };
 
 test('dragging a part among 200 elements keeps frames short', async ({ page }) => {
-	test.setTimeout(90_000);
+	test.setTimeout(150_000);
 	await page.setViewportSize({ width: 1440, height: 1000 });
 	await signUpFresh(page);
 	await openSheet(page, await newSheet(page, ladder, ladder.title));

@@ -18,6 +18,7 @@ async function demoSheetId(page: Page, name: string): Promise<string> {
 }
 
 test('editor screenshots, light and dark, of the seeded divider', async ({ page }) => {
+	test.setTimeout(90_000);
 	await page.setViewportSize({ width: 1440, height: 1180 });
 	await signIn(page, 'demo@polewise.test', 'polewise-demo');
 	const id = await demoSheetId(page, demoSheets[0].name);
