@@ -9,7 +9,9 @@ export default defineConfig({
 	fullyParallel: false,
 	workers: 1,
 	retries: 0,
-	timeout: 30_000,
+	// Generous: the suite also runs on a loaded 2-core machine, where a cold page can take seconds.
+	timeout: 60_000,
+	expect: { timeout: 10_000 },
 	reporter: [['list'], ['json']],
 	use: {
 		baseURL: `http://127.0.0.1:${port}`,
