@@ -3,8 +3,11 @@
  * response and step) on generated RC ladders and random RC meshes with 10…1000 capacitors, a
  * 1000-point sweep, and the growth exponent between sizes. Prints a table; writes
  * bench-results/solver.json. Repeats shrink with size so the whole run stays near 3 minutes.
+ * Each row gives the wall-clock median, the fastest run and the median process CPU time: on a
+ * shared machine the wall clock also counts the time other jobs held the cores.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
+import { loadavg } from 'node:os';
 import { analyze, frequencyResponseAt } from '../src/lib/solver/index';
 
 type Doc = {
@@ -70,48 +73,63 @@ function median(xs: number[]): number {
 }
 
 function time(fn: () => void, reps: number): number[] {
-	const out: number[] = [];
+	return timeBoth(fn, reps).wall;
+}
+
+/** Wall time and process CPU time per run. On a shared, overloaded machine the wall clock also
+ *  counts the time other jobs held the cores; CPU time (and the fastest run) show the cost. */
+function timeBoth(fn: () => void, reps: number): { wall: number[]; cpu: number[] } {
+	const wall: number[] = [];
+	const cpu: number[] = [];
 	for (let i = 0; i < reps; i++) {
+		const c = process.cpuUsage();
 		const t = performance.now();
 		fn();
-		out.push(performance.now() - t);
+		wall.push(performance.now() - t);
+		const u = process.cpuUsage(c);
+		cpu.push((u.user + u.system) / 1000);
 	}
-	return out;
+	return { wall, cpu };
 }
 
 /**
  * Machine calibration: a fixed 200×200 dense LU-like kernel (≈5.3 Mflop). Shared CI machines vary
  * by an order of magnitude; dividing by this figure makes runs comparable.
  */
-function calibrate(): number {
+function calibrate(): { wall: number; cpu: number } {
 	const n = 200;
 	const a = new Float64Array(n * n).map(
 		(_, i) => 1 + ((i * 7) % 13) / 13 + (i % (n + 1) === 0 ? n : 0)
 	);
-	return median(
-		time(() => {
-			const b = a.slice();
-			for (let k = 0; k < n; k++)
-				for (let i = k + 1; i < n; i++) {
-					const f = b[i * n + k] / b[k * n + k];
-					for (let j = k + 1; j < n; j++) b[i * n + j] -= f * b[k * n + j];
-				}
-		}, 9)
-	);
+	const runs = timeBoth(() => {
+		const b = a.slice();
+		for (let k = 0; k < n; k++)
+			for (let i = k + 1; i < n; i++) {
+				const f = b[i * n + k] / b[k * n + k];
+				for (let j = k + 1; j < n; j++) b[i * n + j] -= f * b[k * n + j];
+			}
+	}, 15);
+	return { wall: median(runs.wall), cpu: median(runs.cpu) };
 }
 
 const SIZES = [10, 30, 50, 100, 300, 1000];
-const reps = (n: number) => (n <= 50 ? 25 : n <= 100 ? 9 : n <= 300 ? 3 : 1);
+const reps = (n: number) => (n <= 50 ? 41 : n <= 100 ? 15 : n <= 300 ? 5 : 1);
 /** The whole run should stay near three minutes; a size whose projected time would blow the
  *  budget is reported as skipped with its projection rather than silently left out. */
 const BUDGET_MS = 150_000;
 const began = performance.now();
-const calibrationMs = calibrate();
-process.stderr.write(`calibration (200×200 elimination): ${calibrationMs.toFixed(1)} ms\n`);
+const loadBefore = loadavg()[0];
+const calibration = calibrate();
+const calibrationMs = calibration.wall;
+process.stderr.write(
+	`calibration (200×200 elimination): ${calibrationMs.toFixed(1)} ms (cpu ${calibration.cpu.toFixed(1)} ms); load average ${loadBefore.toFixed(1)}\n`
+);
 const rows: {
 	family: string;
 	n: number;
 	medianMs: number | null;
+	fastestMs: number | null;
+	cpuMs: number | null;
 	runs: number;
 	poles: number;
 	exponent: number | null;
@@ -122,34 +140,50 @@ for (const [family, make] of [
 	['ladder', ladder],
 	['mesh', mesh]
 ] as const) {
-	let prev: { n: number; ms: number } | null = null;
+	let prev: { n: number; ms: number; k: number } | null = null;
 	for (const n of SIZES) {
 		const doc = make(n);
 		const spent = performance.now() - began;
-		const projected = prev ? prev.ms * (n / prev.n) ** 3 : 0;
+		// Project with the growth seen so far (at least quadratic, at most cubic).
+		const k = Math.min(3, Math.max(2, prev?.k ?? 3));
+		const projected = prev ? prev.ms * (n / prev.n) ** k : 0;
 		if (prev && spent + projected * (family === 'ladder' ? 2.2 : 1.1) > BUDGET_MS) {
 			rows.push({
 				family,
 				n,
 				medianMs: null,
+				fastestMs: null,
+				cpuMs: null,
 				runs: 0,
 				poles: 0,
 				exponent: null,
-				note: `skipped: projected ${(projected / 1000).toFixed(0)} s (n³) exceeds the run budget`
+				note: `skipped: projected ${(projected / 1000).toFixed(0)} s (n^${k.toFixed(1)}) exceeds the run budget`
 			});
 			process.stderr.write(
 				`${family} ${n}: skipped (projected ${(projected / 1000).toFixed(0)} s)\n`
 			);
 			continue;
 		}
-		const r = n >= 300 ? 1 : reps(n);
-		if (n < 300) analyze(doc); // warm the JIT on this shape (large sizes warm themselves)
+		const r = reps(n);
+		if (n < 1000) analyze(doc); // warm the JIT on this shape (the largest size warms itself)
 		let poles = 0;
-		const ms = median(time(() => (poles = analyze(doc).poles.length), r));
+		const runs = timeBoth(() => (poles = analyze(doc).poles.length), r);
+		const ms = median(runs.wall);
+		const cpuMs = median(runs.cpu);
 		const exponent = prev ? Math.log(ms / prev.ms) / Math.log(n / prev.n) : null;
-		rows.push({ family, n, medianMs: ms, runs: r, poles, exponent, note: '' });
-		prev = { n, ms };
-		process.stderr.write(`${family} ${n}: ${ms.toFixed(1)} ms\n`);
+		rows.push({
+			family,
+			n,
+			medianMs: ms,
+			fastestMs: Math.min(...runs.wall),
+			cpuMs,
+			runs: r,
+			poles,
+			exponent,
+			note: ''
+		});
+		prev = { n, ms, k: exponent ?? 3 };
+		process.stderr.write(`${family} ${n}: ${ms.toFixed(1)} ms (cpu ${cpuMs.toFixed(1)} ms)\n`);
 	}
 }
 
@@ -178,11 +212,12 @@ for (const n of [10, 30, 100, 300]) {
 const pad = (s: string, w: number) => s.padStart(w);
 console.log('\nFull analysis (median)');
 console.log(
-	`${'family'.padEnd(8)}${pad('n', 6)}${pad('median ms', 12)}${pad('runs', 6)}${pad('poles', 7)}${pad('growth', 8)}`
+	`${'family'.padEnd(8)}${pad('n', 6)}${pad('median ms', 12)}${pad('fastest', 10)}${pad('cpu ms', 10)}${pad('runs', 6)}${pad('poles', 7)}${pad('growth', 8)}`
 );
+const fmt = (x: number | null) => (x === null ? '—' : x.toFixed(2));
 for (const r of rows) {
 	console.log(
-		`${r.family.padEnd(8)}${pad(String(r.n), 6)}${pad(r.medianMs === null ? '—' : r.medianMs.toFixed(2), 12)}${pad(String(r.runs), 6)}${pad(String(r.poles), 7)}${pad(r.exponent === null ? '—' : r.exponent.toFixed(2), 8)}  ${r.note}`
+		`${r.family.padEnd(8)}${pad(String(r.n), 6)}${pad(fmt(r.medianMs), 12)}${pad(fmt(r.fastestMs), 10)}${pad(fmt(r.cpuMs), 10)}${pad(String(r.runs), 6)}${pad(String(r.poles), 7)}${pad(r.exponent === null ? '—' : r.exponent.toFixed(2), 8)}  ${r.note}`
 	);
 }
 console.log('\n1000-point frequency sweep (RC ladder)');
@@ -193,8 +228,12 @@ for (const s of sweep)
 	);
 const t50 = rows.find((r) => r.family === 'ladder' && r.n === 50)!.medianMs ?? NaN;
 const t300 = Math.max(...rows.filter((r) => r.n === 300).map((r) => r.medianMs ?? Infinity));
+const loadAfter = loadavg()[0];
 console.log(
-	`\nCalibration: ${calibrationMs.toFixed(1)} ms for a 200×200 elimination (≈2.7 M multiply-adds); divide by it to compare machines.`
+	`\nCalibration: ${calibrationMs.toFixed(1)} ms wall, ${calibration.cpu.toFixed(1)} ms CPU for a 200×200 elimination (≈2.7 M multiply-adds); divide by it to compare machines.`
+);
+console.log(
+	`Load average (1 min): ${loadBefore.toFixed(1)} before, ${loadAfter.toFixed(1)} after; whole run ${((performance.now() - began) / 1000).toFixed(0)} s.`
 );
 console.log(
 	`Targets: 50 elements ≤ 5 ms: ${t50.toFixed(2)} ms ${t50 <= 5 ? 'met' : 'MISSED'}; 300 capacitors ≤ 1 s: ${t300.toFixed(0)} ms ${t300 <= 1000 ? 'met' : 'MISSED'}`
@@ -204,7 +243,15 @@ mkdirSync('bench-results', { recursive: true });
 writeFileSync(
 	'bench-results/solver.json',
 	JSON.stringify(
-		{ date: new Date().toISOString(), node: process.version, calibrationMs, analysis: rows, sweep },
+		{
+			date: new Date().toISOString(),
+			node: process.version,
+			calibrationMs,
+			calibrationCpuMs: calibration.cpu,
+			load: [loadBefore, loadAfter],
+			analysis: rows,
+			sweep
+		},
 		null,
 		2
 	) + '\n'
