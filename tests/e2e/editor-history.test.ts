@@ -15,9 +15,9 @@ const RC = {
 };
 
 test('undo and redo walk edits back and forth; a reload after autosave shows the same circuit', async ({
-	test.setTimeout(60_000);
 	page
 }) => {
+	test.setTimeout(60_000);
 	await signUpFresh(page);
 	const id = await newSheet(page, RC, 'History');
 	await openSheet(page, id);
