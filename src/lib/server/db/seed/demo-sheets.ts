@@ -31,7 +31,7 @@ export const photodiodeTia = {
 		{ id: 'Cf', type: 'C', nodes: ['inv', 'out'], value: '1.5p' },
 		{ id: 'Gm', type: 'VCCS', nodes: ['gnd', 'int', 'gnd', 'inv'], value: '1m' },
 		{ id: 'Ro', type: 'R', nodes: ['int', 'gnd'], value: '100M' },
-		{ id: 'Cc', type: 'C', nodes: ['int', 'gnd'], value: '15.9n' },
+		{ id: 'Cc', type: 'C', nodes: ['int', 'gnd'], value: '15.9p' },
 		{ id: 'Buf', type: 'VCVS', nodes: ['out', 'gnd', 'int', 'gnd'], value: 1 }
 	],
 	input: 'Iph',
