@@ -28,7 +28,8 @@ function playwrightCounts(file) {
 }
 
 export async function main({ root, args }) {
-	const only = args[0]; // optional: unit | integration | e2e
+	// optional: unit | integration | e2e | bench-e2e (the browser measurements tagged @bench)
+	const only = args[0];
 	const scratch = mkdtempSync(path.join(os.tmpdir(), 'polewise-test-'));
 	chmodSync(scratch, 0o755); // the cluster's user must be able to enter it
 	const children = [];
@@ -66,14 +67,15 @@ export async function main({ root, args }) {
 			add(vitestCounts(report));
 		}
 
-		if (!only || only === 'e2e') {
+		if (!only || only === 'e2e' || only === 'bench-e2e') {
 			ensureBrowserTools();
 			const serveDir = snapshotBuild(root);
 			scratchBuilds.push(serveDir);
 			run(tsx(root), ['scripts/db.ts', 'setup'], { cwd: root, env: { ...env, DATABASE_URL: e2eUrl }, stdio: 'ignore' });
 			const report = path.join(scratch, 'playwright.json');
 			step('Browser tests (Playwright on Debian’s Chromium)');
-			await runAsync(path.join(root, 'node_modules/.bin/playwright'), ['test'], {
+			const grep = only === 'bench-e2e' ? ['--grep', '@bench'] : ['--grep-invert', '@bench'];
+			await runAsync(path.join(root, 'node_modules/.bin/playwright'), ['test', ...grep], {
 				cwd: root,
 				env: { ...env, DATABASE_URL: e2eUrl, E2E_PORT: String(await freePort()), POLEWISE_SERVE_DIR: serveDir, PLAYWRIGHT_JSON_OUTPUT_NAME: report }
 			});

@@ -20,7 +20,8 @@ const ladder = {
 	output: { node: `n${SECTIONS}` }
 };
 
-test('dragging a part among 200 elements keeps frames short', async ({ page }) => {
+// A measurement, not a timed test: tagged @bench, it runs in `npm run bench` (not in `npm test`).
+test('dragging a part among 200 elements: frame intervals', { tag: '@bench' }, async ({ page }) => {
 	test.setTimeout(150_000);
 	await page.setViewportSize({ width: 1440, height: 1000 });
 	await signUpFresh(page);
@@ -65,8 +66,8 @@ test('dragging a part among 200 elements keeps frames short', async ({ page }) =
 	mkdirSync('test-results', { recursive: true });
 	writeFileSync('test-results/editor-drag.json', JSON.stringify(figures, null, 2));
 	console.log('drag frames', JSON.stringify(figures));
-	// The part really moved with the pointer, and the typical frame stays near the display rate.
+	// The part really moved with the pointer; the frame figures are reported, not asserted.
 	const moved = (await part.boundingBox())!;
 	expect(moved.x - box.x).toBeGreaterThan(200);
-	expect(figures.medianMs).toBeLessThan(34);
+	expect(figures.frames).toBeGreaterThan(10);
 });
