@@ -36,6 +36,8 @@ test('solve the divider’s trimmer for a flat response', async ({ page }) => {
 });
 
 test('a seeded Monte Carlo shows progress and yield, and is still there after a reload', async ({ page }) => {
+	// A background job on a shared 2-core machine: allow for a slow queue.
+	test.setTimeout(120_000);
 	const { aids } = await openAids(page);
 	await aids.getByRole('tab', { name: 'Spec limits' }).click();
 	await aids.getByLabel('Flat within ± (dB)').fill('0.3');
@@ -45,13 +47,13 @@ test('a seeded Monte Carlo shows progress and yield, and is still there after a 
 	await expect(aids.getByTestId('spec-verdict')).toHaveText('meets every limit');
 	await aids.getByRole('tab', { name: 'Tolerance runs' }).click();
 	await aids.getByLabel('Tolerance of Ctop in percent').fill('10');
-	await aids.getByLabel('Runs', { exact: true }).fill('3000');
+	await aids.getByLabel('Runs', { exact: true }).fill('1500');
 	await aids.getByLabel('Seed').fill('7');
 	await aids.getByRole('button', { name: 'Run Monte Carlo' }).click();
-	await expect(aids.getByTestId('mc-progress')).toContainText('of 3,000 runs');
-	await expect(aids.getByTestId('mc-yield')).toContainText(/Yield \d+\.\d %/, { timeout: 60_000 });
+	await expect(aids.getByTestId('mc-progress')).toContainText('of 1,500 runs');
+	await expect(aids.getByTestId('mc-yield')).toContainText(/Yield \d+\.\d %/, { timeout: 90_000 });
 	const yieldText = await aids.getByTestId('mc-yield').textContent();
-	await expect(aids.getByTestId('mc-progress')).toContainText('3,000 of 3,000 runs · done · revision 1');
+	await expect(aids.getByTestId('mc-progress')).toContainText('1,500 of 1,500 runs · done · revision 1');
 	await expect(aids.getByRole('img', { name: 'Histogram of Flatness (worst deviation)' })).toBeVisible();
 	if (shots) await aids.screenshot({ path: `${shots}/design-tolerance.png` });
 	await page.reload();

@@ -18,3 +18,13 @@ export function readNumber(text: string, field: string): { value: number } | { e
 export function valueOf(v: unknown): number {
 	return typeof v === 'number' ? v : parseValue(String(v ?? ''));
 }
+
+/** Decibels as a designer reads them: 0.155 dB, 5.4e-5 dB (never "155 mdB"). */
+export const db = (v: number | null | undefined) => (v === null || v === undefined || Number.isNaN(v) ? '—' : `${Math.abs(v) < 1e-3 && v !== 0 ? v.toExponential(1) : v.toFixed(3)} dB`);
+
+/** A relative change in percent, without a "−0.00". */
+export const percentChange = (from: number | null | undefined, to: number | null | undefined) => {
+	if (!from || !to) return '—';
+	const p = (to / from - 1) * 100;
+	return `${Math.abs(p) < 0.005 ? '0.00' : p.toFixed(2)} %`;
+};
