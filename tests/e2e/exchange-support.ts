@@ -5,6 +5,8 @@ import { expect, type Page } from '@playwright/test';
 export async function freshAccount(page: Page, name = 'Ilse Marchetti') {
 	const email = `exchange-${Date.now()}-${Math.random().toString(36).slice(2, 7)}@example.test`;
 	await page.goto('/sign-up');
+	// Fill only once the form is hydrated (a fill before hydration can be wiped).
+	await page.waitForLoadState('networkidle');
 	await page.getByLabel('Your name').fill(name);
 	await page.getByLabel('E-mail address').fill(email);
 	await page.getByLabel('Password').fill('bench check password 77');

@@ -48,7 +48,17 @@ export class ExchangeState {
 	loaded = $state(false);
 	error = $state<string | null>(null);
 
-	constructor(readonly sheetId: string) {}
+	sheetId = $state('');
+
+	/** Show another sheet's measurements (the page component is reused between sheets). */
+	open(sheetId: string): void {
+		if (sheetId === this.sheetId) return;
+		this.sheetId = sheetId;
+		this.items = [];
+		this.hidden.clear();
+		this.loaded = false;
+		void this.load();
+	}
 
 	get base() {
 		return `/api/sheets/${this.sheetId}`;
@@ -81,7 +91,9 @@ export class ExchangeState {
 	}
 
 	async load(): Promise<void> {
+		const id = this.sheetId;
 		const r = await fetch(`${this.base}/measurements?curves=1`);
+		if (id !== this.sheetId) return; // another sheet was opened meanwhile
 		if (!r.ok) {
 			this.error =
 				(await r.json().catch(() => null))?.error ??
