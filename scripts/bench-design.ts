@@ -33,26 +33,52 @@ function bench(name: string, doc: Doc, sweepElement: string) {
 	const x = typeof element.value === 'number' ? element.value : 6.8e-12;
 	analyze(doc); // warm-up
 	const analyzeMs = Math.min(...Array.from({ length: 5 }, () => time(() => analyze(doc))));
-	const sweepMs = time(() => sweep(doc, { axes: [{ element: sweepElement, from: x / 3, to: x * 3, points: 200, scale: 'log' }] }));
+	const sweepMs = time(() =>
+		sweep(doc, {
+			axes: [{ element: sweepElement, from: x / 3, to: x * 3, points: 200, scale: 'log' }]
+		})
+	);
 	const tolerances = doc.elements
 		.filter((e) => e.type === 'R' || e.type === 'C')
-		.map((e) => ({ element: e.id, tolerance: e.type === 'R' ? 0.01 : 0.05, distribution: 'uniform' as const }));
+		.map((e) => ({
+			element: e.id,
+			tolerance: e.type === 'R' ? 0.01 : 0.05,
+			distribution: 'uniform' as const
+		}));
 	const spec = { flatness: { withinDb: 0.5, fLo: 10, fHi: 1e5 } };
 	const mcMs = time(() => monteCarlo(doc, { tolerances, runs: 10_000, seed: 1, spec }));
 	const sensMs = time(() => sensitivity(doc));
 	const reactive = doc.elements.filter((e) => e.type === 'C' || e.type === 'L').length;
-	return { name, elements: doc.elements.length, reactive, analyzeMs, sweepMs, sweepPerPointMs: sweepMs / 200, mcMs, mcPerRunMs: mcMs / 10_000, sensitivityMs: sensMs };
+	return {
+		name,
+		elements: doc.elements.length,
+		reactive,
+		analyzeMs,
+		sweepMs,
+		sweepPerPointMs: sweepMs / 200,
+		mcMs,
+		mcPerRunMs: mcMs / 10_000,
+		sensitivityMs: sensMs
+	};
 }
 
-const rows = [bench('demo divider (digitizerDivider)', digitizerDivider, 'Ctop'), bench('100-element random network', hundredElements(), 'C1')];
+const rows = [
+	bench('demo divider (digitizerDivider)', digitizerDivider, 'Ctop'),
+	bench('100-element random network', hundredElements(), 'C1')
+];
 const f = (x: number) => (x < 10 ? x.toFixed(3) : x.toFixed(0));
 console.log('\nDesign aids (ms)');
-console.log('network                            elements reactive  analyze  sweep200  per point  MC10000  per run  sensitivity');
+console.log(
+	'network                            elements reactive  analyze  sweep200  per point  MC10000  per run  sensitivity'
+);
 for (const r of rows) {
 	console.log(
 		`${r.name.padEnd(34)} ${String(r.elements).padStart(8)} ${String(r.reactive).padStart(8)} ${f(r.analyzeMs).padStart(8)} ${f(r.sweepMs).padStart(9)} ${f(r.sweepPerPointMs).padStart(10)} ${f(r.mcMs).padStart(8)} ${f(r.mcPerRunMs).padStart(8)} ${f(r.sensitivityMs).padStart(12)}`
 	);
 }
 mkdirSync('bench-results', { recursive: true });
-writeFileSync('bench-results/design.json', JSON.stringify({ when: new Date().toISOString(), node: process.version, rows }, null, 2));
+writeFileSync(
+	'bench-results/design.json',
+	JSON.stringify({ when: new Date().toISOString(), node: process.version, rows }, null, 2)
+);
 console.log('\nwritten bench-results/design.json');

@@ -9,7 +9,9 @@ const shots = process.env.DESIGN_SHOTS;
 // One fresh account for this file (sign-ups are rate limited per address); each test makes its own sheet.
 // DESIGN_ACCOUNT=email:password reuses an existing account (screenshots against a dev server).
 const given = process.env.DESIGN_ACCOUNT?.split(':');
-let account: { email: string; password: string } | null = given ? { email: given[0], password: given[1] } : null;
+let account: { email: string; password: string } | null = given
+	? { email: given[0], password: given[1] }
+	: null;
 
 async function openAids(page: Page) {
 	if (account) await signIn(page, account.email, account.password);
@@ -35,7 +37,9 @@ test('solve the divider’s trimmer for a flat response', async ({ page }) => {
 	if (shots) await aids.screenshot({ path: `${shots}/design-solve.png` });
 });
 
-test('a seeded Monte Carlo shows progress and yield, and is still there after a reload', async ({ page }) => {
+test('a seeded Monte Carlo shows progress and yield, and is still there after a reload', async ({
+	page
+}) => {
 	// A background job on a shared 2-core machine: allow for a slow queue.
 	test.setTimeout(120_000);
 	const { aids } = await openAids(page);
@@ -53,11 +57,18 @@ test('a seeded Monte Carlo shows progress and yield, and is still there after a 
 	await expect(aids.getByTestId('mc-progress')).toContainText('of 1,500 runs');
 	await expect(aids.getByTestId('mc-yield')).toContainText(/Yield \d+\.\d %/, { timeout: 90_000 });
 	const yieldText = await aids.getByTestId('mc-yield').textContent();
-	await expect(aids.getByTestId('mc-progress')).toContainText('1,500 of 1,500 runs · done · revision 1');
-	await expect(aids.getByRole('img', { name: 'Histogram of Flatness (worst deviation)' })).toBeVisible();
+	await expect(aids.getByTestId('mc-progress')).toContainText(
+		'1,500 of 1,500 runs · done · revision 1'
+	);
+	await expect(
+		aids.getByRole('img', { name: 'Histogram of Flatness (worst deviation)' })
+	).toBeVisible();
 	if (shots) await aids.screenshot({ path: `${shots}/design-tolerance.png` });
 	await page.reload();
-	await page.getByRole('region', { name: 'Design aids' }).getByRole('tab', { name: 'Tolerance runs' }).click();
+	await page
+		.getByRole('region', { name: 'Design aids' })
+		.getByRole('tab', { name: 'Tolerance runs' })
+		.click();
 	await expect(page.getByTestId('mc-yield')).toHaveText(yieldText!);
 });
 
@@ -78,7 +89,9 @@ test('sweep Ctop: pole paths and a table', async ({ page }) => {
 	const { aids } = await openAids(page);
 	await aids.getByRole('tab', { name: 'Sweep a value' }).click();
 	await aids.getByRole('button', { name: 'Sweep' }).click();
-	await expect(aids.getByRole('img', { name: 'Pole and zero paths as Ctop is swept' })).toBeVisible();
+	await expect(
+		aids.getByRole('img', { name: 'Pole and zero paths as Ctop is swept' })
+	).toBeVisible();
 	await expect(aids.getByText('41 points in')).toBeVisible();
 	if (shots) await aids.screenshot({ path: `${shots}/design-sweep.png` });
 	await aids.getByRole('tab', { name: 'Pole sensitivity' }).click();

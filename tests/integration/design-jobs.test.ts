@@ -31,11 +31,21 @@ afterAll(async () => {
 async function world() {
 	const [ana, eve] = [await person('Ana'), await person('Eve')];
 	const ws = await createWorkspace(ana.id, 'Design bench');
-	const { sheet } = await createSheet({ userId: ana.id, workspaceId: ws.id, name: 'Divider', document: digitizerDivider });
+	const { sheet } = await createSheet({
+		userId: ana.id,
+		workspaceId: ws.id,
+		name: 'Divider',
+		document: digitizerDivider
+	});
 	return { ana, eve, sheet };
 }
 
-async function waitFor(user: { id: string; email: string; name: string }, id: string, until: (j: { state: string; done: number }) => boolean, ms = 60_000) {
+async function waitFor(
+	user: { id: string; email: string; name: string },
+	id: string,
+	until: (j: { state: string; done: number }) => boolean,
+	ms = 60_000
+) {
 	const end = Date.now() + ms;
 	for (;;) {
 		const r = await call(job.GET, { user, params: { id } });
@@ -47,7 +57,11 @@ async function waitFor(user: { id: string; email: string; name: string }, id: st
 describe('design aids API', () => {
 	it('solve: the demo divider’s trimmer comes out near R·C/R (6.67 pF) with E24 neighbours', async () => {
 		const { ana } = await world();
-		const r = await call(solve.POST, { user: ana, method: 'POST', body: { document: digitizerDivider, element: 'Ctop', goal: { kind: 'flat' } } });
+		const r = await call(solve.POST, {
+			user: ana,
+			method: 'POST',
+			body: { document: digitizerDivider, element: 'Ctop', goal: { kind: 'flat' } }
+		});
 		expect(r.status).toBe(200);
 		expect(r.body.value).toBeGreaterThan(6.6e-12);
 		expect(r.body.value).toBeLessThan(6.75e-12);
@@ -56,14 +70,38 @@ describe('design aids API', () => {
 
 	it('sync endpoints answer 401 signed out, 400 naming the field, 422 naming the element', async () => {
 		const { ana } = await world();
-		expect((await call(sens.POST, { method: 'POST', body: { document: digitizerDivider } })).status).toBe(401);
-		const bad = await call(solve.POST, { user: ana, method: 'POST', body: { document: digitizerDivider, element: 'Ctop', goal: { kind: 'bandwidth', target: -1 } } });
+		expect(
+			(await call(sens.POST, { method: 'POST', body: { document: digitizerDivider } })).status
+		).toBe(401);
+		const bad = await call(solve.POST, {
+			user: ana,
+			method: 'POST',
+			body: { document: digitizerDivider, element: 'Ctop', goal: { kind: 'bandwidth', target: -1 } }
+		});
 		expect(bad.status).toBe(400);
 		expect(bad.body.error).toMatch(/goal\.target/);
-		const unknown = await call(sweep.POST, { user: ana, method: 'POST', body: { document: digitizerDivider, axes: [{ element: 'Cx', from: 1e-12, to: 1e-11, points: 5 }] } });
+		const unknown = await call(sweep.POST, {
+			user: ana,
+			method: 'POST',
+			body: {
+				document: digitizerDivider,
+				axes: [{ element: 'Cx', from: 1e-12, to: 1e-11, points: 5 }]
+			}
+		});
 		expect(unknown.status).toBe(422);
 		expect(unknown.body).toMatchObject({ code: 'unknown_element', element: 'Cx' });
-		const noDoc = await call(sens.POST, { user: ana, method: 'POST', body: { document: { schema: 1, elements: [{ id: 'R1', type: 'Q', nodes: ['a', 'b'] }], input: 'V', output: { node: 'a' } } } });
+		const noDoc = await call(sens.POST, {
+			user: ana,
+			method: 'POST',
+			body: {
+				document: {
+					schema: 1,
+					elements: [{ id: 'R1', type: 'Q', nodes: ['a', 'b'] }],
+					input: 'V',
+					output: { node: 'a' }
+				}
+			}
+		});
 		expect(noDoc.status).toBe(400);
 		expect(noDoc.body.element).toBe('R1');
 	});
@@ -72,9 +110,21 @@ describe('design aids API', () => {
 		const { ana } = await world();
 		// The CSV answer is text, so this one call builds its own event.
 		const url = new URL('http://127.0.0.1/api/design/sweep?format=csv');
-		const body = { document: digitizerDivider, axes: [{ element: 'Ctop', from: 5e-12, to: 8e-12, points: 4, scale: 'linear' }] };
-		const request = new Request(url, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
-		const res = await sweep.POST({ request, url, params: {}, locals: { user: ana, session: null, auth: 'session' } } as unknown as RequestEvent);
+		const body = {
+			document: digitizerDivider,
+			axes: [{ element: 'Ctop', from: 5e-12, to: 8e-12, points: 4, scale: 'linear' }]
+		};
+		const request = new Request(url, {
+			method: 'POST',
+			headers: { 'content-type': 'application/json' },
+			body: JSON.stringify(body)
+		});
+		const res = await sweep.POST({
+			request,
+			url,
+			params: {},
+			locals: { user: ana, session: null, auth: 'session' }
+		} as unknown as RequestEvent);
 		expect(res.status).toBe(200);
 		expect(res.headers.get('content-type')).toMatch(/^text\/csv/);
 		const lines = (await res.text()).trim().split('\r\n');
@@ -83,7 +133,14 @@ describe('design aids API', () => {
 		const w = await call(worst.POST, {
 			user: ana,
 			method: 'POST',
-			body: { document: digitizerDivider, method: 'corners', tolerances: [{ element: 'Rtop', tolerance: 0.01, distribution: 'uniform' }, { element: 'Radc', tolerance: 0.01, distribution: 'uniform' }] }
+			body: {
+				document: digitizerDivider,
+				method: 'corners',
+				tolerances: [
+					{ element: 'Rtop', tolerance: 0.01, distribution: 'uniform' },
+					{ element: 'Radc', tolerance: 0.01, distribution: 'uniform' }
+				]
+			}
 		});
 		expect(w.status).toBe(200);
 		// DC gain extremes: Radc/(Rtop + Rsrc + Radc) at the opposite corners (closed form).
@@ -93,14 +150,38 @@ describe('design aids API', () => {
 
 	it('spec limits are stored with the sheet, judged per revision, and only editors may change them', async () => {
 		const { ana, eve, sheet } = await world();
-		const body = { spec: { dcGain: { min: 0.099, max: 0.101 }, flatness: { withinDb: 0.05, fLo: 10, fHi: 1e6 } }, tolerances: { elements: [{ element: 'Ctop', tolerance: 0.05, distribution: 'uniform' }], runs: 200, seed: 5 } };
-		expect((await call(settings.PUT, { user: eve, method: 'PUT', params: { id: sheet.id }, body })).status).toBe(404);
-		const bad = await call(settings.PUT, { user: ana, method: 'PUT', params: { id: sheet.id }, body: { ...body, spec: { flatness: { withinDb: 1, fLo: 10, fHi: 1 } } } });
+		const body = {
+			spec: { dcGain: { min: 0.099, max: 0.101 }, flatness: { withinDb: 0.05, fLo: 10, fHi: 1e6 } },
+			tolerances: {
+				elements: [{ element: 'Ctop', tolerance: 0.05, distribution: 'uniform' }],
+				runs: 200,
+				seed: 5
+			}
+		};
+		expect(
+			(await call(settings.PUT, { user: eve, method: 'PUT', params: { id: sheet.id }, body }))
+				.status
+		).toBe(404);
+		const bad = await call(settings.PUT, {
+			user: ana,
+			method: 'PUT',
+			params: { id: sheet.id },
+			body: { ...body, spec: { flatness: { withinDb: 1, fLo: 10, fHi: 1 } } }
+		});
 		expect(bad.status).toBe(400);
 		expect(bad.body.error).toMatch(/^spec\.flatness\.fHi/);
-		expect((await call(settings.PUT, { user: ana, method: 'PUT', params: { id: sheet.id }, body })).status).toBe(200);
-		expect((await call(settings.GET, { user: ana, params: { id: sheet.id } })).body.settings).toEqual(body);
-		const judged = await call(spec.GET, { user: ana, params: { id: sheet.id }, path: '/x?revision=1' });
+		expect(
+			(await call(settings.PUT, { user: ana, method: 'PUT', params: { id: sheet.id }, body }))
+				.status
+		).toBe(200);
+		expect(
+			(await call(settings.GET, { user: ana, params: { id: sheet.id } })).body.settings
+		).toEqual(body);
+		const judged = await call(spec.GET, {
+			user: ana,
+			params: { id: sheet.id },
+			path: '/x?revision=1'
+		});
 		expect(judged.status).toBe(200);
 		expect(judged.body.revision).toBe(1);
 		// The demo divider is a little over-compensated (6.8 pF against 6.67 pF): 0.17 dB of lift.
@@ -116,7 +197,14 @@ describe('design aids API', () => {
 			user: ana,
 			method: 'PUT',
 			params: { id: sheet.id },
-			body: { spec: { flatness: { withinDb: 0.3, fLo: 10, fHi: 1e6 } }, tolerances: { elements: [{ element: 'Ctop', tolerance: 0.1, distribution: 'uniform' }], runs: 1000, seed: 11 } }
+			body: {
+				spec: { flatness: { withinDb: 0.3, fLo: 10, fHi: 1e6 } },
+				tolerances: {
+					elements: [{ element: 'Ctop', tolerance: 0.1, distribution: 'uniform' }],
+					runs: 1000,
+					seed: 11
+				}
+			}
 		});
 		const started = await call(mc.POST, { user: ana, method: 'POST', body: { sheetId: sheet.id } });
 		expect(started.status).toBe(202);
@@ -134,7 +222,11 @@ describe('design aids API', () => {
 		expect(list.body.jobs.map((j: { id: string }) => j.id)).toContain(id);
 		// Same seed, same request: the same numbers (reproducible runs).
 		const again = await call(mc.POST, { user: ana, method: 'POST', body: { sheetId: sheet.id } });
-		const second = await waitFor(ana, again.body.job.id, (j) => j.state === 'done' || j.state === 'failed');
+		const second = await waitFor(
+			ana,
+			again.body.job.id,
+			(j) => j.state === 'done' || j.state === 'failed'
+		);
 		expect(second.result.figures).toEqual(done.result.figures);
 	});
 
@@ -143,12 +235,27 @@ describe('design aids API', () => {
 		const none = await call(mc.POST, { user: ana, method: 'POST', body: { sheetId: sheet.id } });
 		expect(none.status).toBe(400);
 		expect(none.body.error).toMatch(/at least one element a tolerance/);
-		const unknown = await call(mc.POST, { user: ana, method: 'POST', body: { sheetId: sheet.id, tolerances: [{ element: 'Cx', tolerance: 0.1, distribution: 'uniform' }] } });
+		const unknown = await call(mc.POST, {
+			user: ana,
+			method: 'POST',
+			body: {
+				sheetId: sheet.id,
+				tolerances: [{ element: 'Cx', tolerance: 0.1, distribution: 'uniform' }]
+			}
+		});
 		expect(unknown.status).toBe(422);
 		const started = await call(mc.POST, {
 			user: ana,
 			method: 'POST',
-			body: { sheetId: sheet.id, runs: 10000, seed: 2, tolerances: [{ element: 'Ctop', tolerance: 0.1, distribution: 'normal' }, { element: 'Ccable', tolerance: 0.1, distribution: 'uniform' }] }
+			body: {
+				sheetId: sheet.id,
+				runs: 10000,
+				seed: 2,
+				tolerances: [
+					{ element: 'Ctop', tolerance: 0.1, distribution: 'normal' },
+					{ element: 'Ccable', tolerance: 0.1, distribution: 'uniform' }
+				]
+			}
 		});
 		const id = started.body.job.id;
 		await waitFor(ana, id, (j) => j.done > 0);

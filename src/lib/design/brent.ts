@@ -14,10 +14,17 @@ export interface RootResult {
  * Zero of f in [a, b] where f(a) and f(b) differ in sign: inverse quadratic interpolation and
  * secant steps, falling back to bisection whenever they would not shrink the bracket enough.
  */
-export function brentRoot(f: (x: number) => number, a: number, b: number, tol = 1e-12, maxIter = 200): RootResult {
+export function brentRoot(
+	f: (x: number) => number,
+	a: number,
+	b: number,
+	tol = 1e-12,
+	maxIter = 200
+): RootResult {
 	let fa = f(a);
 	let fb = f(b);
-	if (!Number.isFinite(fa) || !Number.isFinite(fb) || fa * fb > 0) throw new RangeError('brentRoot needs a bracket with a sign change');
+	if (!Number.isFinite(fa) || !Number.isFinite(fb) || fa * fb > 0)
+		throw new RangeError('brentRoot needs a bracket with a sign change');
 	if (fa === 0) return { x: a, fx: 0, iterations: 0 };
 	let c = a;
 	let fc = fa;
@@ -83,7 +90,13 @@ export interface MinResult {
  * Golden-section alone guarantees linear convergence even on a V-shaped (non-smooth) minimum,
  * which is what a worst-case deviation looks like around a pole–zero cancellation.
  */
-export function brentMinimize(f: (x: number) => number, a: number, b: number, tol = 1e-10, maxIter = 200): MinResult {
+export function brentMinimize(
+	f: (x: number) => number,
+	a: number,
+	b: number,
+	tol = 1e-10,
+	maxIter = 200
+): MinResult {
 	const golden = 0.381966011250105;
 	let x = a + golden * (b - a);
 	let w = x;

@@ -24,6 +24,10 @@ export class DesignError extends Error {
 	}
 
 	toJSON(): { error: string; code: string; element?: string } {
-		return { error: this.message, code: this.code, ...(this.element !== undefined ? { element: this.element } : {}) };
+		return {
+			error: this.message,
+			code: this.code,
+			...(this.element !== undefined ? { element: this.element } : {})
+		};
 	}
 }

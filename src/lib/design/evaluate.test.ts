@@ -20,12 +20,18 @@ describe('evaluate on a prepared network', () => {
 		const fast = evaluateWith(v, { [id]: value });
 		const full = analyze(documentWith(doc, { [id]: value }));
 		expect(fast.poles).toHaveLength(full.poles.length);
-		fast.poles.forEach((p, i) => expect(Math.hypot(p.re - full.poles[i].re, p.im - full.poles[i].im) / Math.hypot(p.re, p.im)).toBeLessThan(1e-9));
+		fast.poles.forEach((p, i) =>
+			expect(
+				Math.hypot(p.re - full.poles[i].re, p.im - full.poles[i].im) / Math.hypot(p.re, p.im)
+			).toBeLessThan(1e-9)
+		);
 		expect(fast.zeros).toHaveLength(full.zeros.length);
 		expect(rel(fast.dcGain!, full.dcGain!)).toBeLessThan(1e-9);
 		expect(rel(fast.bandwidth!, full.bandwidth!)).toBeLessThan(1e-9);
-		if (full.step?.overshoot != null) expect(Math.abs(fast.overshoot! - full.step.overshoot)).toBeLessThan(1e-6);
-		if (full.step?.riseTime != null) expect(rel(fast.riseTime!, full.step.riseTime)).toBeLessThan(1e-6);
+		if (full.step?.overshoot != null)
+			expect(Math.abs(fast.overshoot! - full.step.overshoot)).toBeLessThan(1e-6);
+		if (full.step?.riseTime != null)
+			expect(rel(fast.riseTime!, full.step.riseTime)).toBeLessThan(1e-6);
 	});
 
 	it('a purely resistive divider gives its ratio and input resistance (closed form R2/(R1+R2), R1+R2)', () => {

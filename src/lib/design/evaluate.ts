@@ -7,7 +7,12 @@ import { frequencyRange } from '../solver/response-range';
 import { shiftedModel } from '../solver/shift';
 import { byMagnitude, singularity } from '../solver/singularity';
 import { stepResponse } from '../solver/step-response';
-import { openCircuitPorts, openCircuitTimeConstants, shortCircuitPorts, shortCircuitTimeConstants } from '../solver/time-constants';
+import {
+	openCircuitPorts,
+	openCircuitTimeConstants,
+	shortCircuitPorts,
+	shortCircuitTimeConstants
+} from '../solver/time-constants';
 import { SolverError } from '../solver/errors';
 import type { Prepared } from './prepared';
 import { fastBandwidth, fastStepFigures, logMag2 } from './fast-figures';
@@ -83,7 +88,10 @@ function shiftedPortModel(p: Prepared, s0: number): PortModel {
 		if (pm.pivotRatio >= SINGULAR_PIVOT) return pm;
 		if (s0 === 0) break;
 	}
-	throw new SolverError('singular', "the network's equations have no unique solution at this value");
+	throw new SolverError(
+		'singular',
+		"the network's equations have no unique solution at this value"
+	);
 }
 
 export function evaluate(p: Prepared, shift: number, opts: EvaluateOptions = {}): Evaluation {
@@ -94,7 +102,10 @@ export function evaluate(p: Prepared, shift: number, opts: EvaluateOptions = {})
 	let pz: PzForm | null = null;
 	let md: Modal;
 	if (p.net.reactive.length === 0) {
-		pz = Number.isFinite(pm.h0) && pm.h0 !== 0 ? { logK: Math.log(Math.abs(pm.h0)), argK: pm.h0 < 0 ? Math.PI : 0, poles: [], zeros: [] } : null;
+		pz =
+			Number.isFinite(pm.h0) && pm.h0 !== 0
+				? { logK: Math.log(Math.abs(pm.h0)), argK: pm.h0 < 0 ? Math.PI : 0, poles: [], zeros: [] }
+				: null;
 		md = { direct: pm.h0, poles: [] };
 	} else {
 		roots = computePoles(a, pm).roots;
@@ -109,8 +120,12 @@ export function evaluate(p: Prepared, shift: number, opts: EvaluateOptions = {})
 		if (z) {
 			// As the analysis does: keep as many zeros as the relative degree allows, nearest the shift first.
 			const count = Math.max(0, roots.length - relativeDegree(md, pm.h0));
-			const byMu = z.map((r, i) => ({ i, mu: Math.hypot(r.muRe, r.muIm) })).sort((x, y) => y.mu - x.mu);
-			const keep = new Set(byMu.slice(0, Math.max(count, z.length > roots.length ? z.length : 0)).map((x) => x.i));
+			const byMu = z
+				.map((r, i) => ({ i, mu: Math.hypot(r.muRe, r.muIm) }))
+				.sort((x, y) => y.mu - x.mu);
+			const keep = new Set(
+				byMu.slice(0, Math.max(count, z.length > roots.length ? z.length : 0)).map((x) => x.i)
+			);
 			zeroRoots = z.filter((_, i) => keep.has(i));
 			pz = pzForm(roots, zeroRoots, zpm.s0, zpm.h0);
 		}
@@ -135,7 +150,12 @@ export function evaluate(p: Prepared, shift: number, opts: EvaluateOptions = {})
 		const slow = Math.min(...poles.map((q) => Math.abs(q.re)), Infinity);
 		const fast = Math.max(...poles.map((q) => Math.hypot(q.re, q.im)), 0);
 		const tEnd = Number.isFinite(slow) ? 10 / slow : fast > 0 ? 10 / fast : 1;
-		({ riseTime, overshoot, settlingTime } = fastStepFigures(md, dcGain, tEnd, fast > 0 ? 1 / fast : tEnd));
+		({ riseTime, overshoot, settlingTime } = fastStepFigures(
+			md,
+			dcGain,
+			tEnd,
+			fast > 0 ? 1 / fast : tEnd
+		));
 	}
 
 	let flatnessDb: number | null = null;
@@ -160,7 +180,9 @@ export function evaluate(p: Prepared, shift: number, opts: EvaluateOptions = {})
 	let inputResistance: number | null = null;
 	let inputCapacitance: number | null = null;
 	if (opts.inputAt !== undefined) {
-		const mdZ: Modal = p.net.reactive.length ? modalForm(pm, roots, 'zin') : { direct: pm.hz0, poles: [] };
+		const mdZ: Modal = p.net.reactive.length
+			? modalForm(pm, roots, 'zin')
+			: { direct: pm.hz0, poles: [] };
 		if (!poleAtZero) {
 			const v = evalModal(mdZ, 0, 0);
 			// A V input that draws no DC current looks into an open circuit: infinite, not unknown.

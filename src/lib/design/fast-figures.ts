@@ -23,7 +23,12 @@ export function logMag2(pz: PzForm, w: number): number {
 }
 
 /** First −3 dB crossing scanning up from fMin (as the analysis defines it), in Hz. */
-export function fastBandwidth(pz: PzForm, dcGain: number | null, range: { fMin: number; fMax: number }, scan = 120): number | null {
+export function fastBandwidth(
+	pz: PzForm,
+	dcGain: number | null,
+	range: { fMin: number; fMax: number },
+	scan = 120
+): number | null {
 	if (dcGain === 0) return null;
 	const at = (x: number) => logMag2(pz, 2 * Math.PI * Math.exp(x));
 	const a = Math.log(range.fMin);
@@ -67,7 +72,13 @@ export interface StepFigures {
 }
 
 /** Rise time 10–90 %, overshoot (%) and settling to 1 % of the final value. */
-export function fastStepFigures(md: Modal, final: number, tEnd: number, tFast: number, points = 400): StepFigures {
+export function fastStepFigures(
+	md: Modal,
+	final: number,
+	tEnd: number,
+	tFast: number,
+	points = 400
+): StepFigures {
 	const u = (x: number) => stepAt(md, x) / final;
 	const grid = [0];
 	const t0 = Math.min(tFast, tEnd) * 1e-3;
@@ -75,7 +86,8 @@ export function fastStepFigures(md: Modal, final: number, tEnd: number, tFast: n
 	const vals = grid.map(u);
 	const cross = (level: number) => {
 		if (vals[0] >= level) return 0;
-		for (let i = 1; i < grid.length; i++) if (vals[i] >= level) return bisect((x) => u(x) - level, grid[i - 1], grid[i]);
+		for (let i = 1; i < grid.length; i++)
+			if (vals[i] >= level) return bisect((x) => u(x) - level, grid[i - 1], grid[i]);
 		return null;
 	};
 	const t10 = cross(0.1);
@@ -109,5 +121,9 @@ export function fastStepFigures(md: Modal, final: number, tEnd: number, tFast: n
 		const side = vals[last] > 1 ? 1.01 : 0.99;
 		settlingTime = bisect((x) => u(x) - side, grid[last], grid[last + 1]);
 	}
-	return { riseTime: t10 !== null && t90 !== null ? t90 - t10 : null, overshoot: Math.max(0, (peak - 1) * 100), settlingTime };
+	return {
+		riseTime: t10 !== null && t90 !== null ? t90 - t10 : null,
+		overshoot: Math.max(0, (peak - 1) * 100),
+		settlingTime
+	};
 }

@@ -3,13 +3,16 @@ import { decadeValues, SERIES, snapToSeries } from './preferred-values';
 
 describe('IEC 60063 series', () => {
 	// Series lengths: n values per decade is the definition of the En series (IEC 60063).
-	it.each(SERIES.map((s) => [s, Number(s.slice(1))] as const))('%s has %i values per decade, rising', (series, n) => {
-		const values = decadeValues(series);
-		expect(values).toHaveLength(n);
-		for (let i = 1; i < n; i++) expect(values[i]).toBeGreaterThan(values[i - 1]);
-		expect(values[0]).toBe(1);
-		expect(values[n - 1]).toBeLessThan(10);
-	});
+	it.each(SERIES.map((s) => [s, Number(s.slice(1))] as const))(
+		'%s has %i values per decade, rising',
+		(series, n) => {
+			const values = decadeValues(series);
+			expect(values).toHaveLength(n);
+			for (let i = 1; i < n; i++) expect(values[i]).toBeGreaterThan(values[i - 1]);
+			expect(values[0]).toBe(1);
+			expect(values[n - 1]).toBeLessThan(10);
+		}
+	);
 
 	// Each series is every other value of the next finer one (E6 ⊂ E12 ⊂ E24, E48 ⊂ E96 ⊂ E192):
 	// a property of how IEC 60063 builds the series.
@@ -57,7 +60,9 @@ describe('snapping a value to a series', () => {
 	});
 
 	it.each([0, -1, Infinity, NaN])('refuses %s with a message', (v) => {
-		expect(() => snapToSeries(v, 'E24')).toThrow('a preferred value needs a positive finite number');
+		expect(() => snapToSeries(v, 'E24')).toThrow(
+			'a preferred value needs a positive finite number'
+		);
 	});
 });
 

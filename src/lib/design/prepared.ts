@@ -82,7 +82,10 @@ export function prepareNetwork(doc: unknown): Prepared {
  * controlled sources take this path, and a sheet has few of them.
  */
 function differenceStamp(net: ResolvedNetwork, k: number, a: Assembled): Stamp {
-	const bumped = { ...net, elements: net.elements.map((e, i) => (i === k ? { ...e, value: e.value + 1 } : e)) };
+	const bumped = {
+		...net,
+		elements: net.elements.map((e, i) => (i === k ? { ...e, value: e.value + 1 } : e))
+	};
 	const b = assemble(bumped, () => 'pencil');
 	const stamp: Stamp = [];
 	for (let i = 0; i < a.g.length; i++) {
@@ -102,7 +105,9 @@ export function elementOf(p: Prepared, id: string): PreparedElement {
 		const known = p.net.elements.some((x) => x.id === id);
 		throw new DesignError(
 			known ? 'not_adjustable' : 'unknown_element',
-			known ? `element "${id}" has no value to adjust (sources and op-amps are fixed)` : `element "${id}" is not in the network`,
+			known
+				? `element "${id}" has no value to adjust (sources and op-amps are fixed)`
+				: `element "${id}" is not in the network`,
 			{ element: id }
 		);
 	}
@@ -116,13 +121,18 @@ const theta = (e: PreparedElement, v: number) => (e.kind === 'conductance' ? 1 /
  * value. The G matrix is rebuilt from the nominal copy each call, so thousands of runs never
  * accumulate rounding drift.
  */
-export function applyValues(p: Prepared, values: Map<number, number> | ((e: PreparedElement) => number)): void {
+export function applyValues(
+	p: Prepared,
+	values: Map<number, number> | ((e: PreparedElement) => number)
+): void {
 	const g = p.assembled.g;
 	g.set(p.nominalG);
 	for (const e of p.elements) {
 		const v = typeof values === 'function' ? values(e) : (values.get(e.index) ?? e.nominal);
 		if (!Number.isFinite(v) || (v === 0 && e.kind !== 'linear')) {
-			throw new DesignError('bad_value', `element "${e.id}": value ${v} cannot be analyzed`, { element: e.id });
+			throw new DesignError('bad_value', `element "${e.id}": value ${v} cannot be analyzed`, {
+				element: e.id
+			});
 		}
 		p.current[e.index] = v;
 		p.net.elements[e.index].value = v;
@@ -141,6 +151,12 @@ export function resetValues(p: Prepared): void {
 }
 
 /** The document with the given values written in (numbers in SI base units). */
-export function documentWith(doc: { elements: { id: string; value?: unknown }[] }, values: Record<string, number>) {
-	return { ...doc, elements: doc.elements.map((e) => (e.id in values ? { ...e, value: values[e.id] } : e)) };
+export function documentWith(
+	doc: { elements: { id: string; value?: unknown }[] },
+	values: Record<string, number>
+) {
+	return {
+		...doc,
+		elements: doc.elements.map((e) => (e.id in values ? { ...e, value: values[e.id] } : e))
+	};
 }

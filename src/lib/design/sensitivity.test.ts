@@ -21,7 +21,13 @@ const valueOf = (doc: Doc, id: string) => doc.elements.find((e) => e.id === id)!
 const QUICK = { step: false, frequency: false } as const;
 
 /** Central difference of analyze()'s figures in ln x (the full solver, re-run from the document). */
-function finiteDifference(doc: Doc, mids: { re: number; im: number }[], id: string, x: number, h = 1e-5) {
+function finiteDifference(
+	doc: Doc,
+	mids: { re: number; im: number }[],
+	id: string,
+	x: number,
+	h = 1e-5
+) {
 	const up = analyze(documentWith(doc, { [id]: x * (1 + h) }), QUICK);
 	const dn = analyze(documentWith(doc, { [id]: x * (1 - h) }), QUICK);
 	return {
@@ -33,8 +39,12 @@ function finiteDifference(doc: Doc, mids: { re: number; im: number }[], id: stri
 			const d = mid.re * mid.re + mid.im * mid.im;
 			return { re: (dr * mid.re + di * mid.im) / d, im: (di * mid.re - dr * mid.im) / d };
 		}),
-		bandwidth: up.bandwidth && dn.bandwidth ? Math.log(up.bandwidth / dn.bandwidth) / Math.log((1 + h) / (1 - h)) : null,
-		dcGain: up.dcGain && dn.dcGain ? Math.log(up.dcGain / dn.dcGain) / Math.log((1 + h) / (1 - h)) : null
+		bandwidth:
+			up.bandwidth && dn.bandwidth
+				? Math.log(up.bandwidth / dn.bandwidth) / Math.log((1 + h) / (1 - h))
+				: null,
+		dcGain:
+			up.dcGain && dn.dcGain ? Math.log(up.dcGain / dn.dcGain) / Math.log((1 + h) / (1 - h)) : null
 	};
 }
 
@@ -65,32 +75,65 @@ describe('sensitivity', () => {
 	const cases: [string, Doc][] = [
 		['anti-alias (complex poles, op-amp)', antiAliasFilter],
 		['TIA (VCCS, VCVS)', photodiodeTia],
-		...Array.from({ length: 4 }, (_, k) => [`random network #${k + 1}`, randomNetwork(seededRandom(100 + k), 4 + k)] as [string, Doc])
+		...Array.from(
+			{ length: 4 },
+			(_, k) =>
+				[`random network #${k + 1}`, randomNetwork(seededRandom(100 + k), 4 + k)] as [string, Doc]
+		)
 	];
-	it.each(cases)('%s: pole, bandwidth and DC gain sensitivities agree with finite differences', (_name, doc0) => {
-		// Values as numbers so the finite differences can scale them.
-		const doc = { ...doc0, elements: doc0.elements.map((e) => ({ ...e, value: typeof e.value === 'string' ? parseSi(e.value) : e.value })) };
-		const s = sensitivity(doc);
-		const full = analyze(doc, QUICK);
-		expect(s.poles.length).toBe(full.poles.length);
-		for (const id of s.elements) {
-			const x = valueOf(doc, id);
-			const fd = finiteDifference(doc, full.poles, id, x);
-			s.poles.forEach((ps, i) => {
-				const e = ps.entries.find((q) => q.element === id)!;
-				const scale = Math.max(1e-3, Math.hypot(fd.poles[i].re, fd.poles[i].im));
-				expect(Math.hypot(e.re - fd.poles[i].re, e.im - fd.poles[i].im) / scale, `${id} on pole ${i}`).toBeLessThan(1e-4);
-			});
-			if (fd.dcGain !== null) expect(Math.abs(s.dcGain.entries.find((q) => q.element === id)!.re - fd.dcGain), `${id} on DC gain`).toBeLessThan(1e-5);
-			if (fd.bandwidth !== null && s.bandwidth.entries.length) {
-				expect(Math.abs(s.bandwidth.entries.find((q) => q.element === id)!.re - fd.bandwidth), `${id} on bandwidth`).toBeLessThan(1e-4);
+	it.each(cases)(
+		'%s: pole, bandwidth and DC gain sensitivities agree with finite differences',
+		(_name, doc0) => {
+			// Values as numbers so the finite differences can scale them.
+			const doc = {
+				...doc0,
+				elements: doc0.elements.map((e) => ({
+					...e,
+					value: typeof e.value === 'string' ? parseSi(e.value) : e.value
+				}))
+			};
+			const s = sensitivity(doc);
+			const full = analyze(doc, QUICK);
+			expect(s.poles.length).toBe(full.poles.length);
+			for (const id of s.elements) {
+				const x = valueOf(doc, id);
+				const fd = finiteDifference(doc, full.poles, id, x);
+				s.poles.forEach((ps, i) => {
+					const e = ps.entries.find((q) => q.element === id)!;
+					const scale = Math.max(1e-3, Math.hypot(fd.poles[i].re, fd.poles[i].im));
+					expect(
+						Math.hypot(e.re - fd.poles[i].re, e.im - fd.poles[i].im) / scale,
+						`${id} on pole ${i}`
+					).toBeLessThan(1e-4);
+				});
+				if (fd.dcGain !== null)
+					expect(
+						Math.abs(s.dcGain.entries.find((q) => q.element === id)!.re - fd.dcGain),
+						`${id} on DC gain`
+					).toBeLessThan(1e-5);
+				if (fd.bandwidth !== null && s.bandwidth.entries.length) {
+					expect(
+						Math.abs(s.bandwidth.entries.find((q) => q.element === id)!.re - fd.bandwidth),
+						`${id} on bandwidth`
+					).toBeLessThan(1e-4);
+				}
 			}
 		}
-	});
+	);
 });
 
 function parseSi(v: string): number {
 	const m = /^([0-9.eE+-]+)\s*([pnuµmkMG]?)/.exec(v)!;
-	const scale: Record<string, number> = { '': 1, p: 1e-12, n: 1e-9, u: 1e-6, µ: 1e-6, m: 1e-3, k: 1e3, M: 1e6, G: 1e9 };
+	const scale: Record<string, number> = {
+		'': 1,
+		p: 1e-12,
+		n: 1e-9,
+		u: 1e-6,
+		µ: 1e-6,
+		m: 1e-3,
+		k: 1e3,
+		M: 1e6,
+		G: 1e9
+	};
 	return Number(m[1]) * scale[m[2]];
 }

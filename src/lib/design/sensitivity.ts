@@ -52,7 +52,14 @@ const div = (a: C, b: C): C => {
 };
 
 /** wᵀ(∂A/∂θ-stamp)z for complex vectors given as re/im arrays. */
-function stampForm(e: PreparedElement, n: number, wr: Float64Array, wi: Float64Array, zr: Float64Array, zi: Float64Array): C {
+function stampForm(
+	e: PreparedElement,
+	n: number,
+	wr: Float64Array,
+	wi: Float64Array,
+	zr: Float64Array,
+	zi: Float64Array
+): C {
 	let re = 0;
 	let im = 0;
 	for (const s of e.stamp) {
@@ -65,13 +72,26 @@ function stampForm(e: PreparedElement, n: number, wr: Float64Array, wi: Float64A
 }
 
 /** (wᵀvec)(vecᵀz) for one port. */
-function portForm(p: Prepared, e: PreparedElement, wr: Float64Array, wi: Float64Array, zr: Float64Array, zi: Float64Array): C {
+function portForm(
+	p: Prepared,
+	e: PreparedElement,
+	wr: Float64Array,
+	wi: Float64Array,
+	zr: Float64Array,
+	zi: Float64Array
+): C {
 	const vec = p.assembled.ports[e.port].vec;
 	return mul([dot(vec, wr), dot(vec, wi)], [dot(vec, zr), dot(vec, zi)]);
 }
 
 /** ∂A/∂x in the form wᵀ(∂A/∂x)z, at complex frequency s. */
-function derivativeForm(p: Prepared, e: PreparedElement, s: C, w: [Float64Array, Float64Array], z: [Float64Array, Float64Array]): C {
+function derivativeForm(
+	p: Prepared,
+	e: PreparedElement,
+	s: C,
+	w: [Float64Array, Float64Array],
+	z: [Float64Array, Float64Array]
+): C {
 	const n = p.assembled.size;
 	const x = p.current[e.index];
 	if (e.kind === 'port') {
@@ -95,10 +115,14 @@ function poleSensitivities(p: Prepared, roots: Root[], s0: number): PoleSensitiv
 	const n = a.size;
 	const m = a.ports.length;
 	const mat = a.g.slice();
-	for (const port of a.ports) for (const [r, x] of port.vec) for (const [c, y] of port.vec) mat[r * n + c] += s0 * port.d * x * y;
+	for (const port of a.ports)
+		for (const [r, x] of port.vec)
+			for (const [c, y] of port.vec) mat[r * n + c] += s0 * port.d * x * y;
 	const lu = luFactor(mat, n);
 	const out: PoleSensitivity[] = [];
-	const sorted = roots.filter((r) => r.vectors).sort((x, y) => Math.hypot(x.re, x.im) - Math.hypot(y.re, y.im) || x.im - y.im);
+	const sorted = roots
+		.filter((r) => r.vectors)
+		.sort((x, y) => Math.hypot(x.re, x.im) - Math.hypot(y.re, y.im) || x.im - y.im);
 	for (const root of sorted) {
 		const v = root.vectors!;
 		const spread = (re: Float64Array | number[], im: Float64Array | number[]) => {
@@ -132,7 +156,10 @@ function poleSensitivities(p: Prepared, roots: Root[], s0: number): PoleSensitiv
 			const dp = div([-num[0], -num[1]], den);
 			return entry(e.id, div(mul(dp, [p.current[e.index], 0]), pole));
 		});
-		out.push({ pole: { re: root.re, im: root.im, hz: Math.hypot(root.re, root.im) / (2 * Math.PI) }, entries: entries.sort(byMagnitude) });
+		out.push({
+			pole: { re: root.re, im: root.im, hz: Math.hypot(root.re, root.im) / (2 * Math.PI) },
+			entries: entries.sort(byMagnitude)
+		});
 	}
 	return out;
 }
@@ -143,13 +170,16 @@ function adjointAt(p: Prepared, w: number) {
 	const n = a.size;
 	const re = a.g.slice();
 	const im = new Float64Array(n * n);
-	for (const port of a.ports) for (const [r, x] of port.vec) for (const [c, y] of port.vec) im[r * n + c] += w * port.d * x * y;
+	for (const port of a.ports)
+		for (const [r, x] of port.vec)
+			for (const [c, y] of port.vec) im[r * n + c] += w * port.d * x * y;
 	const tr = new Float64Array(n * n);
 	const ti = new Float64Array(n * n);
-	for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
-		tr[j * n + i] = re[i * n + j];
-		ti[j * n + i] = im[i * n + j];
-	}
+	for (let i = 0; i < n; i++)
+		for (let j = 0; j < n; j++) {
+			tr[j * n + i] = re[i * n + j];
+			ti[j * n + i] = im[i * n + j];
+		}
 	const f = cluFactor(re, im, n);
 	const ft = cluFactor(tr, ti, n);
 	if (f.singular || ft.singular) return null;
@@ -176,7 +206,11 @@ function dcAdjoint(p: Prepared) {
 	for (const [r, x] of a.c) l[r] += x;
 	luSolveTransposed(lu, l);
 	const zero = new Float64Array(n);
-	return { u: [u, zero] as [Float64Array, Float64Array], l: [l, zero] as [Float64Array, Float64Array], h: dot(a.c, u) };
+	return {
+		u: [u, zero] as [Float64Array, Float64Array],
+		l: [l, zero] as [Float64Array, Float64Array],
+		h: dot(a.c, u)
+	};
 }
 
 export function sensitivity(doc: unknown): SensitivityResult {
@@ -202,7 +236,10 @@ export function sensitivity(doc: unknown): SensitivityResult {
 			// F_ω = 2 Re(H_ω / H) with H_ω = −λᵀ(jC)u.
 			let cf: C = [0, 0];
 			for (const port of p.assembled.ports) {
-				const f = mul([dot(port.vec, at.l[0]), dot(port.vec, at.l[1])], [dot(port.vec, at.u[0]), dot(port.vec, at.u[1])]);
+				const f = mul(
+					[dot(port.vec, at.l[0]), dot(port.vec, at.l[1])],
+					[dot(port.vec, at.u[0]), dot(port.vec, at.u[1])]
+				);
 				cf = [cf[0] + port.d * f[0], cf[1] + port.d * f[1]];
 			}
 			const hw = mul([0, -1], cf);

@@ -32,7 +32,11 @@ const rcLowPass = {
 describe('solve for a value', () => {
 	it('flat divider: the trimmer equals R2·C2/R1 and the response is flat', () => {
 		// Closed form: equal arm time constants R1·C1 = R2·C2 make H(s) = R2/(R1+R2) at every s.
-		const r = solveForValue(idealDivider('4p'), { element: 'Ctrim', goal: { kind: 'flat' }, range: { from: 1e-12, to: 50e-12 } });
+		const r = solveForValue(idealDivider('4p'), {
+			element: 'Ctrim',
+			goal: { kind: 'flat' },
+			range: { from: 1e-12, to: 50e-12 }
+		});
 		expect(rel(r.value, (1e6 * 60e-12) / 9e6)).toBeLessThan(1e-6);
 		// Zero deviation "within tolerance": well under a micro-decibel over the band.
 		expect(r.figure!).toBeLessThan(1e-5);
@@ -61,7 +65,10 @@ describe('solve for a value', () => {
 	});
 
 	it('target DC gain of a resistive divider: R2 = R1·k/(1 − k) (closed form)', () => {
-		const doc = { ...idealDivider('1p'), elements: idealDivider('1p').elements.filter((e) => e.type !== 'C') };
+		const doc = {
+			...idealDivider('1p'),
+			elements: idealDivider('1p').elements.filter((e) => e.type !== 'C')
+		};
 		const r = solveForValue(doc, { element: 'R2', goal: { kind: 'dcGain', target: 0.25 } });
 		expect(rel(r.value, 9e6 / 3)).toBeLessThan(1e-9);
 	});
@@ -76,15 +83,24 @@ describe('solve for a value', () => {
 		// Overshoot = exp(−πζ/√(1−ζ²)) for a second-order all-pole response; Q = 1/(2ζ).
 		const zeta = -Math.log(0.1) / Math.sqrt(Math.PI ** 2 + Math.log(0.1) ** 2);
 		const q = 1 / (2 * zeta);
-		const r = solveForValue(antiAliasFilter, { element: 'C1', goal: { kind: 'overshoot', target: 10 } });
+		const r = solveForValue(antiAliasFilter, {
+			element: 'C1',
+			goal: { kind: 'overshoot', target: 10 }
+		});
 		expect(rel(r.value, 4 * q * q * 100e-12)).toBeLessThan(1e-6);
 	});
 
 	it('says when no value in the range reaches the target, with the span it saw', () => {
-		expect(() => solveForValue(rcLowPass, { element: 'R', goal: { kind: 'bandwidth', target: 1e9 } })).toThrow(
+		expect(() =>
+			solveForValue(rcLowPass, { element: 'R', goal: { kind: 'bandwidth', target: 1e9 } })
+		).toThrow(
 			/no value of "R" from 100 to 10k gives a bandwidth of 1 GHz; there it spans 159\.2 Hz to 15\.92 kHz/
 		);
-		expect(() => solveForValue(rcLowPass, { element: 'R', goal: { kind: 'flat' }, range: { from: 10, to: 1 } })).toThrow(/range/);
-		expect(() => solveForValue(rcLowPass, { element: 'Vin', goal: { kind: 'flat' } })).toThrow(/no value to adjust/);
+		expect(() =>
+			solveForValue(rcLowPass, { element: 'R', goal: { kind: 'flat' }, range: { from: 10, to: 1 } })
+		).toThrow(/range/);
+		expect(() => solveForValue(rcLowPass, { element: 'Vin', goal: { kind: 'flat' } })).toThrow(
+			/no value to adjust/
+		);
 	});
 });

@@ -1,7 +1,14 @@
 import { brentMinimize, brentRoot } from './brent';
 import { defaultBand } from './band';
 import { DesignError } from './errors';
-import { magnitudeDb, metricsOf, stepCurve, type Band, type Evaluation, type Metrics } from './evaluate';
+import {
+	magnitudeDb,
+	metricsOf,
+	stepCurve,
+	type Band,
+	type Evaluation,
+	type Metrics
+} from './evaluate';
 import { snapToSeries, type Series } from './preferred-values';
 import { evaluateWith, nominalOf, openVariants, type Variants } from './variants';
 import { logSpace } from '../solver/frequency-response';
@@ -51,7 +58,10 @@ export interface SolveResult {
 	step: { t: number[]; before: number[]; after: number[] };
 }
 
-const FIGURE: Record<Goal['kind'], { label: string; unit: string; of: (m: Metrics) => number | null }> = {
+const FIGURE: Record<
+	Goal['kind'],
+	{ label: string; unit: string; of: (m: Metrics) => number | null }
+> = {
 	flat: { label: 'flatness', unit: 'dB', of: (m) => m.flatnessDb },
 	bandwidth: { label: 'bandwidth', unit: 'Hz', of: (m) => m.bandwidth },
 	q: { label: 'pole Q', unit: '', of: (m) => m.maxQ },
@@ -66,23 +76,35 @@ export function solveForValue(doc: unknown, req: SolveRequest): SolveResult {
 	const x0 = nominalOf(v, req.element);
 	const range = req.range ?? { from: Math.abs(x0) / 10, to: Math.abs(x0) * 10 };
 	if (!(range.from > 0 && range.to > range.from && Number.isFinite(range.to))) {
-		throw new DesignError('bad_range', `solve for "${req.element}": the range must be two positive values, low then high`, { element: req.element });
+		throw new DesignError(
+			'bad_range',
+			`solve for "${req.element}": the range must be two positive values, low then high`,
+			{ element: req.element }
+		);
 	}
 	const sign = x0 < 0 ? -1 : 1;
 	const nominal = evaluateWith(v, {});
 	const band = req.goal.kind === 'flat' ? (req.goal.band ?? defaultBand(nominal)) : null;
 	const figureAt = (x: number): number | null => {
 		try {
-			return FIGURE[req.goal.kind].of(evaluateWith(v, { [req.element]: sign * x }, { band, step: needsStep(req.goal) }));
+			return FIGURE[req.goal.kind].of(
+				evaluateWith(v, { [req.element]: sign * x }, { band, step: needsStep(req.goal) })
+			);
 		} catch {
 			return null;
 		}
 	};
 	const lo = Math.log(range.from);
 	const hi = Math.log(range.to);
-	const grid = Array.from({ length: SCAN_POINTS }, (_, i) => lo + ((hi - lo) * i) / (SCAN_POINTS - 1));
+	const grid = Array.from(
+		{ length: SCAN_POINTS },
+		(_, i) => lo + ((hi - lo) * i) / (SCAN_POINTS - 1)
+	);
 	const scan = grid.map((u) => figureAt(Math.exp(u)));
-	const found = req.goal.kind === 'flat' ? minimizeFlat(grid, scan, figureAt) : findTarget(req, grid, scan, figureAt, Math.log(Math.abs(x0)), range);
+	const found =
+		req.goal.kind === 'flat'
+			? minimizeFlat(grid, scan, figureAt)
+			: findTarget(req, grid, scan, figureAt, Math.log(Math.abs(x0)), range);
 	const value = sign * Math.exp(found.u);
 	const series = req.series ?? 'E24';
 	const snapped = snapToSeries(Math.abs(value), series);
@@ -104,7 +126,12 @@ export function solveForValue(doc: unknown, req: SolveRequest): SolveResult {
 		atRangeEdge: found.edge,
 		before,
 		after,
-		preferred: { series, below, above, nearest: snapped.nearest === snapped.below ? 'below' : 'above' },
+		preferred: {
+			series,
+			below,
+			above,
+			nearest: snapped.nearest === snapped.below ? 'below' : 'above'
+		},
 		...curves(v, req.element, x0, value)
 	};
 }
@@ -116,11 +143,17 @@ function minimizeFlat(grid: number[], scan: (number | null)[], f: (x: number) =>
 	scan.forEach((y, i) => {
 		if (y !== null && (best < 0 || y < scan[best]!)) best = i;
 	});
-	if (best < 0) throw new DesignError('no_solution', 'the response has no DC value to be flat against anywhere in the range');
+	if (best < 0)
+		throw new DesignError(
+			'no_solution',
+			'the response has no DC value to be flat against anywhere in the range'
+		);
 	const a = grid[Math.max(0, best - 1)];
 	const b = grid[Math.min(grid.length - 1, best + 1)];
 	const r = brentMinimize((u) => f(Math.exp(u)) ?? Number.MAX_VALUE, a, b, 1e-12);
-	const edge = (best === 0 || best === grid.length - 1) && Math.min(Math.abs(r.x - grid[0]), Math.abs(r.x - grid[grid.length - 1])) < 1e-6;
+	const edge =
+		(best === 0 || best === grid.length - 1) &&
+		Math.min(Math.abs(r.x - grid[0]), Math.abs(r.x - grid[grid.length - 1])) < 1e-6;
 	return { u: r.x, iterations: r.iterations, edge };
 }
 
@@ -148,7 +181,9 @@ function findTarget(
 		const seen = scan.filter((y): y is number => y !== null);
 		const fig = FIGURE[req.goal.kind];
 		const fmt = (x: number) => formatEngineering(x, fig.unit);
-		const span = seen.length ? `; there it spans ${fmt(Math.min(...seen))} to ${fmt(Math.max(...seen))}` : `; there it is undefined`;
+		const span = seen.length
+			? `; there it spans ${fmt(Math.min(...seen))} to ${fmt(Math.max(...seen))}`
+			: `; there it is undefined`;
 		throw new DesignError(
 			'no_solution',
 			`no value of "${req.element}" from ${formatEngineering(range.from)} to ${formatEngineering(range.to)} gives a ${fig.label} of ${fmt(target)}${span}`,
@@ -167,7 +202,10 @@ function curves(v: Variants, id: string, x0: number, x1: number) {
 	const e1: Evaluation = evaluateWith(v, { [id]: x1 });
 	const r = frequencyRange([...e0.poles, ...e1.poles], [...e0.zeros, ...e1.zeros]);
 	const f = logSpace(r.fMin, r.fMax, 200);
-	const slow = Math.min(...[...e0.poles, ...e1.poles].map((p) => Math.abs(p.re)).filter((x) => x > 0), Infinity);
+	const slow = Math.min(
+		...[...e0.poles, ...e1.poles].map((p) => Math.abs(p.re)).filter((x) => x > 0),
+		Infinity
+	);
 	const tEnd = Number.isFinite(slow) ? 5 / slow : 1;
 	const s0 = stepCurve(e0, tEnd);
 	const s1 = stepCurve(e1, tEnd);

@@ -18,7 +18,13 @@ const rc = {
 
 describe('spec limits', () => {
 	it('judges an RC low-pass: f3 = 1/(2πRC) = 1.5915 kHz, rise time 2.197·RC (closed forms)', () => {
-		const spec = { bandwidthMin: 1.5e3, riseTimeMax: 2.3e-4, overshootMax: 0.1, dcGain: { min: 0.99, max: 1.01 }, inputResistanceMin: 900 };
+		const spec = {
+			bandwidthMin: 1.5e3,
+			riseTimeMax: 2.3e-4,
+			overshootMax: 0.1,
+			dcGain: { min: 0.99, max: 1.01 },
+			inputResistanceMin: 900
+		};
 		const m = evaluateWith(openVariants(rc), {}, optionsFor(spec));
 		const out = checkSpec(spec, m);
 		expect(out.checks.map((c) => [c.key, c.pass])).toEqual([
@@ -31,7 +37,10 @@ describe('spec limits', () => {
 		expect(out.pass).toBe(true);
 		const tight = checkSpec({ ...spec, bandwidthMin: 1.6e3, riseTimeMax: 2.1e-4 }, m);
 		expect(tight.pass).toBe(false);
-		expect(tight.checks.filter((c) => !c.pass).map((c) => c.key)).toEqual(['bandwidth', 'riseTime']);
+		expect(tight.checks.filter((c) => !c.pass).map((c) => c.key)).toEqual([
+			'bandwidth',
+			'riseTime'
+		]);
 		expect(tight.checks[0].shown).toBe('1.592 kHz');
 	});
 
@@ -49,7 +58,10 @@ describe('spec limits', () => {
 		const spec = { bandwidthMin: 1e3, flatness: { withinDb: 0.1, fLo: 10, fHi: 1e6 } };
 		const a = analyze(digitizerDivider);
 		const fromAnalysis = checkSpec(spec, figuresOfAnalysis(a, spec));
-		const exact = checkSpec(spec, evaluateWith(openVariants(digitizerDivider), {}, optionsFor(spec)));
+		const exact = checkSpec(
+			spec,
+			evaluateWith(openVariants(digitizerDivider), {}, optionsFor(spec))
+		);
 		expect(fromAnalysis.checks[1].value!).toBeCloseTo(exact.checks[1].value!, 2);
 		expect(exact.checks[1].pass).toBe(false);
 		const none = checkSpec({ bandwidthMin: 1 }, { bandwidth: null } as never);

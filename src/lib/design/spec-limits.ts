@@ -20,7 +20,16 @@ export interface SpecOutcome {
 	checks: SpecCheck[];
 }
 
-export type SpecFigures = Pick<Metrics, 'bandwidth' | 'riseTime' | 'overshoot' | 'flatnessDb' | 'dcGain' | 'inputResistance' | 'inputCapacitance'>;
+export type SpecFigures = Pick<
+	Metrics,
+	| 'bandwidth'
+	| 'riseTime'
+	| 'overshoot'
+	| 'flatnessDb'
+	| 'dcGain'
+	| 'inputResistance'
+	| 'inputCapacitance'
+>;
 
 export const DEFAULT_CAPACITANCE_AT = 1e6;
 
@@ -28,36 +37,110 @@ export const DEFAULT_CAPACITANCE_AT = 1e6;
 export function optionsFor(spec: SpecLimits): EvaluateOptions {
 	return {
 		band: spec.flatness ? { fLo: spec.flatness.fLo, fHi: spec.flatness.fHi } : null,
-		inputAt: spec.inputResistanceMin || spec.inputCapacitanceMax ? (spec.inputCapacitanceAt ?? DEFAULT_CAPACITANCE_AT) : undefined
+		inputAt:
+			spec.inputResistanceMin || spec.inputCapacitanceMax
+				? (spec.inputCapacitanceAt ?? DEFAULT_CAPACITANCE_AT)
+				: undefined
 	};
 }
 
-const fmt = (x: number | null, unit: string) => (x === null ? 'not defined' : formatEngineering(x, unit));
+const fmt = (x: number | null, unit: string) =>
+	x === null ? 'not defined' : formatEngineering(x, unit);
 
 export function checkSpec(spec: SpecLimits, m: SpecFigures): SpecOutcome {
 	const checks: SpecCheck[] = [];
-	const add = (key: string, label: string, limit: string, value: number | null, unit: string, ok: (v: number) => boolean) =>
-		checks.push({ key, label, limit, value, shown: fmt(value, unit), pass: value !== null && !Number.isNaN(value) && ok(value) });
-	if (spec.bandwidthMin !== undefined) add('bandwidth', 'Bandwidth (−3 dB)', `≥ ${fmt(spec.bandwidthMin, 'Hz')}`, m.bandwidth, 'Hz', (v) => v >= spec.bandwidthMin!);
-	if (spec.riseTimeMax !== undefined) add('riseTime', 'Rise time 10–90 %', `≤ ${fmt(spec.riseTimeMax, 's')}`, m.riseTime, 's', (v) => v <= spec.riseTimeMax!);
+	const add = (
+		key: string,
+		label: string,
+		limit: string,
+		value: number | null,
+		unit: string,
+		ok: (v: number) => boolean
+	) =>
+		checks.push({
+			key,
+			label,
+			limit,
+			value,
+			shown: fmt(value, unit),
+			pass: value !== null && !Number.isNaN(value) && ok(value)
+		});
+	if (spec.bandwidthMin !== undefined)
+		add(
+			'bandwidth',
+			'Bandwidth (−3 dB)',
+			`≥ ${fmt(spec.bandwidthMin, 'Hz')}`,
+			m.bandwidth,
+			'Hz',
+			(v) => v >= spec.bandwidthMin!
+		);
+	if (spec.riseTimeMax !== undefined)
+		add(
+			'riseTime',
+			'Rise time 10–90 %',
+			`≤ ${fmt(spec.riseTimeMax, 's')}`,
+			m.riseTime,
+			's',
+			(v) => v <= spec.riseTimeMax!
+		);
 	if (spec.overshootMax !== undefined) {
-		add('overshoot', 'Step overshoot', `≤ ${spec.overshootMax} %`, m.overshoot, '%', (v) => v <= spec.overshootMax!);
+		add(
+			'overshoot',
+			'Step overshoot',
+			`≤ ${spec.overshootMax} %`,
+			m.overshoot,
+			'%',
+			(v) => v <= spec.overshootMax!
+		);
 	}
 	if (spec.flatness) {
 		const f = spec.flatness;
-		add('flatness', `Flatness ${fmt(f.fLo, 'Hz')}–${fmt(f.fHi, 'Hz')}`, `within ±${f.withinDb} dB`, m.flatnessDb, 'dB', (v) => v <= f.withinDb);
+		add(
+			'flatness',
+			`Flatness ${fmt(f.fLo, 'Hz')}–${fmt(f.fHi, 'Hz')}`,
+			`within ±${f.withinDb} dB`,
+			m.flatnessDb,
+			'dB',
+			(v) => v <= f.withinDb
+		);
 	}
 	if (spec.dcGain && (spec.dcGain.min !== undefined || spec.dcGain.max !== undefined)) {
 		const { min, max } = spec.dcGain;
-		const limit = min !== undefined && max !== undefined ? `${min} to ${max}` : min !== undefined ? `≥ ${min}` : `≤ ${max}`;
-		add('dcGain', 'DC gain', limit, m.dcGain, '', (v) => (min === undefined || v >= min) && (max === undefined || v <= max));
+		const limit =
+			min !== undefined && max !== undefined
+				? `${min} to ${max}`
+				: min !== undefined
+					? `≥ ${min}`
+					: `≤ ${max}`;
+		add(
+			'dcGain',
+			'DC gain',
+			limit,
+			m.dcGain,
+			'',
+			(v) => (min === undefined || v >= min) && (max === undefined || v <= max)
+		);
 	}
 	if (spec.inputResistanceMin !== undefined) {
-		add('inputResistance', 'Input resistance (DC)', `≥ ${fmt(spec.inputResistanceMin, 'Ω')}`, m.inputResistance, 'Ω', (v) => v >= spec.inputResistanceMin!);
+		add(
+			'inputResistance',
+			'Input resistance (DC)',
+			`≥ ${fmt(spec.inputResistanceMin, 'Ω')}`,
+			m.inputResistance,
+			'Ω',
+			(v) => v >= spec.inputResistanceMin!
+		);
 	}
 	if (spec.inputCapacitanceMax !== undefined) {
 		const at = spec.inputCapacitanceAt ?? DEFAULT_CAPACITANCE_AT;
-		add('inputCapacitance', `Input capacitance at ${fmt(at, 'Hz')}`, `≤ ${fmt(spec.inputCapacitanceMax, 'F')}`, m.inputCapacitance, 'F', (v) => v <= spec.inputCapacitanceMax!);
+		add(
+			'inputCapacitance',
+			`Input capacitance at ${fmt(at, 'Hz')}`,
+			`≤ ${fmt(spec.inputCapacitanceMax, 'F')}`,
+			m.inputCapacitance,
+			'F',
+			(v) => v <= spec.inputCapacitanceMax!
+		);
 	}
 	return { pass: checks.every((c) => c.pass), checks };
 }
@@ -89,10 +172,12 @@ export function figuresOfAnalysis(a: Analysis, spec: SpecLimits): SpecFigures {
 		const i = zin.f.findIndex((f) => f >= at);
 		if (i > 0) {
 			const t = Math.log(at / zin.f[i - 1]) / Math.log(zin.f[i] / zin.f[i - 1]);
-			const lerp = (u: number | null, v: number | null) => (u === null || v === null ? null : u + (v - u) * t);
+			const lerp = (u: number | null, v: number | null) =>
+				u === null || v === null ? null : u + (v - u) * t;
 			const mag = lerp(zin.magnitude[i - 1], zin.magnitude[i]);
 			const ph = lerp(zin.phaseDeg[i - 1], zin.phaseDeg[i]);
-			if (mag && ph !== null) inputCapacitance = Math.sin((-ph * Math.PI) / 180) / (mag * 2 * Math.PI * at);
+			if (mag && ph !== null)
+				inputCapacitance = Math.sin((-ph * Math.PI) / 180) / (mag * 2 * Math.PI * at);
 		}
 	}
 	return {

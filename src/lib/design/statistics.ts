@@ -25,7 +25,18 @@ export interface Histogram {
 
 export function statistics(xs: number[], runs = xs.length): Statistics {
 	const n = xs.length;
-	if (n === 0) return { count: 0, runs, mean: NaN, std: NaN, min: NaN, max: NaN, p01: NaN, p50: NaN, p99: NaN };
+	if (n === 0)
+		return {
+			count: 0,
+			runs,
+			mean: NaN,
+			std: NaN,
+			min: NaN,
+			max: NaN,
+			p01: NaN,
+			p50: NaN,
+			p99: NaN
+		};
 	// Two-pass mean and variance: the figures are large numbers with small spreads (Hz, Ω).
 	let mean = 0;
 	for (const x of xs) mean += x;
@@ -38,7 +49,17 @@ export function statistics(xs: number[], runs = xs.length): Statistics {
 		const i = Math.floor(at);
 		return i + 1 < n ? sorted[i] + (sorted[i + 1] - sorted[i]) * (at - i) : sorted[n - 1];
 	};
-	return { count: n, runs, mean, std: n > 1 ? Math.sqrt(ss / (n - 1)) : 0, min: sorted[0], max: sorted[n - 1], p01: pct(0.01), p50: pct(0.5), p99: pct(0.99) };
+	return {
+		count: n,
+		runs,
+		mean,
+		std: n > 1 ? Math.sqrt(ss / (n - 1)) : 0,
+		min: sorted[0],
+		max: sorted[n - 1],
+		p01: pct(0.01),
+		p50: pct(0.5),
+		p99: pct(0.99)
+	};
 }
 
 export function histogram(xs: number[], bins: number): Histogram {

@@ -24,7 +24,10 @@ const cell = (x: unknown): string => {
 	return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 };
 
-export function metricsCsv(valueColumns: string[], rows: { values: number[]; metrics: Metrics | null; error?: string | null }[]): string {
+export function metricsCsv(
+	valueColumns: string[],
+	rows: { values: number[]; metrics: Metrics | null; error?: string | null }[]
+): string {
 	const poles = Math.max(0, ...rows.map((r) => r.metrics?.poles.length ?? 0));
 	const zeros = Math.max(0, ...rows.map((r) => r.metrics?.zeros.length ?? 0));
 	const header = [
@@ -37,7 +40,9 @@ export function metricsCsv(valueColumns: string[], rows: { values: number[]; met
 	const lines = rows.map((r) => {
 		const m = r.metrics;
 		const pz = (list: { re: number; im: number }[] | undefined, n: number) =>
-			Array.from({ length: n }, (_, i) => (list && list[i] ? [list[i].re, list[i].im] : [null, null])).flat();
+			Array.from({ length: n }, (_, i) =>
+				list && list[i] ? [list[i].re, list[i].im] : [null, null]
+			).flat();
 		return [
 			...r.values,
 			...METRIC_COLUMNS.map((c) => (m ? (m[c.key] as number | null) : null)),

@@ -20,12 +20,18 @@ export function randomNetwork(rand: () => number, nodes: number, { extras = true
 			const j = Math.floor(rand() * (i - 1));
 			el.push({ id: `Rx${i}`, type: 'R', nodes: [name(j), name(i)], value: spread(1e4) });
 		}
-		if (i > 1 && rand() < 0.3) el.push({ id: `Cx${i}`, type: 'C', nodes: [name(i - 1), name(i)], value: spread(1e-10) });
+		if (i > 1 && rand() < 0.3)
+			el.push({ id: `Cx${i}`, type: 'C', nodes: [name(i - 1), name(i)], value: spread(1e-10) });
 	}
 	el.push({ id: 'Rload', type: 'R', nodes: [name(nodes), 'gnd'], value: spread(1e4) });
 	if (extras) {
 		el.push({ id: 'L1', type: 'L', nodes: [name(1), 'gnd'], value: spread(1e-3) });
-		el.push({ id: 'G1', type: 'VCCS', nodes: [name(nodes), 'gnd', name(1), 'gnd'], value: spread(1e-5) });
+		el.push({
+			id: 'G1',
+			type: 'VCCS',
+			nodes: [name(nodes), 'gnd', name(1), 'gnd'],
+			value: spread(1e-5)
+		});
 	}
 	return { schema: 1, elements: el, input: 'Vin', output: { node: name(nodes) } };
 }

@@ -20,25 +20,43 @@ describe('Monte Carlo', () => {
 	// u²(k) = (∂k/∂R1)² u²(R1) + (∂k/∂R2)² u²(R2), ∂k/∂R1 = −R2/(R1+R2)², ∂k/∂R2 = R1/(R1+R2)².
 	// Standard uncertainties: uniform ±t → t·R/√3 (GUM 4.3.7); normal with t = 3σ → t·R/3.
 	it.each([
-		['uniform', Math.sqrt(3)],
-		['normal', 3]
-	] as const)('resistive divider ratio, %s 1 %%: mean and σ agree with the GUM within the statistical error', (distribution, divisor) => {
-		const N = 10_000;
-		const t = 0.01;
-		const r = monteCarlo(divider, { tolerances: ['R1', 'R2'].map((element) => ({ element, tolerance: t, distribution })), runs: N, seed: 7 });
-		const gain = r.figures.find((f) => f.figure === 'dcGain')!.stats;
-		const [R1, R2] = [9000, 1000];
-		const k = R2 / (R1 + R2);
-		const u = Math.hypot((R2 / (R1 + R2) ** 2) * ((t * R1) / divisor), (R1 / (R1 + R2) ** 2) * ((t * R2) / divisor));
-		expect(gain.count).toBe(N);
-		// Mean: standard error σ/√N; the second-order bias (≈1e-6 here) is far below it. 4 SE.
-		expect(Math.abs(gain.mean - k)).toBeLessThan((4 * u) / Math.sqrt(N));
-		// Standard deviation: its standard error is about σ/√(2(N−1)) for a near-normal figure. 4 SE.
-		expect(Math.abs(gain.std - u)).toBeLessThan((4 * u) / Math.sqrt(2 * (N - 1)));
-	});
+		{ distribution: 'uniform', divisor: Math.sqrt(3) },
+		{ distribution: 'normal', divisor: 3 }
+	] as const)(
+		'resistive divider ratio, $distribution ±1 percent: mean and σ agree with the GUM within the statistical error',
+		({ distribution, divisor }) => {
+			const N = 10_000;
+			const t = 0.01;
+			const r = monteCarlo(divider, {
+				tolerances: ['R1', 'R2'].map((element) => ({ element, tolerance: t, distribution })),
+				runs: N,
+				seed: 7
+			});
+			const gain = r.figures.find((f) => f.figure === 'dcGain')!.stats;
+			const [R1, R2] = [9000, 1000];
+			const k = R2 / (R1 + R2);
+			const u = Math.hypot(
+				(R2 / (R1 + R2) ** 2) * ((t * R1) / divisor),
+				(R1 / (R1 + R2) ** 2) * ((t * R2) / divisor)
+			);
+			expect(gain.count).toBe(N);
+			// Mean: standard error σ/√N; the second-order bias (≈1e-6 here) is far below it. 4 SE.
+			expect(Math.abs(gain.mean - k)).toBeLessThan((4 * u) / Math.sqrt(N));
+			// Standard deviation: its standard error is about σ/√(2(N−1)) for a near-normal figure. 4 SE.
+			expect(Math.abs(gain.std - u)).toBeLessThan((4 * u) / Math.sqrt(2 * (N - 1)));
+		},
+		60_000
+	);
 
 	it('is reproducible from its seed whatever the chunking, and a different seed differs', () => {
-		const req = { tolerances: [{ element: 'Ctop', tolerance: 0.05, distribution: 'uniform' as const }, { element: 'Radc', tolerance: 0.01, distribution: 'normal' as const }], runs: 60, seed: 42 };
+		const req = {
+			tolerances: [
+				{ element: 'Ctop', tolerance: 0.05, distribution: 'uniform' as const },
+				{ element: 'Radc', tolerance: 0.01, distribution: 'normal' as const }
+			],
+			runs: 60,
+			seed: 42
+		};
 		const v = openVariants(digitizerDivider);
 		const whole = monteCarloChunk(v, req, 0, 60);
 		const split = [...monteCarloChunk(v, req, 0, 17), ...monteCarloChunk(v, req, 17, 60)];
@@ -46,7 +64,9 @@ describe('Monte Carlo', () => {
 		const other = monteCarloChunk(v, { ...req, seed: 43 }, 0, 60);
 		expect(other).not.toEqual(whole);
 		const s = summarize(v, req, whole);
-		expect(s.figures.find((f) => f.figure === 'bandwidth')!.histogram.counts.reduce((a, b) => a + b, 0)).toBe(60);
+		expect(
+			s.figures.find((f) => f.figure === 'bandwidth')!.histogram.counts.reduce((a, b) => a + b, 0)
+		).toBe(60);
 	});
 
 	it('counts yield against spec limits and says which limit bites', () => {
@@ -60,33 +80,57 @@ describe('Monte Carlo', () => {
 		expect(r.yield!.fraction).toBeGreaterThan(0.2);
 		expect(r.yield!.fraction).toBeLessThan(1);
 		expect(r.yield!.byCheck.find((c) => c.key === 'dcGain')!.fraction).toBe(1);
-		expect(r.yield!.byCheck.find((c) => c.key === 'flatness')!.fraction).toBeCloseTo(r.yield!.fraction, 12);
+		expect(r.yield!.byCheck.find((c) => c.key === 'flatness')!.fraction).toBeCloseTo(
+			r.yield!.fraction,
+			12
+		);
 	});
 
 	it('stops when cancelled and reports progress', () => {
 		const seen: number[] = [];
 		const signal = { aborted: false };
 		expect(() =>
-			monteCarlo(digitizerDivider, { tolerances: [{ element: 'Ctop', tolerance: 0.1, distribution: 'uniform' }], runs: 1000, seed: 1 }, {
-				signal,
-				onProgress: (done) => {
-					seen.push(done);
-					if (done >= 500) signal.aborted = true;
+			monteCarlo(
+				digitizerDivider,
+				{
+					tolerances: [{ element: 'Ctop', tolerance: 0.1, distribution: 'uniform' }],
+					runs: 1000,
+					seed: 1
+				},
+				{
+					signal,
+					onProgress: (done) => {
+						seen.push(done);
+						if (done >= 500) signal.aborted = true;
+					}
 				}
-			})
+			)
 		).toThrow(/cancelled/);
 		expect(seen).toEqual([250, 500]);
 	});
 
 	it('names an unknown element', () => {
-		expect(() => monteCarlo(divider, { tolerances: [{ element: 'R9', tolerance: 0.01, distribution: 'uniform' }], runs: 10, seed: 1 })).toThrow(/"R9"/);
+		expect(() =>
+			monteCarlo(divider, {
+				tolerances: [{ element: 'R9', tolerance: 0.01, distribution: 'uniform' }],
+				runs: 10,
+				seed: 1
+			})
+		).toThrow(/"R9"/);
 	});
 });
 
 describe('worst case', () => {
 	it('corners of a resistive divider bracket the ratio at the closed-form extremes', () => {
 		// k is monotonic in each resistor: the extremes are R1 high/R2 low and the reverse (closed form).
-		const r = worstCase(divider, { method: 'corners', tolerances: ['R1', 'R2'].map((element) => ({ element, tolerance: 0.01, distribution: 'uniform' as const })) });
+		const r = worstCase(divider, {
+			method: 'corners',
+			tolerances: ['R1', 'R2'].map((element) => ({
+				element,
+				tolerance: 0.01,
+				distribution: 'uniform' as const
+			}))
+		});
 		const g = r.figures.find((f) => f.figure === 'dcGain')!;
 		expect(g.min.value!).toBeCloseTo(990 / (990 + 9090), 14);
 		expect(g.max.value!).toBeCloseTo(1010 / (1010 + 8910), 14);
@@ -94,7 +138,11 @@ describe('worst case', () => {
 	});
 
 	it('the sensitivity-guided search finds the same extremes as all corners on the demo divider', () => {
-		const tolerances = ['Rtop', 'Ctop', 'Ccable', 'Radc', 'Cadc'].map((element) => ({ element, tolerance: 0.02, distribution: 'uniform' as const }));
+		const tolerances = ['Rtop', 'Ctop', 'Ccable', 'Radc', 'Cadc'].map((element) => ({
+			element,
+			tolerance: 0.02,
+			distribution: 'uniform' as const
+		}));
 		const spec = { flatness: { withinDb: 0.2, fLo: 10, fHi: 1e6 } };
 		const all = worstCase(digitizerDivider, { method: 'corners', tolerances, spec });
 		const quick = worstCase(digitizerDivider, { method: 'sensitivity', tolerances, spec });
@@ -110,7 +158,13 @@ describe('worst case', () => {
 	});
 
 	it('refuses too many corners with advice', () => {
-		const tolerances = Array.from({ length: 13 }, (_, i) => ({ element: `R${(i % 2) + 1}`, tolerance: 0.01, distribution: 'uniform' as const }));
-		expect(() => worstCase(divider, { method: 'corners', tolerances })).toThrow(/sensitivity-guided/);
+		const tolerances = Array.from({ length: 13 }, (_, i) => ({
+			element: `R${(i % 2) + 1}`,
+			tolerance: 0.01,
+			distribution: 'uniform' as const
+		}));
+		expect(() => worstCase(divider, { method: 'corners', tolerances })).toThrow(
+			/sensitivity-guided/
+		);
 	});
 });

@@ -22,7 +22,15 @@ export interface MonteCarloRequest {
 	dominantPoles?: number;
 }
 
-export const FIGURES = ['bandwidth', 'dcGain', 'overshoot', 'riseTime', 'flatnessDb', 'inputResistance', 'inputCapacitance'] as const;
+export const FIGURES = [
+	'bandwidth',
+	'dcGain',
+	'overshoot',
+	'riseTime',
+	'flatnessDb',
+	'inputResistance',
+	'inputCapacitance'
+] as const;
 export type Figure = (typeof FIGURES)[number];
 
 /** One run, compact: figures (null when undefined), dominant pole frequencies (Hz), pass. */
@@ -45,7 +53,13 @@ export interface MonteCarloResult {
 	seed: number;
 	figures: FigureSummary[];
 	poles: FigureSummary[];
-	yield: { pass: number; runs: number; fraction: number; standardError: number; byCheck: { key: string; label: string; fraction: number }[] } | null;
+	yield: {
+		pass: number;
+		runs: number;
+		fraction: number;
+		standardError: number;
+		byCheck: { key: string; label: string; fraction: number }[];
+	} | null;
 	failed: number;
 	nominal: Metrics;
 }
@@ -55,13 +69,21 @@ export interface Progress {
 	signal?: { aborted: boolean };
 }
 
-export function drawValues(v: Variants, tolerances: ElementTolerance[], seed: number, run: number): Record<string, number> {
+export function drawValues(
+	v: Variants,
+	tolerances: ElementTolerance[],
+	seed: number,
+	run: number
+): Record<string, number> {
 	const rand = runStream(seed, run);
 	const out: Record<string, number> = {};
 	for (const t of tolerances) {
 		const x = v.prepared.byId.get(t.element)!.nominal;
 		if (t.distribution === 'fixed' || t.tolerance === 0) continue;
-		const k = t.distribution === 'uniform' ? (2 * rand() - 1) * t.tolerance : (normal(rand) * t.tolerance) / 3;
+		const k =
+			t.distribution === 'uniform'
+				? (2 * rand() - 1) * t.tolerance
+				: (normal(rand) * t.tolerance) / 3;
 		out[t.element] = x * (1 + k);
 	}
 	return out;
@@ -72,7 +94,13 @@ export function checkTolerances(v: Variants, tolerances: ElementTolerance[]): vo
 }
 
 /** Runs [from, to) of a Monte Carlo request on an opened network (a worker's chunk). */
-export function monteCarloChunk(v: Variants, req: MonteCarloRequest, from: number, to: number, { signal }: Progress = {}): RunRecord[] {
+export function monteCarloChunk(
+	v: Variants,
+	req: MonteCarloRequest,
+	from: number,
+	to: number,
+	{ signal }: Progress = {}
+): RunRecord[] {
 	const opts = { ...optionsFor(req.spec ?? {}) };
 	const k = req.dominantPoles ?? 3;
 	const out: RunRecord[] = [];
@@ -83,23 +111,50 @@ export function monteCarloChunk(v: Variants, req: MonteCarloRequest, from: numbe
 			out.push({
 				run,
 				figures: FIGURES.map((f) => m[f]),
-				poles: Array.from({ length: k }, (_, i) => (m.poles[i] ? Math.hypot(m.poles[i].re, m.poles[i].im) / (2 * Math.PI) : null)),
+				poles: Array.from({ length: k }, (_, i) =>
+					m.poles[i] ? Math.hypot(m.poles[i].re, m.poles[i].im) / (2 * Math.PI) : null
+				),
 				pass: req.spec ? checkSpec(req.spec, m).pass : null
 			});
 		} catch (e) {
-			out.push({ run, figures: FIGURES.map(() => null), poles: [], pass: false, error: e instanceof Error ? e.message : String(e) });
+			out.push({
+				run,
+				figures: FIGURES.map(() => null),
+				poles: [],
+				pass: false,
+				error: e instanceof Error ? e.message : String(e)
+			});
 		}
 	}
 	return out;
 }
 
-export function summarize(v: Variants, req: MonteCarloRequest, records: RunRecord[]): MonteCarloResult {
+export function summarize(
+	v: Variants,
+	req: MonteCarloRequest,
+	records: RunRecord[]
+): MonteCarloResult {
 	const nominal = evaluateWith(v, {}, optionsFor(req.spec ?? {}));
-	const col = (get: (r: RunRecord) => number | null) => records.map(get).filter((x): x is number => x !== null && Number.isFinite(x));
-	const summary = (figure: string, xs: number[]): FigureSummary => ({ figure, stats: statistics(xs, records.length), histogram: histogram(xs, 30) });
-	const figures = FIGURES.map((f, i) => summary(f, col((r) => r.figures[i]))).filter((s) => s.stats.count > 0);
+	const col = (get: (r: RunRecord) => number | null) =>
+		records.map(get).filter((x): x is number => x !== null && Number.isFinite(x));
+	const summary = (figure: string, xs: number[]): FigureSummary => ({
+		figure,
+		stats: statistics(xs, records.length),
+		histogram: histogram(xs, 30)
+	});
+	const figures = FIGURES.map((f, i) =>
+		summary(
+			f,
+			col((r) => r.figures[i])
+		)
+	).filter((s) => s.stats.count > 0);
 	const k = req.dominantPoles ?? 3;
-	const poles = Array.from({ length: k }, (_, i) => summary(`pole${i + 1}_hz`, col((r) => r.poles[i] ?? null))).filter((s) => s.stats.count > 0);
+	const poles = Array.from({ length: k }, (_, i) =>
+		summary(
+			`pole${i + 1}_hz`,
+			col((r) => r.poles[i] ?? null)
+		)
+	).filter((s) => s.stats.count > 0);
 	let yieldResult: MonteCarloResult['yield'] = null;
 	if (req.spec) {
 		const pass = records.filter((r) => r.pass).length;
@@ -110,21 +165,43 @@ export function summarize(v: Variants, req: MonteCarloRequest, records: RunRecor
 		const byCheck = checks.map((c) => {
 			const idx = FIGURES.indexOf(c.key === 'flatness' ? 'flatnessDb' : (c.key as Figure));
 			const ok = records.filter((r) => {
-				const fig = Object.fromEntries(FIGURES.map((f, j) => [f, r.figures[j]])) as Record<Figure, number | null>;
+				const fig = Object.fromEntries(FIGURES.map((f, j) => [f, r.figures[j]])) as Record<
+					Figure,
+					number | null
+				>;
 				return idx >= 0 && checkSpec(req.spec!, fig).checks.find((x) => x.key === c.key)?.pass;
 			}).length;
 			return { key: c.key, label: c.label, fraction: n ? ok / n : 0 };
 		});
-		yieldResult = { pass, runs: n, fraction, standardError: Math.sqrt((fraction * (1 - fraction)) / Math.max(1, n)), byCheck };
+		yieldResult = {
+			pass,
+			runs: n,
+			fraction,
+			standardError: Math.sqrt((fraction * (1 - fraction)) / Math.max(1, n)),
+			byCheck
+		};
 	}
-	return { runs: records.length, seed: req.seed, figures, poles, yield: yieldResult, failed: records.filter((r) => r.error).length, nominal: metricsOf(nominal) };
+	return {
+		runs: records.length,
+		seed: req.seed,
+		figures,
+		poles,
+		yield: yieldResult,
+		failed: records.filter((r) => r.error).length,
+		nominal: metricsOf(nominal)
+	};
 }
 
 export const CHUNK = 250;
 
 /** The whole run in one call (the library entry; the server splits it into chunks itself). */
-export function monteCarlo(doc: unknown, req: MonteCarloRequest, { onProgress, signal }: Progress = {}): MonteCarloResult {
-	if (!(req.runs >= 1 && req.runs <= 10_000)) throw new DesignError('too_many', 'a Monte Carlo run has 1 to 10,000 runs');
+export function monteCarlo(
+	doc: unknown,
+	req: MonteCarloRequest,
+	{ onProgress, signal }: Progress = {}
+): MonteCarloResult {
+	if (!(req.runs >= 1 && req.runs <= 10_000))
+		throw new DesignError('too_many', 'a Monte Carlo run has 1 to 10,000 runs');
 	const v = openVariants(doc);
 	checkTolerances(v, req.tolerances);
 	const records: RunRecord[] = [];

@@ -19,12 +19,17 @@ export function openVariants(doc: unknown, { adaptShift = false } = {}): Variant
 }
 
 /** Evaluate with some elements (by id) at other values; all others at nominal. */
-export function evaluateWith(v: Variants, values: Record<string, number>, opts: EvaluateOptions = {}): Evaluation {
+export function evaluateWith(
+	v: Variants,
+	values: Record<string, number>,
+	opts: EvaluateOptions = {}
+): Evaluation {
 	const byIndex = new Map<number, number>();
 	for (const [id, x] of Object.entries(values)) byIndex.set(elementOf(v.prepared, id).index, x);
 	applyValues(v.prepared, byIndex);
 	const result = evaluate(v.prepared, v.shift, opts);
-	if (v.adaptShift && result.nextShift > 0 && Number.isFinite(result.nextShift)) v.shift = result.nextShift;
+	if (v.adaptShift && result.nextShift > 0 && Number.isFinite(result.nextShift))
+		v.shift = result.nextShift;
 	return result;
 }
 

@@ -33,10 +33,16 @@ export interface WorstCaseResult {
 
 export const MAX_CORNER_ELEMENTS = 12;
 
-const active = (ts: ElementTolerance[]) => ts.filter((t) => t.distribution !== 'fixed' && t.tolerance > 0);
+const active = (ts: ElementTolerance[]) =>
+	ts.filter((t) => t.distribution !== 'fixed' && t.tolerance > 0);
 
 function vertex(v: Variants, ts: ElementTolerance[], signs: number[]): Record<string, number> {
-	return Object.fromEntries(ts.map((t, i) => [t.element, v.prepared.byId.get(t.element)!.nominal * (1 + signs[i] * t.tolerance)]));
+	return Object.fromEntries(
+		ts.map((t, i) => [
+			t.element,
+			v.prepared.byId.get(t.element)!.nominal * (1 + signs[i] * t.tolerance)
+		])
+	);
 }
 
 export function worstCase(doc: unknown, req: WorstCaseRequest): WorstCaseResult {
@@ -48,13 +54,25 @@ export function worstCase(doc: unknown, req: WorstCaseRequest): WorstCaseResult 
 	const vertices: number[][] = [];
 	if (req.method === 'corners') {
 		if (ts.length > MAX_CORNER_ELEMENTS) {
-			throw new DesignError('too_many', `${ts.length} toleranced elements make ${2 ** ts.length} corners; use the sensitivity-guided search above ${MAX_CORNER_ELEMENTS}`);
+			throw new DesignError(
+				'too_many',
+				`${ts.length} toleranced elements make ${2 ** ts.length} corners; use the sensitivity-guided search above ${MAX_CORNER_ELEMENTS}`
+			);
 		}
-		for (let mask = 0; mask < 2 ** ts.length; mask++) vertices.push(ts.map((_, i) => (mask & (1 << i) ? 1 : -1)));
+		for (let mask = 0; mask < 2 ** ts.length; mask++)
+			vertices.push(ts.map((_, i) => (mask & (1 << i) ? 1 : -1)));
 	} else {
 		const base = FIGURES.map((f) => nominal[f]);
 		const push = ts.map((_, i) => {
-			const m = evaluateWith(v, vertex(v, ts, ts.map((__, j) => (j === i ? 1 : 0))), opts);
+			const m = evaluateWith(
+				v,
+				vertex(
+					v,
+					ts,
+					ts.map((__, j) => (j === i ? 1 : 0))
+				),
+				opts
+			);
 			return FIGURES.map((f, k) => Math.sign((m[f] ?? 0) - (base[k] ?? 0)));
 		});
 		FIGURES.forEach((_, k) => {
@@ -97,5 +115,10 @@ export function worstCase(doc: unknown, req: WorstCaseRequest): WorstCaseResult 
 		const failing = outcomes.filter(({ o }) => !o || !o.pass).map(({ e }) => e.values);
 		spec = { pass: failing.length === 0, checks, failing: failing.slice(0, 20) };
 	}
-	return { method: req.method, evaluations: evaluated.length + 1 + (req.method === 'sensitivity' ? ts.length : 0), figures, spec };
+	return {
+		method: req.method,
+		evaluations: evaluated.length + 1 + (req.method === 'sensitivity' ? ts.length : 0),
+		figures,
+		spec
+	};
 }

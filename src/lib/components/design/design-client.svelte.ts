@@ -14,7 +14,10 @@ export class DesignClient {
 	readonly canEdit: boolean;
 	document = $state.raw<NetworkDocument | null>(null);
 	revision = $state(0);
-	settings = $state.raw<DesignSettings>({ spec: {}, tolerances: { elements: [], runs: 1000, seed: 1 } });
+	settings = $state.raw<DesignSettings>({
+		spec: {},
+		tolerances: { elements: [], runs: 1000, seed: 1 }
+	});
 
 	constructor(sheetId: string, canEdit: boolean) {
 		this.sheetId = sheetId;
@@ -23,22 +26,38 @@ export class DesignClient {
 
 	/** Elements whose value a design aid may change, in document order. */
 	get adjustable(): { id: string; type: string; value?: string | number }[] {
-		return (this.document?.elements ?? []).filter((e) => ['R', 'C', 'L', 'VCCS', 'VCVS', 'CCCS', 'CCVS'].includes(e.type));
+		return (this.document?.elements ?? []).filter((e) =>
+			['R', 'C', 'L', 'VCCS', 'VCVS', 'CCCS', 'CCVS'].includes(e.type)
+		);
 	}
 
 	async refresh(): Promise<NetworkDocument> {
-		const r = await this.call<{ revision: { number: number; document: NetworkDocument } }>('GET', `/api/sheets/${this.sheetId}`);
+		const r = await this.call<{ revision: { number: number; document: NetworkDocument } }>(
+			'GET',
+			`/api/sheets/${this.sheetId}`
+		);
 		this.document = r.revision.document;
 		this.revision = r.revision.number;
 		return r.revision.document;
 	}
 
 	async loadSettings(): Promise<void> {
-		this.settings = (await this.call<{ settings: DesignSettings }>('GET', `/api/design/sheets/${this.sheetId}/settings`)).settings;
+		this.settings = (
+			await this.call<{ settings: DesignSettings }>(
+				'GET',
+				`/api/design/sheets/${this.sheetId}/settings`
+			)
+		).settings;
 	}
 
 	async saveSettings(next: DesignSettings): Promise<void> {
-		this.settings = (await this.call<{ settings: DesignSettings }>('PUT', `/api/design/sheets/${this.sheetId}/settings`, next)).settings;
+		this.settings = (
+			await this.call<{ settings: DesignSettings }>(
+				'PUT',
+				`/api/design/sheets/${this.sheetId}/settings`,
+				next
+			)
+		).settings;
 	}
 
 	/** POST with the latest saved document added to the body. */
@@ -54,9 +73,14 @@ export class DesignClient {
 			body: body === undefined ? undefined : JSON.stringify(body)
 		});
 		const data = await res.json().catch(() => ({}));
-		if (!res.ok) throw { message: data.error ?? `the server answered ${res.status}`, element: data.element } satisfies CallError;
+		if (!res.ok)
+			throw {
+				message: data.error ?? `the server answered ${res.status}`,
+				element: data.element
+			} satisfies CallError;
 		return data as T;
 	}
 }
 
-export const messageOf = (e: unknown): string => (typeof e === 'object' && e && 'message' in e ? String((e as CallError).message) : String(e));
+export const messageOf = (e: unknown): string =>
+	typeof e === 'object' && e && 'message' in e ? String((e as CallError).message) : String(e);

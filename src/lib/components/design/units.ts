@@ -1,9 +1,18 @@
 import { formatEngineering, parseValue } from '$lib/solver';
 
 /** Units of each element type's value, for display and for reading typed values. */
-export const UNIT: Record<string, string> = { R: 'Ω', C: 'F', L: 'H', VCCS: 'S', CCVS: 'Ω', VCVS: '', CCCS: '' };
+export const UNIT: Record<string, string> = {
+	R: 'Ω',
+	C: 'F',
+	L: 'H',
+	VCCS: 'S',
+	CCVS: 'Ω',
+	VCVS: '',
+	CCCS: ''
+};
 
-export const show = (v: number | null | undefined, unit = '', digits = 4) => (v === null || v === undefined || Number.isNaN(v) ? '—' : formatEngineering(v, unit, digits));
+export const show = (v: number | null | undefined, unit = '', digits = 4) =>
+	v === null || v === undefined || Number.isNaN(v) ? '—' : formatEngineering(v, unit, digits);
 
 /** A typed value ("6.8p", "1.5 MHz" → number) or null with the field named in the message. */
 export function readNumber(text: string, field: string): { value: number } | { error: string } {
@@ -11,7 +20,9 @@ export function readNumber(text: string, field: string): { value: number } | { e
 	try {
 		return { value: parseValue(t) };
 	} catch {
-		return { error: `${field}: “${text}” is not a number (SI prefixes such as 10p, 4.7k, 1.5M are fine)` };
+		return {
+			error: `${field}: “${text}” is not a number (SI prefixes such as 10p, 4.7k, 1.5M are fine)`
+		};
 	}
 }
 
@@ -20,7 +31,10 @@ export function valueOf(v: unknown): number {
 }
 
 /** Decibels as a designer reads them: 0.155 dB, 5.4e-5 dB (never "155 mdB"). */
-export const db = (v: number | null | undefined) => (v === null || v === undefined || Number.isNaN(v) ? '—' : `${Math.abs(v) < 1e-3 && v !== 0 ? v.toExponential(1) : v.toFixed(3)} dB`);
+export const db = (v: number | null | undefined) =>
+	v === null || v === undefined || Number.isNaN(v)
+		? '—'
+		: `${Math.abs(v) < 1e-3 && v !== 0 ? v.toExponential(1) : v.toFixed(3)} dB`;
 
 /** A relative change in percent, without a "−0.00". */
 export const percentChange = (from: number | null | undefined, to: number | null | undefined) => {

@@ -3,7 +3,12 @@
 // two app processes) can never both win.
 import { Op } from 'sequelize';
 import { db } from './connection';
-import { DesignJob, DesignSettingsRow, initDesignModels, type DesignJobState } from './models/design';
+import {
+	DesignJob,
+	DesignSettingsRow,
+	initDesignModels,
+	type DesignJobState
+} from './models/design';
 import { designSettingsSchema, type DesignSettings } from '../../network/design-schema';
 
 function models() {
@@ -30,7 +35,9 @@ export interface DesignJobRecord {
 }
 
 const plain = (row: DesignJob): DesignJobRecord => {
-	const { queueId, ...rest } = row.get({ plain: true }) as DesignJobRecord & { queueId: string | null };
+	const { queueId, ...rest } = row.get({ plain: true }) as DesignJobRecord & {
+		queueId: string | null;
+	};
 	void queueId;
 	return rest;
 };
@@ -42,12 +49,23 @@ export async function getDesignSettings(sheetId: string): Promise<DesignSettings
 	return parsed.success ? parsed.data : designSettingsSchema.parse({});
 }
 
-export async function saveDesignSettings(sheetId: string, userId: string, settings: DesignSettings): Promise<DesignSettings> {
+export async function saveDesignSettings(
+	sheetId: string,
+	userId: string,
+	settings: DesignSettings
+): Promise<DesignSettings> {
 	await models().DesignSettingsRow.upsert({ sheetId, settings, updatedBy: userId });
 	return settings;
 }
 
-export async function createDesignJob(input: { sheetId: string; revision: number; kind: string; request: unknown; total: number; createdBy: string }): Promise<DesignJobRecord> {
+export async function createDesignJob(input: {
+	sheetId: string;
+	revision: number;
+	kind: string;
+	request: unknown;
+	total: number;
+	createdBy: string;
+}): Promise<DesignJobRecord> {
 	return plain(await models().DesignJob.create(input));
 }
 
@@ -81,11 +99,20 @@ export async function startDesignJob(id: string): Promise<boolean> {
 
 /** Record progress; returns false when a cancel has been asked for (the runner then stops). */
 export async function reportProgress(id: string, done: number): Promise<boolean> {
-	const [n] = await models().DesignJob.update({ done }, { where: { id, state: 'running', cancelRequested: false } });
+	const [n] = await models().DesignJob.update(
+		{ done },
+		{ where: { id, state: 'running', cancelRequested: false } }
+	);
 	return n === 1;
 }
 
-export async function finishDesignJob(id: string, outcome: { state: 'done'; result: Record<string, unknown> } | { state: 'failed'; error: string } | { state: 'cancelled' }) {
+export async function finishDesignJob(
+	id: string,
+	outcome:
+		| { state: 'done'; result: Record<string, unknown> }
+		| { state: 'failed'; error: string }
+		| { state: 'cancelled' }
+) {
 	await models().DesignJob.update(
 		{
 			state: outcome.state,
@@ -103,7 +130,10 @@ export async function finishDesignJob(id: string, outcome: { state: 'done'; resu
  */
 export async function cancelDesignJob(id: string): Promise<DesignJobRecord | null> {
 	const { DesignJob: Job } = models();
-	await Job.update({ state: 'cancelled', cancelRequested: true, finishedAt: new Date() }, { where: { id, state: 'queued' } });
+	await Job.update(
+		{ state: 'cancelled', cancelRequested: true, finishedAt: new Date() },
+		{ where: { id, state: 'queued' } }
+	);
 	await Job.update({ cancelRequested: true }, { where: { id, state: 'running' } });
 	return getDesignJob(id);
 }

@@ -13,7 +13,14 @@ export function designPool(): Piscina {
 		const { filename, execArgv } = workerFile('design', import.meta.url);
 		// One thread by default: design requests are rarer than analyses, and a 2-core machine
 		// must keep a core for the server and the analysis pool.
-		pool = new Piscina({ filename, execArgv, minThreads: 1, maxThreads: Number(process.env.DESIGN_THREADS ?? 1), idleTimeout: 60_000, maxQueue: 32 });
+		pool = new Piscina({
+			filename,
+			execArgv,
+			minThreads: 1,
+			maxThreads: Number(process.env.DESIGN_THREADS ?? 1),
+			idleTimeout: 60_000,
+			maxQueue: 32
+		});
 	}
 	return pool;
 }
@@ -27,9 +34,18 @@ export async function runDesign(task: DesignTask, timeoutMs = DESIGN_TIMEOUT_MS)
 	try {
 		outcome = (await designPool().run(task, { signal })) as DesignOutcome;
 	} catch (error) {
-		if (signal.aborted) throw new ApiProblem(503, `the ${task.kind} took longer than ${timeoutMs / 1000} s and was stopped`, { code: 'timeout' });
+		if (signal.aborted)
+			throw new ApiProblem(
+				503,
+				`the ${task.kind} took longer than ${timeoutMs / 1000} s and was stopped`,
+				{ code: 'timeout' }
+			);
 		if (error instanceof Error && /queue is at limit/i.test(error.message)) {
-			throw new ApiProblem(503, 'the server is busy with other design runs; try again in a moment', { code: 'busy' });
+			throw new ApiProblem(
+				503,
+				'the server is busy with other design runs; try again in a moment',
+				{ code: 'busy' }
+			);
 		}
 		throw error;
 	}

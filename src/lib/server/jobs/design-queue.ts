@@ -34,9 +34,13 @@ export function designQueue(): Promise<PgBoss> {
 				// Another process created it between the check and here.
 			}
 		}
-		await boss.work<{ jobId: string }>(DESIGN_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
-			await runToleranceJob(job.data.jobId);
-		});
+		await boss.work<{ jobId: string }>(
+			DESIGN_QUEUE,
+			{ batchSize: 1, pollingIntervalSeconds: 0.5 },
+			async ([job]) => {
+				await runToleranceJob(job.data.jobId);
+			}
+		);
 		return boss;
 	})().catch((e) => {
 		starting = null;
@@ -77,17 +81,29 @@ export async function runToleranceJob(jobId: string): Promise<void> {
 		const records: RunRecord[] = [];
 		for (let from = 0; from < request.runs; from += RUNS_PER_CHUNK) {
 			const to = Math.min(request.runs, from + RUNS_PER_CHUNK);
-			const chunk = (await runDesign({ kind: 'mc-chunk', key: jobId, document: revision.document, request, from, to }, CHUNK_TIMEOUT_MS)) as RunRecord[];
+			const chunk = (await runDesign(
+				{ kind: 'mc-chunk', key: jobId, document: revision.document, request, from, to },
+				CHUNK_TIMEOUT_MS
+			)) as RunRecord[];
 			records.push(...chunk);
 			if (!(await reportProgress(jobId, records.length))) {
 				await finishDesignJob(jobId, { state: 'cancelled' });
 				return;
 			}
 		}
-		const summary = await runDesign({ kind: 'mc-summary', key: jobId, document: revision.document, request, records }, CHUNK_TIMEOUT_MS);
-		await finishDesignJob(jobId, { state: 'done', result: { revision: job.revision, ...(summary as Record<string, unknown>) } });
+		const summary = await runDesign(
+			{ kind: 'mc-summary', key: jobId, document: revision.document, request, records },
+			CHUNK_TIMEOUT_MS
+		);
+		await finishDesignJob(jobId, {
+			state: 'done',
+			result: { revision: job.revision, ...(summary as Record<string, unknown>) }
+		});
 	} catch (e) {
-		await finishDesignJob(jobId, { state: 'failed', error: e instanceof Error ? e.message : String(e) });
+		await finishDesignJob(jobId, {
+			state: 'failed',
+			error: e instanceof Error ? e.message : String(e)
+		});
 	}
 }
 

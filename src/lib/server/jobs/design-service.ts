@@ -31,21 +31,54 @@ export interface MonteCarloInput {
 }
 
 /** Queue a Monte Carlo run on a stored revision (the latest unless one is named). */
-export async function startMonteCarlo(actor: UserActor, input: MonteCarloInput): Promise<DesignJobRecord> {
+export async function startMonteCarlo(
+	actor: UserActor,
+	input: MonteCarloInput
+): Promise<DesignJobRecord> {
 	const { revision } = await readRevision(actor, input.sheetId, input.revision, 'analyze');
 	const settings = await getDesignSettings(input.sheetId);
-	const tolerances = (input.tolerances ?? settings.tolerances.elements).filter((t) => t.distribution !== 'fixed' && t.tolerance > 0);
-	if (tolerances.length === 0) throw new ApiProblem(400, 'tolerances: give at least one element a tolerance above 0 that is not fixed', { code: 'no_tolerances' });
+	const tolerances = (input.tolerances ?? settings.tolerances.elements).filter(
+		(t) => t.distribution !== 'fixed' && t.tolerance > 0
+	);
+	if (tolerances.length === 0)
+		throw new ApiProblem(
+			400,
+			'tolerances: give at least one element a tolerance above 0 that is not fixed',
+			{ code: 'no_tolerances' }
+		);
 	const spec = input.spec ?? settings.spec;
-	const request: MonteCarloRequest = { tolerances, runs: input.runs ?? settings.tolerances.runs, seed: input.seed ?? settings.tolerances.seed, spec };
+	const request: MonteCarloRequest = {
+		tolerances,
+		runs: input.runs ?? settings.tolerances.runs,
+		seed: input.seed ?? settings.tolerances.seed,
+		spec
+	};
 	// Refuse a network or element the run could not use now, not minutes later in the queue.
-	await runDesign({ kind: 'mc-chunk', key: `check-${revision.id}`, document: revision.document, request, from: 0, to: 0 });
-	const job = await createDesignJob({ sheetId: input.sheetId, revision: revision.number, kind: 'monte-carlo', request: { request }, total: request.runs, createdBy: actor.id });
+	await runDesign({
+		kind: 'mc-chunk',
+		key: `check-${revision.id}`,
+		document: revision.document,
+		request,
+		from: 0,
+		to: 0
+	});
+	const job = await createDesignJob({
+		sheetId: input.sheetId,
+		revision: revision.number,
+		kind: 'monte-carlo',
+		request: { request },
+		total: request.runs,
+		createdBy: actor.id
+	});
 	await setQueueId(job.id, await enqueueDesignJob(job.id));
 	return job;
 }
 
-async function visibleJob(actor: Actor, jobId: string, action: 'read' | 'analyze'): Promise<DesignJobRecord> {
+async function visibleJob(
+	actor: Actor,
+	jobId: string,
+	action: 'read' | 'analyze'
+): Promise<DesignJobRecord> {
 	const job = await getDesignJob(jobId);
 	if (!job) throw new AccessDenied(404, 'Not found.');
 	await authorizeSheet(actor, job.sheetId, action);
@@ -75,7 +108,11 @@ export async function settingsOf(actor: Actor, sheetId: string): Promise<DesignS
 	return getDesignSettings(sheetId);
 }
 
-export async function saveSettingsOf(actor: UserActor, sheetId: string, settings: DesignSettings): Promise<DesignSettings> {
+export async function saveSettingsOf(
+	actor: UserActor,
+	sheetId: string,
+	settings: DesignSettings
+): Promise<DesignSettings> {
 	await authorizeSheet(actor, sheetId, 'save');
 	return saveDesignSettings(sheetId, actor.id, settings);
 }

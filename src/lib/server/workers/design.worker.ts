@@ -8,7 +8,13 @@ import { sweep, type SweepRequest } from '../../design/sweep';
 import { solveForValue, type SolveRequest } from '../../design/solve-for-value';
 import { sensitivity } from '../../design/sensitivity';
 import { worstCase, type WorstCaseRequest } from '../../design/worst-case';
-import { checkTolerances, monteCarloChunk, summarize, type MonteCarloRequest, type RunRecord } from '../../design/tolerance';
+import {
+	checkTolerances,
+	monteCarloChunk,
+	summarize,
+	type MonteCarloRequest,
+	type RunRecord
+} from '../../design/tolerance';
 import { evaluateWith, openVariants, type Variants } from '../../design/variants';
 import { checkSpec, optionsFor } from '../../design/spec-limits';
 import { metricsOf } from '../../design/evaluate';
@@ -20,10 +26,25 @@ export type DesignTask =
 	| { kind: 'sensitivity'; document: unknown }
 	| { kind: 'worst-case'; document: unknown; request: WorstCaseRequest }
 	| { kind: 'spec'; document: unknown; spec: SpecLimits }
-	| { kind: 'mc-chunk'; key: string; document: unknown; request: MonteCarloRequest; from: number; to: number }
-	| { kind: 'mc-summary'; key: string; document: unknown; request: MonteCarloRequest; records: RunRecord[] };
+	| {
+			kind: 'mc-chunk';
+			key: string;
+			document: unknown;
+			request: MonteCarloRequest;
+			from: number;
+			to: number;
+	  }
+	| {
+			kind: 'mc-summary';
+			key: string;
+			document: unknown;
+			request: MonteCarloRequest;
+			records: RunRecord[];
+	  };
 
-export type DesignOutcome = { ok: true; value: unknown } | { ok: false; error: { error: string; code: string; element?: string; node?: string } };
+export type DesignOutcome =
+	| { ok: true; value: unknown }
+	| { ok: false; error: { error: string; code: string; element?: string; node?: string } };
 
 // A few jobs' networks at most; the oldest is dropped first.
 const opened = new Map<string, Variants>();
@@ -68,7 +89,8 @@ export default function handle(task: DesignTask): DesignOutcome {
 	try {
 		return { ok: true, value: run(task) };
 	} catch (error) {
-		if (error instanceof SolverError || error instanceof DesignError) return { ok: false, error: error.toJSON() };
+		if (error instanceof SolverError || error instanceof DesignError)
+			return { ok: false, error: error.toJSON() };
 		throw error;
 	}
 }

@@ -1,13 +1,19 @@
 // Request bodies of the design-aid API. The network document itself is checked by the same
 // front door as POST /api/analyze (element limit, shape, the element at fault named).
 import { z } from 'zod';
-import { elementToleranceSchema, specLimitsSchema, MONTE_CARLO_MAX_RUNS } from '$lib/network/design-schema';
+import {
+	elementToleranceSchema,
+	specLimitsSchema,
+	MONTE_CARLO_MAX_RUNS
+} from '$lib/network/design-schema';
 import { SERIES } from '$lib/design/preferred-values';
 import { SWEEP_LIMITS } from '$lib/design/sweep';
 
 const value = (what: string) => z.number({ error: `${what} must be a number` }).finite();
 const positive = (what: string) => value(what).positive(`${what} must be above 0`);
-const band = z.object({ fLo: positive('fLo'), fHi: positive('fHi') }).refine((b) => b.fLo < b.fHi, { message: 'the band must start below its end', path: ['fHi'] });
+const band = z
+	.object({ fLo: positive('fLo'), fHi: positive('fHi') })
+	.refine((b) => b.fLo < b.fHi, { message: 'the band must start below its end', path: ['fHi'] });
 
 export const sweepBody = z.object({
 	document: z.unknown(),
@@ -47,7 +53,10 @@ export const documentBody = z.object({ document: z.unknown() });
 
 export const worstCaseBody = z.object({
 	document: z.unknown(),
-	tolerances: z.array(elementToleranceSchema).min(1, 'give at least one element a tolerance').max(5000),
+	tolerances: z
+		.array(elementToleranceSchema)
+		.min(1, 'give at least one element a tolerance')
+		.max(5000),
 	method: z.enum(['corners', 'sensitivity']).default('sensitivity'),
 	spec: specLimitsSchema.optional()
 });
@@ -57,8 +66,18 @@ export const specBody = z.object({ document: z.unknown(), spec: specLimitsSchema
 export const monteCarloBody = z.object({
 	sheetId: z.uuid('sheetId must be a sheet id'),
 	revision: z.number().int().min(1).optional(),
-	runs: z.number().int().min(10).max(MONTE_CARLO_MAX_RUNS, `at most ${MONTE_CARLO_MAX_RUNS} runs`).optional(),
-	seed: z.number().int().min(0).max(2 ** 32 - 1).optional(),
+	runs: z
+		.number()
+		.int()
+		.min(10)
+		.max(MONTE_CARLO_MAX_RUNS, `at most ${MONTE_CARLO_MAX_RUNS} runs`)
+		.optional(),
+	seed: z
+		.number()
+		.int()
+		.min(0)
+		.max(2 ** 32 - 1)
+		.optional(),
 	tolerances: z.array(elementToleranceSchema).max(5000).optional(),
 	spec: specLimitsSchema.optional()
 });

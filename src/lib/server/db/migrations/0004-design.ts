@@ -8,15 +8,30 @@ const now = { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NO
 
 export async function up({ context: q }: { context: QueryInterface }) {
 	await q.createTable('design_settings', {
-		sheet_id: { type: DataTypes.UUID, primaryKey: true, references: { model: 'sheets', key: 'id' }, onDelete: 'CASCADE' },
+		sheet_id: {
+			type: DataTypes.UUID,
+			primaryKey: true,
+			references: { model: 'sheets', key: 'id' },
+			onDelete: 'CASCADE'
+		},
 		settings: { type: DataTypes.JSONB, allowNull: false },
-		updated_by: { type: DataTypes.UUID, allowNull: true, references: { model: 'users', key: 'id' }, onDelete: 'SET NULL' },
+		updated_by: {
+			type: DataTypes.UUID,
+			allowNull: true,
+			references: { model: 'users', key: 'id' },
+			onDelete: 'SET NULL'
+		},
 		created_at: now,
 		updated_at: now
 	});
 	await q.createTable('design_jobs', {
 		id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
-		sheet_id: { type: DataTypes.UUID, allowNull: false, references: { model: 'sheets', key: 'id' }, onDelete: 'CASCADE' },
+		sheet_id: {
+			type: DataTypes.UUID,
+			allowNull: false,
+			references: { model: 'sheets', key: 'id' },
+			onDelete: 'CASCADE'
+		},
 		revision: { type: DataTypes.INTEGER, allowNull: false },
 		kind: { type: DataTypes.STRING(24), allowNull: false },
 		state: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'queued' },
@@ -27,7 +42,12 @@ export async function up({ context: q }: { context: QueryInterface }) {
 		result: { type: DataTypes.JSONB, allowNull: true },
 		error: { type: DataTypes.TEXT, allowNull: true },
 		queue_id: { type: DataTypes.STRING(64), allowNull: true },
-		created_by: { type: DataTypes.UUID, allowNull: true, references: { model: 'users', key: 'id' }, onDelete: 'SET NULL' },
+		created_by: {
+			type: DataTypes.UUID,
+			allowNull: true,
+			references: { model: 'users', key: 'id' },
+			onDelete: 'SET NULL'
+		},
 		created_at: now,
 		started_at: { type: DataTypes.DATE, allowNull: true },
 		finished_at: { type: DataTypes.DATE, allowNull: true }

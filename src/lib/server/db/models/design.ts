@@ -1,7 +1,17 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+	DataTypes,
+	Model,
+	type CreationOptional,
+	type InferAttributes,
+	type InferCreationAttributes,
+	type Sequelize
+} from 'sequelize';
 
 /** The spec limits and tolerances one sheet keeps for its design aids. */
-export class DesignSettingsRow extends Model<InferAttributes<DesignSettingsRow>, InferCreationAttributes<DesignSettingsRow>> {
+export class DesignSettingsRow extends Model<
+	InferAttributes<DesignSettingsRow>,
+	InferCreationAttributes<DesignSettingsRow>
+> {
 	declare sheetId: string;
 	declare settings: unknown;
 	declare updatedBy: string | null;
@@ -12,7 +22,10 @@ export class DesignSettingsRow extends Model<InferAttributes<DesignSettingsRow>,
 export type DesignJobState = 'queued' | 'running' | 'done' | 'failed' | 'cancelled';
 
 /** A tolerance run on one revision: what was asked, how far it got, and what it found. */
-export class DesignJob extends Model<InferAttributes<DesignJob>, InferCreationAttributes<DesignJob>> {
+export class DesignJob extends Model<
+	InferAttributes<DesignJob>,
+	InferCreationAttributes<DesignJob>
+> {
 	declare id: CreationOptional<string>;
 	declare sheetId: string;
 	declare revision: number;

@@ -3,4 +3,7 @@
 import { designEndpoint } from '../handler';
 import { documentBody } from '../schema';
 
-export const POST = designEndpoint(documentBody, (_body, document) => ({ kind: 'sensitivity', document }));
+export const POST = designEndpoint(documentBody, (_body, document) => ({
+	kind: 'sensitivity',
+	document
+}));

@@ -2,4 +2,8 @@
 import { designEndpoint } from '../handler';
 import { specBody } from '../schema';
 
-export const POST = designEndpoint(specBody, (body, document) => ({ kind: 'spec', document, spec: body.spec }));
+export const POST = designEndpoint(specBody, (body, document) => ({
+	kind: 'spec',
+	document,
+	spec: body.spec
+}));

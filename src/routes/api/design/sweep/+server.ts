@@ -8,12 +8,19 @@ import { sweepBody } from '../schema';
 
 export const POST = designEndpoint(
 	sweepBody,
-	(body, document) => ({ kind: 'sweep', document, request: { axes: body.axes, band: body.band ?? null, inputAt: body.inputAt ?? null } }),
+	(body, document) => ({
+		kind: 'sweep',
+		document,
+		request: { axes: body.axes, band: body.band ?? null, inputAt: body.inputAt ?? null }
+	}),
 	(value, url) => {
 		const r = value as SweepResult;
 		if (url.searchParams.get('format') !== 'csv') return json(r);
 		return new Response(metricsCsv(r.elements, r.rows), {
-			headers: { 'content-type': 'text/csv; charset=utf-8', 'content-disposition': 'attachment; filename="sweep.csv"' }
+			headers: {
+				'content-type': 'text/csv; charset=utf-8',
+				'content-disposition': 'attachment; filename="sweep.csv"'
+			}
 		});
 	}
 );

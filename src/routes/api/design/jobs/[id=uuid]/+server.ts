@@ -3,4 +3,9 @@ import { json } from '@sveltejs/kit';
 import { apiActor, endpoint } from '$lib/server/api/respond';
 import { jobFor } from '$lib/server/jobs/design-service';
 
-export const GET = endpoint(async (event) => json({ job: await jobFor(apiActor(event), event.params.id!) }, { headers: { 'cache-control': 'no-store' } }));
+export const GET = endpoint(async (event) =>
+	json(
+		{ job: await jobFor(apiActor(event), event.params.id!) },
+		{ headers: { 'cache-control': 'no-store' } }
+	)
+);

@@ -4,7 +4,9 @@ import { apiActor, endpoint, readBody } from '$lib/server/api/respond';
 import { saveSettingsOf, settingsOf } from '$lib/server/jobs/design-service';
 import { designSettingsSchema } from '$lib/network/design-schema';
 
-export const GET = endpoint(async (event) => json({ settings: await settingsOf(apiActor(event), event.params.id!) }));
+export const GET = endpoint(async (event) =>
+	json({ settings: await settingsOf(apiActor(event), event.params.id!) })
+);
 
 export const PUT = endpoint(async (event) => {
 	const actor = apiActor(event);
