@@ -10,6 +10,9 @@ import * as exportRoute from '../../src/routes/api/sheets/[id=uuid]/export/+serv
 import * as importRoute from '../../src/routes/api/sheets/import/+server';
 import { countAttachments } from '../../src/lib/server/db/attachments';
 import { getRevision, listSheets, saveRevision } from '../../src/lib/server/db/sheets';
+import { db } from '../../src/lib/server/db/connection';
+import { addMember, updateWorkspace } from '../../src/lib/server/db/workspaces';
+import { person } from './support/fixtures';
 
 useDatabase();
 
@@ -122,6 +125,53 @@ describe('attachments', () => {
 		expect(raw.status).toBe(413);
 		expect(raw.json.error).toMatch(/over the 5 MB upload limit/);
 		expect(await countAttachments(sheet.id)).toBe(0);
+	});
+
+	it('a commenter attaches a file to a comment (not to the sheet); it is listed with that comment', async () => {
+		const { owner, workspace, sheet } = await exchangeWorld();
+		const reviewer = await person('Comment reviewer');
+		await addMember(workspace.id, reviewer.id, 'member');
+		await updateWorkspace(workspace.id, { defaultSheetRole: 'commenter' });
+		const [[comment]] = (await db().query(
+			`INSERT INTO comments (id, sheet_id, author_id, revision_number, anchor_kind, anchor_ref, body, body_html, mentions, created_at)
+			 VALUES (gen_random_uuid(), :sheet, :author, 1, 'element', 'C1', 'see the scope shot', '<p>see the scope shot</p>', '[]', now()) RETURNING id`,
+			{ replacements: { sheet: sheet.id, author: reviewer.id } }
+		)) as [[{ id: string }], unknown];
+		// A commenter may not attach to the sheet itself (that needs the right to change it)…
+		expect(
+			(
+				await send(attachments.POST, {
+					user: reviewer,
+					params: { id: sheet.id },
+					form: fileForm(PNG, 'shot.png')
+				})
+			).status
+		).toBe(403);
+		// …but may attach to a comment.
+		const r = await send(attachments.POST, {
+			user: reviewer,
+			params: { id: sheet.id },
+			form: fileForm(PNG, 'shot.png', { commentId: comment.id })
+		});
+		expect(r.status, r.text).toBe(201);
+		expect(r.json.attachment.commentId).toBe(comment.id);
+		const onComment = await send(attachments.GET, {
+			user: owner,
+			params: { id: sheet.id },
+			path: `/x?comment=${comment.id}`
+		});
+		expect(onComment.json.attachments.map((a: { fileName: string }) => a.fileName)).toEqual([
+			'shot.png'
+		]);
+		expect(
+			(await send(attachments.GET, { user: owner, params: { id: sheet.id } })).json.attachments
+		).toEqual([]);
+		const missing = await send(attachments.POST, {
+			user: reviewer,
+			params: { id: sheet.id },
+			form: fileForm(PNG, 'x.png', { commentId: '00000000-0000-4000-8000-000000000000' })
+		});
+		expect(missing.status).toBe(404);
 	});
 
 	it('outsiders get 404; signed-out callers 401', async () => {
