@@ -170,7 +170,7 @@ for (const [family, make] of [
 		const runs = timeBoth(() => (poles = analyze(doc).poles.length), r);
 		const ms = median(runs.wall);
 		const cpuMs = median(runs.cpu);
-		const exponent = prev ? Math.log(ms / prev.ms) / Math.log(n / prev.n) : null;
+		const exponent: number | null = prev ? Math.log(ms / prev.ms) / Math.log(n / prev.n) : null;
 		rows.push({
 			family,
 			n,
