@@ -3,12 +3,12 @@
 // is the RC low-pass's closed-form magnitude plus 0.5 dB, so the deviation is 0.5 dB everywhere
 // the model reaches (max and RMS); the model is the sheet's own analysis.
 import { expect, test } from '@playwright/test';
-import { freshAccount, lowPass, lowPassCsv, sheetWith } from './exchange-support';
+import { signInAs, lowPass, lowPassCsv, sheetWith } from './exchange-support';
 
 test('a measured response is previewed, stored, overlaid and compared with the model', async ({
 	page
 }) => {
-	await freshAccount(page);
+	await signInAs(page);
 	const { sheetId } = await sheetWith(page, lowPass, 'RC low-pass, bench check');
 	await page.goto(`/sheets/${sheetId}`);
 	const panel = page.getByRole('region', { name: 'Measured responses' });
@@ -55,7 +55,7 @@ test('a measured response is previewed, stored, overlaid and compared with the m
 });
 
 test('a bad row is pointed at in the preview before anything is stored', async ({ page }) => {
-	await freshAccount(page);
+	await signInAs(page);
 	const { sheetId } = await sheetWith(page, lowPass, 'RC low-pass, bad file');
 	await page.goto(`/sheets/${sheetId}`);
 	const panel = page.getByRole('region', { name: 'Measured responses' });

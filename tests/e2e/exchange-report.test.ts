@@ -7,11 +7,11 @@ import { mkdtempSync, readFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { expect, test } from '@playwright/test';
-import { freshAccount, probe, sheetWith } from './exchange-support';
+import { signInAs, probe, sheetWith } from './exchange-support';
 
 test('the report page and its PDF hold the sheet name and the pole table', async ({ page }) => {
 	test.setTimeout(90_000);
-	await freshAccount(page);
+	await signInAs(page);
 	const name = 'Probe 10x — bench 4';
 	const { sheetId } = await sheetWith(page, probe, name);
 	await page.goto(`/sheets/${sheetId}/report`);
@@ -44,10 +44,10 @@ test('the report page and its PDF hold the sheet name and the pole table', async
 });
 
 test('someone without access to the sheet gets no PDF', async ({ page, browser }) => {
-	await freshAccount(page);
+	await signInAs(page);
 	const { sheetId } = await sheetWith(page, probe, 'Private probe');
 	const other = await browser.newPage();
-	await freshAccount(other, 'Outsider');
+	await signInAs(other, 'reviewer');
 	const r = await other.request.get(`/api/sheets/${sheetId}/report.pdf`);
 	expect(r.status()).toBe(404);
 	await other.close();

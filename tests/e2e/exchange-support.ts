@@ -2,21 +2,29 @@
 // and a measured response computed from a closed form.
 import { expect, type Page } from '@playwright/test';
 
-export async function freshAccount(page: Page, name = 'Ilse Marchetti') {
-	const email = `exchange-${Date.now()}-${Math.random().toString(36).slice(2, 7)}@example.test`;
-	await page.goto('/sign-up');
+/**
+ * Sign in as one of the seeded demo people. Sign-ups are limited per address (10 an hour) and
+ * the whole browser suite shares 127.0.0.1, so these tests sign in instead of signing up; each
+ * test still works in a workspace of its own (made in sheetWith).
+ */
+export async function signInAs(page: Page, who: 'demo' | 'reviewer' = 'demo') {
+	const [email, password] =
+		who === 'demo'
+			? ['demo@polewise.test', 'polewise-demo']
+			: ['reviewer@polewise.test', 'polewise-review'];
+	await page.goto('/sign-in');
 	// Fill only once the form is hydrated (a fill before hydration can be wiped).
 	await page.waitForLoadState('networkidle');
-	await page.getByLabel('Your name').fill(name);
 	await page.getByLabel('E-mail address').fill(email);
-	await page.getByLabel('Password').fill('bench check password 77');
-	await page.getByRole('button', { name: 'Create account' }).click();
-	await expect(page).toHaveURL(/\/workspaces/);
-	return email;
+	await page.getByLabel('Password').fill(password);
+	await page.getByRole('button', { name: 'Sign in' }).click();
+	await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
 }
 
 export async function sheetWith(page: Page, document: unknown, name: string) {
-	const ws = await page.request.post('/api/workspaces', { data: { name: `Bench ${Date.now()}` } });
+	const ws = await page.request.post('/api/workspaces', {
+		data: { name: `Exchange bench ${Date.now()}` }
+	});
 	expect(ws.status()).toBe(201);
 	const { workspace } = await ws.json();
 	const sh = await page.request.post(`/api/workspaces/${workspace.id}/sheets`, {
