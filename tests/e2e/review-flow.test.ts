@@ -73,6 +73,10 @@ test('request, comment on a part and a pole, live updates, sign-off, changed sin
 	await expect(panel(b).getByLabel('About')).toHaveValue('pole:p1');
 	await text.fill('p1 sits at 159 kHz: enough margin for the 100 kHz band?');
 	await panel(b).getByRole('button', { name: 'Post comment' }).click();
+	await expect(panel(b).locator('[data-anchor="pole:p1"]')).toBeVisible().catch(async (e) => {
+		await b.screenshot({ path: '/tmp/review-b-debug.png', fullPage: true });
+		throw e;
+	});
 
 	// A sees both threads without reloading, and the markers on the canvas and pole row.
 	await expect(panel(a).locator('[data-anchor="element:C1"]')).toContainText('Is C1 a C0G part?');
@@ -87,7 +91,7 @@ test('request, comment on a part and a pole, live updates, sign-off, changed sin
 	const mine = panel(b).getByRole('region', { name: 'Your review' });
 	await mine.getByLabel('Summary').fill('Corner at 159 kHz is fine for this band.');
 	await mine.getByRole('button', { name: 'Sign off revision 1' }).click();
-	await expect(panel(a).getByTestId('review-state')).toHaveText(/Signed off — revision 1/);
+	await expect(panel(a).getByTestId('review-state')).toHaveText(/Signed off\s+—\s+revision 1/);
 	await b.screenshot({ path: '/tmp/review-b-signed.png', fullPage: true });
 
 	// A edits R1; the sheet now differs from what was signed off.

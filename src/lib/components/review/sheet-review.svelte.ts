@@ -2,7 +2,7 @@
 // analysis of the latest revision (for pole/zero anchors), and the live connection that keeps
 // them fresh. Every live event triggers a refetch of what it concerns, so a missed or merged
 // event can never leave the panel wrong.
-import { getContext, setContext } from 'svelte';
+import { getContext, setContext, untrack } from 'svelte';
 import { LiveChannel } from './live-channel.svelte';
 import type { ActivityItem, Anchor, CommentView, Person, ReviewOverview } from './types';
 
@@ -36,23 +36,31 @@ export class SheetReview {
 	/** The comment the canvas or a result row asked to show or start. */
 	focus = $state<{ anchor: Anchor } | null>(null);
 	loaded = $state(false);
-	readonly live: LiveChannel;
+	live = $state.raw<LiveChannel>(new LiveChannel('', () => undefined));
+	sheetId = $state('');
+	openedRevision = 0;
 	#timer: ReturnType<typeof setTimeout> | null = null;
 	#resultsFor = 0;
 
-	constructor(
-		readonly sheetId: string,
-		readonly me: string,
-		readonly openedRevision: number
-	) {
-		this.live = new LiveChannel(`/api/sheets/${sheetId}/events`, (m) => this.#onEvent(m), () => this.refresh());
-	}
+	constructor(readonly me: string) {}
 
 	get base() {
 		return `/api/sheets/${this.sheetId}`;
 	}
 
-	start() {
+	/** Follow a sheet (again, when the page moves to another sheet or revision). */
+	open(sheetId: string, openedRevision: number) {
+		untrack(() => this.#open(sheetId, openedRevision));
+	}
+
+	#open(sheetId: string, openedRevision: number) {
+		if (sheetId === this.sheetId && openedRevision === this.openedRevision && this.live.status !== 'off') return;
+		this.stop();
+		if (sheetId !== this.sheetId) [this.threads, this.overview, this.activity, this.results, this.loaded, this.#resultsFor] = [[], null, [], null, false, 0];
+		this.sheetId = sheetId;
+		this.openedRevision = openedRevision;
+		this.newerRevision = null;
+		this.live = new LiveChannel(`/api/sheets/${sheetId}/events`, (m) => this.#onEvent(m), () => this.refresh());
 		this.live.start();
 		void this.refresh();
 		void api<{ people: Person[] }>(`${this.base}/comments/people`).then((r) => (this.people = r.people), () => undefined);
