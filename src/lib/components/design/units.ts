@@ -42,3 +42,7 @@ export const percentChange = (from: number | null | undefined, to: number | null
 	const p = (to / from - 1) * 100;
 	return `${Math.abs(p) < 0.005 ? '0.00' : p.toFixed(2)} %`;
 };
+
+/** `show`, but decibels in plain dB. */
+export const withUnit = (v: number | null | undefined, unit: string, digits = 4) =>
+	unit === 'dB' ? db(v) : show(v, unit, digits);
