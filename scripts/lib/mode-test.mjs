@@ -77,7 +77,7 @@ export async function main({ root, args }) {
 			const grep = only === 'bench-e2e' ? ['--grep', '@bench'] : ['--grep-invert', '@bench'];
 			await runAsync(path.join(root, 'node_modules/.bin/playwright'), ['test', ...grep], {
 				cwd: root,
-				env: { ...env, DATABASE_URL: e2eUrl, E2E_PORT: String(await freePort()), POLEWISE_SERVE_DIR: serveDir, PLAYWRIGHT_JSON_OUTPUT_NAME: report }
+				env: { ...env, DATABASE_URL: e2eUrl, E2E_PORT: String(await freePort()), POLEWISE_SERVE_DIR: serveDir, POLEWISE_SIGNUPS_PER_HOUR: '500', PLAYWRIGHT_JSON_OUTPUT_NAME: report }
 			});
 			add(playwrightCounts(report));
 		}
