@@ -73,10 +73,6 @@ test('request, comment on a part and a pole, live updates, sign-off, changed sin
 	await expect(panel(b).getByLabel('About')).toHaveValue('pole:p1');
 	await text.fill('p1 sits at 159 kHz: enough margin for the 100 kHz band?');
 	await panel(b).getByRole('button', { name: 'Post comment' }).click();
-	await expect(panel(b).locator('[data-anchor="pole:p1"]')).toBeVisible().catch(async (e) => {
-		await b.screenshot({ path: '/tmp/review-b-debug.png', fullPage: true });
-		throw e;
-	});
 
 	// A sees both threads without reloading, and the markers on the canvas and pole row.
 	await expect(panel(a).locator('[data-anchor="element:C1"]')).toContainText('Is C1 a C0G part?');
@@ -99,6 +95,9 @@ test('request, comment on a part and a pole, live updates, sign-off, changed sin
 	await expect(a.locator('[data-save-status]')).toHaveAttribute('data-save-status', 'saved', { timeout: 15_000 });
 	const notice = panel(a).getByTestId('changed-since-approval');
 	await expect(notice).toContainText('changed since approval');
+	// R1 changed, C1 did not: only the pole comment now refers to an earlier revision.
+	await expect(panel(a).locator('[data-anchor="pole:p1"] [data-testid="earlier-revision"]')).toBeVisible();
+	await expect(panel(a).locator('[data-anchor="element:C1"] [data-testid="earlier-revision"]')).toHaveCount(0);
 	// B is told a newer revision exists, without reloading.
 	await expect(panel(b).getByText('Someone saved revision 2.')).toBeVisible();
 	await a.screenshot({ path: '/tmp/review-a-changed.png', fullPage: true });

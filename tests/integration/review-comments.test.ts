@@ -72,10 +72,11 @@ describe('comment anchors across revisions', () => {
 		now = await list();
 		expect(now.threads).toHaveLength(4);
 		expect([statusOf(now.threads, ids.c1), statusOf(now.threads, ids.net)]).toEqual(['removed', 'current']);
-		// Revision 5 rewires R1 to a new net: nothing touches b any more.
-		const rewired = withC1(network('10M'), null);
-		rewired.elements = rewired.elements.map((e) => (e.id === 'R1' ? { ...e, nodes: ['a', 'out'] } : e));
-		await save(world.owner.id, sheet.id, { ...rewired, output: { node: 'out' } });
+		// Revision 5 replaces R1 by R9: no part that was on net b is left (net names do not count,
+		// the editor gives them afresh; what the terminals touch does).
+		const replaced = withC1(network('10M'), null);
+		replaced.elements = replaced.elements.map((e) => (e.id === 'R1' ? { ...e, id: 'R9', nodes: ['a', 'out'] } : e));
+		await save(world.owner.id, sheet.id, { ...replaced, output: { node: 'out' } });
 		expect(statusOf((await list()).threads, ids.net)).toBe('removed');
 	});
 
@@ -106,6 +107,21 @@ describe('comment anchors across revisions', () => {
 		expect((await post(world.commenter, sheet.id, { body: '   ' })).body.error).toBe('body: body is empty: write something');
 		expect((await post(world.commenter, sheet.id, { body: 'x', revision: 7 })).body.error).toBe('revision: the sheet has no revision 7.');
 		expect((await post(world.commenter, sheet.id, { body: 'x'.repeat(4001) })).status).toBe(400);
+	});
+});
+
+describe('net names given afresh', () => {
+	it('a save that only renames nets (as the editor does) changes no anchor, and "1n" equals "1 n"', async () => {
+		const world = await matrixWorld();
+		const { sheet } = await world.sheet();
+		const onC1 = await post(world.commenter, sheet.id, { body: 'C1?', anchor: { kind: 'element', ref: 'C1' } });
+		const onNet = await post(world.commenter, sheet.id, { body: 'b?', anchor: { kind: 'net', ref: 'b' } });
+		const onPole = await post(world.commenter, sheet.id, { body: 'p1?', anchor: { kind: 'pole', ref: 'p1' } });
+		const renamed = network('9M');
+		renamed.elements = renamed.elements.map((e) => ({ ...e, nodes: e.nodes.map((n) => ({ a: 'n1', b: 'n2' })[n as 'a' | 'b'] ?? n), ...(e.id === 'C1' ? { value: '1 n' } : {}) }));
+		await save(world.owner.id, sheet.id, { ...renamed, output: { node: 'n2' } });
+		const { threads } = (await call(comments.GET, { user: world.owner, params: { id: sheet.id } })).body;
+		expect([onC1, onNet, onPole].map((c) => statusOf(threads, c.body.comment.id))).toEqual(['current', 'current', 'current']);
 	});
 });
 

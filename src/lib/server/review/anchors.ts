@@ -5,6 +5,7 @@
 import { z } from 'zod';
 import type { NetworkDocument, NetworkElement } from '../../network/schema';
 import type { AnchorKind } from '../db/models/comment';
+import { elementUnchanged, netStatus, sameNetwork } from './wiring';
 
 const ref = z.string().trim().min(1, 'anchor.ref is required for this kind').max(64, 'anchor.ref is at most 64 characters');
 // A result row's snapshot comes from the browser's analysis; only a few bounded numbers are kept.
@@ -31,12 +32,6 @@ function elementFacts(e: NetworkElement) {
 	return { type: e.type, value: e.value === undefined ? null : String(e.value), nodes: e.nodes.map(netName), control: e.control ?? null };
 }
 
-// Field by field: the snapshot comes back from JSONB, which does not keep key order.
-function sameFacts(now: ReturnType<typeof elementFacts>, then: unknown): boolean {
-	const t = (then ?? {}) as Partial<ReturnType<typeof elementFacts>>;
-	return now.type === t.type && now.value === t.value && now.control === t.control && now.nodes.join('|') === (t.nodes ?? []).join('|');
-}
-
 export class AnchorProblem extends Error {}
 
 /** The snapshot stored with a new comment; throws AnchorProblem when the anchor is not in the revision. */
@@ -60,29 +55,19 @@ export function snapshotAnchor(anchor: AnchorInput, doc: NetworkDocument, revisi
 	}
 }
 
-/** The part of a document that decides the analysis (the drawing's layout does not). */
-export function networkFingerprint(doc: NetworkDocument): string {
-	const elements = [...doc.elements].sort((a, b) => a.id.localeCompare(b.id)).map((e) => [e.id, elementFacts(e)]);
-	return JSON.stringify({ elements, input: doc.input, output: [netName(doc.output.node), netName(doc.output.reference ?? 'gnd')] });
-}
-
 export function anchorStatus(
 	kind: AnchorKind,
 	anchorRef: string | null,
-	snapshot: unknown,
+	_snapshot: unknown,
 	written: NetworkDocument,
 	latest: NetworkDocument
 ): AnchorStatus {
 	if (kind === 'sheet') return 'current';
 	if (kind === 'element' || kind === 'time_constant') {
-		const e = latest.elements.find((x) => x.id === anchorRef);
-		if (!e) return 'removed';
-		return sameFacts(elementFacts(e), snapshot) ? 'current' : 'changed';
+		const same = elementUnchanged(anchorRef ?? '', written, latest);
+		return same === null ? 'removed' : same ? 'current' : 'changed';
 	}
-	if (kind === 'net') {
-		const nets = new Set(latest.elements.flatMap((e) => e.nodes.map(netName)));
-		return nets.has(netName(anchorRef ?? '')) ? 'current' : 'removed';
-	}
+	if (kind === 'net') return netStatus(anchorRef ?? '', written, latest);
 	// Poles, zeros and spec lines depend on the whole network: any change to it may move them.
-	return networkFingerprint(written) === networkFingerprint(latest) ? 'current' : 'changed';
+	return sameNetwork(written, latest) ? 'current' : 'changed';
 }

@@ -5,6 +5,7 @@ import type { Analysis, Singularity } from '../../solver';
 import { ApiProblem } from '../api/respond';
 import { analyzeInPool } from '../jobs/analysis-pool';
 import { readRevision } from '../sharing/sheet-actions';
+import { outputSignature, sameValue, wiring } from './wiring';
 import type { Actor } from '../access';
 
 export interface FieldChange {
@@ -28,6 +29,8 @@ export function diffElements(a: NetworkDocument, b: NetworkDocument): ElementDif
 	const before = new Map(a.elements.map((e) => [e.id, e]));
 	const after = new Map(b.elements.map((e) => [e.id, e]));
 	const out: ElementDiff = { added: [], removed: [], changed: [], ports: [] };
+	const both = new Set([...before.keys()].filter((id) => after.has(id)));
+	const [wa, wb] = [wiring(a, both), wiring(b, both)];
 	for (const [id, e] of after) {
 		const old = before.get(id);
 		if (!old) {
@@ -36,16 +39,16 @@ export function diffElements(a: NetworkDocument, b: NetworkDocument): ElementDif
 		}
 		const changes: FieldChange[] = [];
 		if (old.type !== e.type) changes.push({ field: 'type', from: old.type, to: e.type });
-		if (val(old) !== val(e)) changes.push({ field: 'value', from: val(old), to: val(e) });
-		const [na, nb] = [old.nodes.map(net).join(', '), e.nodes.map(net).join(', ')];
-		if (na !== nb) changes.push({ field: 'nodes', from: na, to: nb });
+		if (!sameValue(old.value, e.value)) changes.push({ field: 'value', from: val(old), to: val(e) });
+		// Net names may be regenerated on save: only a change of what the terminals touch counts.
+		if (wa.get(id) !== wb.get(id)) changes.push({ field: 'nodes', from: old.nodes.map(net).join(', '), to: e.nodes.map(net).join(', ') });
 		if ((old.control ?? null) !== (e.control ?? null)) changes.push({ field: 'control', from: old.control ?? null, to: e.control ?? null });
 		if (changes.length) out.changed.push({ id, type: e.type, changes });
 	}
 	for (const [id, e] of before) if (!after.has(id)) out.removed.push({ id, type: e.type, value: val(e) });
 	if (a.input !== b.input) out.ports.push(`input source ${a.input} → ${b.input}`);
 	const [oa, ob] = [a, b].map((d) => `${net(d.output.node)} against ${net(d.output.reference ?? 'gnd')}`);
-	if (oa !== ob) out.ports.push(`output ${oa} → ${ob}`);
+	if (outputSignature(a) !== outputSignature(b)) out.ports.push(`output ${oa} → ${ob}`);
 	return out;
 }
 

@@ -12,7 +12,7 @@ import { getMembership } from '../db/workspaces';
 import { reviewAnswerMail, reviewRequestMail } from '../mail/review-templates';
 import { publish, sheetChannel } from '../live/events';
 import type { NetworkDocument } from '../../network/schema';
-import { networkFingerprint } from './anchors';
+import { sameNetwork } from './wiring';
 import { notify } from './notify';
 import { summarize } from './state';
 import type { ReviewContext } from './comment-actions';
@@ -27,7 +27,7 @@ export async function reviewOverview(actor: Actor, sheetId: string) {
 	let changedSinceApproval = false;
 	if (summary.approvedRevision !== null && summary.approvedRevision < access.sheet.latestRevision) {
 		const [approved, latest] = await Promise.all([getRevision(sheetId, summary.approvedRevision), getRevision(sheetId)]);
-		changedSinceApproval = !!approved && !!latest && networkFingerprint(approved.document as NetworkDocument) !== networkFingerprint(latest.document as NetworkDocument);
+		changedSinceApproval = !!approved && !!latest && !sameNetwork(approved.document as NetworkDocument, latest.document as NetworkDocument);
 	}
 	const me = actor.kind === 'user' ? actor.id : null;
 	const myTurn = requests.find((r) => !r.withdrawnAt && r.reviewers.some((x) => x.userId === me));
