@@ -47,10 +47,9 @@ export function extensionFits(fileName: string, type: AllowedType): boolean {
 /** A file name safe to store and to put in Content-Disposition: no paths, no control characters. */
 export function cleanFileName(name: string, fallback = 'file'): string {
 	const base = name.split(/[\\/]/).pop() ?? '';
-	// eslint-disable-next-line no-control-regex -- control characters are exactly what must go
-	const clean = base
-		.replace(/[\u0000-\u001f\u007f"<>|:*?]/g, '')
-		.trim()
-		.slice(0, 200);
+	// Control characters are exactly what must go.
+	// eslint-disable-next-line no-control-regex
+	const unsafe = /[\u0000-\u001f\u007f"<>|:*?]/g;
+	const clean = base.replace(unsafe, '').trim().slice(0, 200);
 	return clean && clean !== '.' && clean !== '..' ? clean : fallback;
 }
