@@ -28,7 +28,8 @@ function playwrightCounts(file) {
 }
 
 export async function main({ root, args }) {
-	// optional: unit | integration | e2e | bench-e2e (the browser measurements tagged @bench)
+	// optional: unit | integration | e2e | bench-e2e (the browser measurements tagged @bench);
+	// after e2e or bench-e2e, Playwright's own arguments (e.g. one test file)
 	const only = args[0];
 	const scratch = mkdtempSync(path.join(os.tmpdir(), 'polewise-test-'));
 	chmodSync(scratch, 0o755); // the cluster's user must be able to enter it
@@ -75,7 +76,7 @@ export async function main({ root, args }) {
 			const report = path.join(scratch, 'playwright.json');
 			step('Browser tests (Playwright on Debian’s Chromium)');
 			const grep = only === 'bench-e2e' ? ['--grep', '@bench'] : ['--grep-invert', '@bench'];
-			await runAsync(path.join(root, 'node_modules/.bin/playwright'), ['test', ...grep], {
+			await runAsync(path.join(root, 'node_modules/.bin/playwright'), ['test', ...grep, ...args.slice(1)], {
 				cwd: root,
 				env: { ...env, DATABASE_URL: e2eUrl, E2E_PORT: String(await freePort()), POLEWISE_SERVE_DIR: serveDir, POLEWISE_SIGNUPS_PER_HOUR: '500', PLAYWRIGHT_JSON_OUTPUT_NAME: report }
 			});
