@@ -2,14 +2,12 @@
 // the revision and its analysis, measured overlays with their deviation, spec pass/fail (when
 // the design aids keep limits for the sheet), the open comment threads and the review state.
 // Each optional part that cannot be had says why instead of failing the whole report.
-import { QueryTypes } from 'sequelize';
 import type { Actor } from '../access';
 import { ApiProblem } from '../api/respond';
-import { db } from '../db/connection';
+import { getDesignSettings } from '../db/design-jobs';
 import { listMeasurementCurves } from '../db/measurements';
 import { commentThreads } from '../review/comment-actions';
 import { reviewOverview } from '../review/review-actions';
-import { designSettingsSchema } from '../../network/design-schema';
 import {
 	checkSpec,
 	figuresOfAnalysis,
@@ -19,24 +17,6 @@ import {
 import { deviation, type Deviation } from '../../exchange';
 import type { Analysis } from '../../solver';
 import { revisionAnalysis, revisionFromQuery } from './stored-results';
-
-/**
- * The design aids' limits for a sheet. Read here with one query (the table belongs to the design
- * aids' migration) so a database without it still gives a report, with a note.
- */
-async function specLimitsOf(sheetId: string) {
-	const [{ present }] = await db().query<{ present: boolean }>(
-		`SELECT to_regclass('public.design_settings') IS NOT NULL AS present`,
-		{ type: QueryTypes.SELECT }
-	);
-	if (!present) return null;
-	const rows = await db().query<{ settings: unknown }>(
-		`SELECT settings FROM design_settings WHERE sheet_id = $1`,
-		{ bind: [sheetId], type: QueryTypes.SELECT }
-	);
-	const parsed = rows[0] ? designSettingsSchema.safeParse(rows[0].settings) : null;
-	return parsed?.success ? (parsed.data.spec ?? null) : null;
-}
 
 export async function reportData(actor: Actor, sheetId: string, url: URL) {
 	const { sheet, workspace, revision, role } = await revisionFromQuery(actor, sheetId, url, 'read');
@@ -60,9 +40,9 @@ export async function reportData(actor: Actor, sheetId: string, url: URL) {
 	}));
 
 	let spec: { outcome: SpecOutcome | null; note: string | null };
-	const limits = await specLimitsOf(sheetId);
-	if (!limits || isEmptySpec(limits))
-		spec = { outcome: null, note: 'No spec limits are set for this sheet.' };
+	// The design aids' own data verb: their defaults (no limits) when the sheet keeps none.
+	const limits = (await getDesignSettings(sheetId)).spec;
+	if (isEmptySpec(limits)) spec = { outcome: null, note: 'No spec limits are set for this sheet.' };
 	else if (!analysis)
 		spec = {
 			outcome: null,
