@@ -1,0 +1,99 @@
+// The sheet's spec limits judged on two revisions, line by line: the limit, the value and the
+// verdict before and after. The limits live with the sheet (not the revision), so both sides are
+// judged against the same lines; the design aids' `specOfRevision` does the judging.
+import { checkSpec, type SpecCheck, type SpecFigures } from '../../design/spec-limits';
+import { ApiProblem } from '../api/respond';
+import { getDesignSettings } from '../db/design-jobs';
+import { specOfRevision } from '../jobs/design-service';
+import type { Actor } from '../access';
+
+export interface SpecSide {
+	value: number | null;
+	shown: string;
+	pass: boolean;
+}
+
+export interface SpecLine {
+	key: string;
+	label: string;
+	limit: string;
+	before: SpecSide | null;
+	after: SpecSide | null;
+	/** How the verdict moved: 'kept' (same), 'broke' (pass → fail), 'fixed' (fail → pass). */
+	turn: 'kept' | 'broke' | 'fixed';
+}
+
+export interface SpecComparison {
+	from: number;
+	to: number;
+	lines: SpecLine[];
+	/** null when the sheet has no limits (nothing to pass or fail). */
+	passBefore: boolean | null;
+	passAfter: boolean | null;
+	/** Why a side could not be judged (its network does not analyze), else null. */
+	errorBefore: string | null;
+	errorAfter: string | null;
+}
+
+const side = (c: SpecCheck | undefined): SpecSide | null =>
+	c ? { value: c.value, shown: c.shown, pass: c.pass } : null;
+
+/** Pair two pass/fail tables by line key, in the order of the newer one. */
+export function pairSpecChecks(before: SpecCheck[], after: SpecCheck[]): SpecLine[] {
+	const old = new Map(before.map((c) => [c.key, c]));
+	const keys = [
+		...after.map((c) => c.key),
+		...before.filter((c) => !after.some((a) => a.key === c.key)).map((c) => c.key)
+	];
+	const now = new Map(after.map((c) => [c.key, c]));
+	return keys.map((key) => {
+		const [b, a] = [old.get(key), now.get(key)];
+		const head = (a ?? b)!;
+		const turn = b && a && b.pass !== a.pass ? (a.pass ? 'fixed' : 'broke') : 'kept';
+		return { key, label: head.label, limit: head.limit, before: side(b), after: side(a), turn };
+	});
+}
+
+type Judged = { checks: SpecCheck[]; pass: boolean } | { error: string };
+
+// A revision whose network the solver refuses (422) is reported, not thrown: the other side
+// and the rest of the comparison still stand.
+async function judge(actor: Actor, sheetId: string, n: number): Promise<Judged> {
+	try {
+		return (await specOfRevision(actor, sheetId, n)) as unknown as Judged;
+	} catch (e) {
+		if (e instanceof ApiProblem && e.status === 422) return { error: e.message };
+		throw e;
+	}
+}
+
+/** Both revisions against the sheet's limits (access: `analyze` on the sheet, as for a comparison). */
+export async function compareSpec(
+	actor: Actor,
+	sheetId: string,
+	from: number,
+	to: number
+): Promise<SpecComparison> {
+	const [a, b] = await Promise.all([judge(actor, sheetId, from), judge(actor, sheetId, to)]);
+	// The lines themselves, for a side that could not be judged: the limits with no values.
+	const blank = async () =>
+		checkSpec((await getDesignSettings(sheetId)).spec, {} as SpecFigures).checks;
+	const checksOf = async (j: Judged) => ('error' in j ? blank() : j.checks);
+	const [ca, cb] = await Promise.all([checksOf(a), checksOf(b)]);
+	const lines = pairSpecChecks(ca, cb).map((l) => ({
+		...l,
+		before: 'error' in a ? null : l.before,
+		after: 'error' in b ? null : l.after,
+		turn: 'error' in a || 'error' in b ? ('kept' as const) : l.turn
+	}));
+	const verdict = (j: Judged) => (lines.length && !('error' in j) ? j.pass : null);
+	return {
+		from,
+		to,
+		lines,
+		passBefore: verdict(a),
+		passAfter: verdict(b),
+		errorBefore: 'error' in a ? a.error : null,
+		errorAfter: 'error' in b ? b.error : null
+	};
+}
