@@ -1,5 +1,6 @@
 import { assemble, type ReactiveMode } from './assemble';
 import { portModelFrom, SINGULAR_PIVOT, type PortModel } from './port-model';
+import { edgesOnLoops } from './loop-edges';
 import { branchNodes } from './topology';
 import { UnionFind } from './union-find';
 import type { ResolvedNetwork } from './types';
@@ -33,15 +34,19 @@ export function dcPorts(net: ResolvedNetwork, modeOf: (k: number) => ReactiveMod
 	for (const k of net.reactive) {
 		if (shortLike(k) && !shorts.union(els[k].nodes[0], els[k].nodes[1])) dropped.add(k);
 	}
-	const inLoop = new Set<number>();
+	// A voltage port is inside a loop of shorts when the other shorts already join its
+	// terminals: exactly when it is not a bridge of the graph of all shorts.
+	const shortEdges: [number, number][] = [];
+	for (const e of els) if (VOLTAGE_EDGE.has(e.type)) shortEdges.push(branchNodes(e));
+	const edgeOf = new Map<number, number>();
 	for (const k of net.reactive) {
-		if (modeOf(k) !== 'vport') continue;
-		const uf = new UnionFind(n);
-		for (const e of els) if (VOLTAGE_EDGE.has(e.type)) uf.union(...branchNodes(e));
-		for (const j of net.reactive)
-			if (j !== k && shortLike(j)) uf.union(els[j].nodes[0], els[j].nodes[1]);
-		if (uf.connected(els[k].nodes[0], els[k].nodes[1])) inLoop.add(k);
+		if (!shortLike(k)) continue;
+		edgeOf.set(k, shortEdges.length);
+		shortEdges.push([els[k].nodes[0], els[k].nodes[1]]);
 	}
+	const onLoop = edgesOnLoops(n, shortEdges);
+	const inLoop = new Set<number>();
+	for (const k of net.reactive) if (modeOf(k) === 'vport' && onLoop[edgeOf.get(k)!]) inLoop.add(k);
 	const mode = (k: number): ReactiveMode => (dropped.has(k) ? 'open' : modeOf(k));
 
 	// DC components through every branch that carries a determined current path.
