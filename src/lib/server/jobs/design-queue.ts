@@ -3,10 +3,13 @@
 // SELECT … FOR UPDATE SKIP LOCKED, so several app processes share one queue safely; the
 // design_jobs table holds what people see (progress, cancel flag, result, revision).
 //
-// The runner starts inside the app process on the first design request (every design route
-// calls `designQueue()`), so `npm start` needs nothing more. A job queued before a restart is
-// picked up as soon as any design request reaches the restarted process; a job whose process
-// died while running is handed out again by pg-boss after its expiry and starts over.
+// Two steps, kept apart on purpose: `designBoss()` connects and makes sure the queue exists
+// (enough to send and cancel), `startDesignRunner()` also subscribes this process to the
+// queue. The server hook starts the runner when the app process starts (see
+// src/hooks.server.ts), so a job queued before a restart is picked up without waiting for a
+// design request; design requests still call it (idempotent) in case that start failed, e.g.
+// while the database was not up yet. A job whose process died while running is handed out
+// again by pg-boss after its expiry and starts over.
 import PgBoss from 'pg-boss';
 import { databaseUrl } from '../db/connection';
 import { finishDesignJob, getDesignJob, reportProgress, startDesignJob } from '../db/design-jobs';
@@ -20,10 +23,12 @@ export const DESIGN_QUEUE = 'design-tolerance';
 export const RUNS_PER_CHUNK = 250;
 const CHUNK_TIMEOUT_MS = 120_000;
 
-let starting: Promise<PgBoss> | null = null;
+let connecting: Promise<PgBoss> | null = null;
+let subscribing: Promise<PgBoss> | null = null;
 
-export function designQueue(): Promise<PgBoss> {
-	starting ??= (async () => {
+/** pg-boss started and the queue created; this process does not take jobs from it yet. */
+export function designBoss(): Promise<PgBoss> {
+	connecting ??= (async () => {
 		const boss = new PgBoss({ connectionString: databaseUrl(), max: 3 });
 		boss.on('error', (e) => console.error(`design queue: ${e.message}`));
 		await boss.start();
@@ -34,6 +39,18 @@ export function designQueue(): Promise<PgBoss> {
 				// Another process created it between the check and here.
 			}
 		}
+		return boss;
+	})().catch((e) => {
+		connecting = null;
+		throw e;
+	});
+	return connecting;
+}
+
+/** Subscribe this process to the queue (once; a failed start is tried again on the next call). */
+export function startDesignRunner(): Promise<PgBoss> {
+	subscribing ??= (async () => {
+		const boss = await designBoss();
 		await boss.work<{ jobId: string }>(
 			DESIGN_QUEUE,
 			{ batchSize: 1, pollingIntervalSeconds: 0.5 },
@@ -43,14 +60,32 @@ export function designQueue(): Promise<PgBoss> {
 		);
 		return boss;
 	})().catch((e) => {
-		starting = null;
+		subscribing = null;
 		throw e;
 	});
-	return starting;
+	return subscribing;
 }
 
+/**
+ * Start the runner as the app process starts. Never throws: a failure (database not up yet)
+ * is logged, and the next design request tries again.
+ */
+export async function startDesignRunnerAtBoot(): Promise<void> {
+	try {
+		await startDesignRunner();
+	} catch (e) {
+		const reason = e instanceof Error ? e.message : String(e);
+		console.error(
+			`design queue: the runner did not start (${reason}); a design request will try again`
+		);
+	}
+}
+
+/** The runner, for callers that also want this process to take jobs (every design route). */
+export const designQueue = startDesignRunner;
+
 export async function enqueueDesignJob(jobId: string): Promise<string> {
-	const boss = await designQueue();
+	const boss = await designBoss();
 	// One retry covers a process that died mid-run; expiry bounds how long a dead run blocks it.
 	const id = await boss.send(DESIGN_QUEUE, { jobId }, { retryLimit: 1, expireInSeconds: 30 * 60 });
 	if (!id) throw new ApiProblem(503, 'the job queue did not accept the run; try again');
@@ -60,7 +95,7 @@ export async function enqueueDesignJob(jobId: string): Promise<string> {
 export async function cancelQueued(queueId: string | null): Promise<void> {
 	if (!queueId) return;
 	try {
-		await (await designQueue()).cancel(DESIGN_QUEUE, queueId);
+		await (await designBoss()).cancel(DESIGN_QUEUE, queueId);
 	} catch {
 		// Already running or finished: the runner sees the cancel flag instead.
 	}
@@ -108,7 +143,9 @@ export async function runToleranceJob(jobId: string): Promise<void> {
 }
 
 export async function stopDesignQueue(): Promise<void> {
-	const s = starting;
-	starting = null;
-	if (s) await (await s).stop({ graceful: true, wait: true, timeout: 5000 });
+	const s = connecting;
+	connecting = null;
+	subscribing = null;
+	const boss = s ? await s.catch(() => null) : null;
+	if (boss) await boss.stop({ graceful: true, wait: true, timeout: 5000 });
 }

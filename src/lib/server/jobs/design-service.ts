@@ -71,6 +71,8 @@ export async function startMonteCarlo(
 		createdBy: actor.id
 	});
 	await setQueueId(job.id, await enqueueDesignJob(job.id));
+	// The server hook normally has the runner going already; this covers a failed start.
+	void designQueue().catch(() => {});
 	return job;
 }
 
