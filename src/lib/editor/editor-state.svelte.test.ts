@@ -94,6 +94,36 @@ describe('EditorState', () => {
 		expect(s.built.problems).toEqual([]);
 	});
 
+	it('setValues changes several values as one undo step, by element name', () => {
+		const { s, r } = divider();
+		const c = s.addItem('C', 200, 0)!;
+		const before = s.version;
+		expect(s.setValues({ R1: '8.2M', C1: '39p', Vx: '1', GND: '1' })).toEqual(['R1', 'C1']);
+		expect(s.version).toBe(before + 1);
+		expect(s.items.find((i) => i.id === r)!.value).toBe('8.2M');
+		expect(s.items.find((i) => i.id === c)!.value).toBe('39p');
+		expect(s.built.document.elements.find((e) => e.id === 'C1')!.value).toBe('39p');
+		s.undo();
+		expect(s.items.find((i) => i.id === r)!.value).toBe('1k');
+		expect(s.items.find((i) => i.id === c)!.value).toBe('10p');
+		// The step before is the capacitor being placed: one more undo removes it.
+		s.undo();
+		expect(s.items.some((i) => i.id === c)).toBe(false);
+		s.redo();
+		s.redo();
+		expect(s.items.find((i) => i.id === r)!.value).toBe('8.2M');
+	});
+
+	it('setValues records nothing when no value changes, and nothing when read-only', () => {
+		const { s } = divider();
+		const before = s.version;
+		expect(s.setValues({ R1: ' 1k ', Rnone: '5' })).toEqual([]);
+		expect(s.version).toBe(before);
+		s.readonly = true;
+		expect(s.setValues({ R1: '2k' })).toEqual([]);
+		expect(s.items.find((i) => i.name === 'R1')!.value).toBe('1k');
+	});
+
 	it('a read-only editor ignores edits', () => {
 		const { s } = divider();
 		s.readonly = true;

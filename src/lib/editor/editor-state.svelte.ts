@@ -7,7 +7,7 @@
 import { getContext, setContext } from 'svelte';
 import { snap, nextRotation } from './geometry';
 import { History } from './history';
-import { KINDS, isCircuit, isSource, type ItemKind } from './kinds';
+import { KINDS, hasValue, isCircuit, isSource, type ItemKind } from './kinds';
 import { nameProblem, nextName } from './names';
 import { computeNets } from './nets';
 import { buildDocument } from './to-document';
@@ -134,6 +134,26 @@ export class EditorState {
 
 	updateItem(id: string, patch: Partial<EditorItem>, key?: string): void {
 		this.apply({ items: this.items.map((i) => (i.id === id ? { ...i, ...patch } : i)) }, key);
+	}
+
+	/**
+	 * Set several elements' values at once, by element name (the network id), as ONE undo step:
+	 * the way in for tools beside the drawing (the design aids' "apply"). Values are text as a
+	 * person would type it. Returns the names whose value changed; a name not on the sheet, or
+	 * a part without a value, is left alone.
+	 */
+	setValues(values: Record<string, string>): string[] {
+		if (this.readonly) return [];
+		const changed: string[] = [];
+		const items = this.items.map((i) => {
+			if (!hasValue(i.kind) || !Object.hasOwn(values, i.name)) return i;
+			const value = values[i.name].trim();
+			if (value === i.value.trim()) return i;
+			changed.push(i.name);
+			return { ...i, value };
+		});
+		if (changed.length) this.apply({ items });
+		return changed;
 	}
 
 	/** Returns the reason when the name is refused; controls that named the old one follow. */
