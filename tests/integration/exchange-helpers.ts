@@ -76,3 +76,24 @@ export async function exchangeWorld(doc: unknown = network('1k')) {
 	});
 	return { owner, outsider, workspace, sheet };
 }
+
+/** Two-ports with closed-form parameters for the Touchstone tests: a series R, a shunt C behind 1 kΩ. */
+export const seriesR = (r: string) => ({
+	schema: 1,
+	elements: [
+		{ id: 'Vg', type: 'V', nodes: ['in', 'gnd'], value: 1 },
+		{ id: 'Rs', type: 'R', nodes: ['in', 'out'], value: r }
+	],
+	input: 'Vg',
+	output: { node: 'out' }
+});
+export const shuntC = {
+	schema: 1,
+	elements: [
+		{ id: 'Vg', type: 'V', nodes: ['in', 'gnd'], value: 1 },
+		{ id: 'Rs', type: 'R', nodes: ['in', 'out'], value: '1k' },
+		{ id: 'Cp', type: 'C', nodes: ['out', 'gnd'], value: '2.2n' }
+	],
+	input: 'Vg',
+	output: { node: 'out' }
+};

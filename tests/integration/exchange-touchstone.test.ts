@@ -3,7 +3,7 @@
 // of the Touchstone File Format Specification (IBIS Open Forum).
 import { describe, expect, it } from 'vitest';
 import { useDatabase } from './support/database';
-import { exchangeWorld, send } from './exchange-helpers';
+import { exchangeWorld, send, seriesR, shuntC } from './exchange-helpers';
 import * as touchstone from '../../src/routes/api/sheets/[id=uuid]/touchstone/+server';
 import * as results from '../../src/routes/api/sheets/[id=uuid]/export/[file]/+server';
 import { closeAnalysisPool } from '../../src/lib/server/jobs/analysis-pool';
@@ -11,26 +11,6 @@ import { afterAll } from 'vitest';
 
 useDatabase();
 afterAll(closeAnalysisPool);
-
-const seriesR = (r: string) => ({
-	schema: 1,
-	elements: [
-		{ id: 'Vg', type: 'V', nodes: ['in', 'gnd'], value: 1 },
-		{ id: 'Rs', type: 'R', nodes: ['in', 'out'], value: r }
-	],
-	input: 'Vg',
-	output: { node: 'out' }
-});
-const shuntC = {
-	schema: 1,
-	elements: [
-		{ id: 'Vg', type: 'V', nodes: ['in', 'gnd'], value: 1 },
-		{ id: 'Rs', type: 'R', nodes: ['in', 'out'], value: '1k' },
-		{ id: 'Cp', type: 'C', nodes: ['out', 'gnd'], value: '2.2n' }
-	],
-	input: 'Vg',
-	output: { node: 'out' }
-};
 
 const dataLines = (text: string) =>
 	text.split('\r\n').filter((l) => l && !l.startsWith('!') && !l.startsWith('#'));

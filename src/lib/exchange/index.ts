@@ -34,6 +34,8 @@ export {
 	writeTouchstone,
 	frequencyList,
 	asciiComment,
+	TOUCHSTONE_VERSIONS,
 	type TouchstoneParameter,
-	type TouchstoneFormat
+	type TouchstoneFormat,
+	type TouchstoneVersion
 } from './touchstone';

@@ -83,6 +83,74 @@ describe('Touchstone writer', () => {
 		expect(lines[3].split(' ').map(Number)).toEqual([10, 2, 0, 1, 0, 1, 0, 2, 0]);
 	});
 
+	// Touchstone File Format Specification Version 2.0 (IBIS Open Forum, ratified April 24, 2009):
+	// [Version] 2.0 first (comments may come before it), the option line, [Number of Ports], then
+	// [Two-Port Data Order] (required for 2-ports: 21_12 means N11 N21 N12 N22), [Number of
+	// Frequencies], [Reference] (one resistance per port), [Network Data] … [End].
+	it('version 2.0: keywords in the order the 2.0 specification gives, 21_12 data order, [End] last', () => {
+		const text = writeTouchstone({
+			parameter: 'S',
+			format: 'RI',
+			unit: 'MHz',
+			z0: 75,
+			version: '2.0',
+			f: [1e6, 2.5e6],
+			values: [m, m],
+			comments: ['Sheet: probe']
+		});
+		expect(text.endsWith('[End]\r\n')).toBe(true);
+		const lines = text.split('\r\n').filter((l) => l && !l.startsWith('!'));
+		expect(lines.slice(0, 7)).toEqual([
+			'[Version] 2.0',
+			'# MHz S RI R 75',
+			'[Number of Ports] 2',
+			'[Two-Port Data Order] 21_12',
+			'[Number of Frequencies] 2',
+			'[Reference] 75 75',
+			'[Network Data]'
+		]);
+		expect(lines.at(-1)).toBe('[End]');
+		const data = lines.slice(7, -1);
+		expect(data).toHaveLength(2);
+		// 21_12: N11 N21 N12 N22 — S21 is m[1][0] (0.31, 0.32), S12 is m[0][1] (0.21, 0.22).
+		expect(data[1].split(' ').map(Number)).toEqual([
+			2.5, 0.11, 0.12, 0.31, 0.32, 0.21, 0.22, 0.41, 0.42
+		]);
+		expect(/^[\x20-\x7e\r\n]*$/.test(text)).toBe(true);
+	});
+
+	it('version 2.0 writes Z in ohms and Y in siemens, not normalized (2.0 specification)', () => {
+		const z: M2 = [
+			[c(100), c(50)],
+			[c(50), c(100)]
+		];
+		const lines = (parameter: 'Z' | 'Y', values: M2) =>
+			writeTouchstone({
+				parameter,
+				format: 'RI',
+				unit: 'Hz',
+				z0: 50,
+				version: '2.0',
+				f: [10],
+				values: [values],
+				comments: []
+			}).split('\r\n');
+		const zl = lines('Z', z);
+		expect(zl[0]).toBe('! Z-parameters in ohms, not normalized (Touchstone 2.0)');
+		expect(zl).toContain('# Hz Z RI R 50');
+		expect(zl[zl.indexOf('[Network Data]') + 2].split(' ').map(Number)).toEqual([
+			10, 100, 0, 50, 0, 50, 0, 100, 0
+		]);
+		const y: M2 = [
+			[c(0.02), c(-0.01)],
+			[c(-0.01), c(0.02)]
+		];
+		const yl = lines('Y', y);
+		expect(yl[yl.indexOf('[Network Data]') + 2].split(' ').map(Number)).toEqual([
+			10, 0.02, 0, -0.01, 0, -0.01, 0, 0.02, 0
+		]);
+	});
+
 	it('keeps comments to printable ASCII', () => {
 		expect(asciiComment('9 MΩ ∥ 10 pF — µ')).toBe('9 MOhm || 10 pF - u');
 		expect(asciiComment('Ünïcode ✓')).toBe('Unicode ?');

@@ -8,6 +8,7 @@ import {
 	defaultPorts,
 	fileStem,
 	frequencyList,
+	TOUCHSTONE_VERSIONS,
 	twoPort,
 	TwoPortError,
 	writeTouchstone,
@@ -30,6 +31,7 @@ export const touchstoneQuery = z
 	.object({
 		parameter: z.enum(['S', 'Z', 'Y'], { error: 'parameter must be S, Z or Y' }).default('S'),
 		format: z.enum(['RI', 'MA', 'DB'], { error: 'format must be RI, MA or DB' }).default('RI'),
+		version: z.enum(TOUCHSTONE_VERSIONS, { error: 'version must be 1.1 or 2.0' }).default('1.1'),
 		unit: z
 			.enum(['Hz', 'kHz', 'MHz', 'GHz'], { error: 'unit must be Hz, kHz, MHz or GHz' })
 			.default('Hz'),
@@ -135,10 +137,11 @@ export async function touchstoneAs(actor: Actor, sheetId: string, url: URL, q: T
 			format: q.format,
 			unit: q.unit,
 			z0: q.z0,
+			version: q.version,
 			f: t.f,
 			values,
 			comments: [
-				'Polewise two-port export (Touchstone 1.1 layout)',
+				`Polewise two-port export (Touchstone ${q.version} layout)`,
 				`Sheet: ${sheet.name}, revision ${revision.number}`,
 				`Port 1: ${port(ports.port1)}; port 2: ${port(ports.port2)}; both referenced to ${q.z0} ohm`,
 				`The sheet's input source is taken out; other independent sources are at zero`,
