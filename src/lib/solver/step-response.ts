@@ -88,6 +88,38 @@ export function stepEvaluator(md: Modal): (t: number) => number {
 	};
 }
 
+/** Log samples per decade: a sum of real exponentials changes shape over about a decade of t. */
+const PER_DECADE = 60;
+/** Linear samples per period of a ringing mode. */
+const PER_PERIOD = 24;
+/** Most ringing samples × poles to evaluate (a Q of 250 needs ~19 000 samples of 2 poles). */
+const RINGING_WORK = 2e5;
+
+/**
+ * Sample times for locating the crossings, the peak and the last exit from the 1 % band: log
+ * spaced from t0 to tEnd (fast and slow real poles both resolved), plus, for each complex pair,
+ * PER_PERIOD samples per period until it has decayed ten time constants (or to tEnd) — on a log
+ * grid alone a Q of 10 or more would ring between samples and its last excursion be missed.
+ */
+export function metricsGrid(md: Modal, tEnd: number, t0: number): Float64Array {
+	const decades = Math.log10(tEnd / t0);
+	const nLog = Math.min(1500, Math.max(200, Math.ceil(PER_DECADE * decades)));
+	const ts: number[] = [0];
+	for (let i = 0; i <= nLog; i++) ts.push(t0 * (tEnd / t0) ** (i / nLog));
+	const ringing = md.poles.filter((p) => p.im > 0);
+	const budget = Math.min(50_000, Math.max(6000, RINGING_WORK / md.poles.length));
+	const share = Math.floor(budget / Math.max(1, ringing.length));
+	for (const p of ringing) {
+		const stop = p.re < 0 ? Math.min(tEnd, 10 / -p.re) : tEnd;
+		const count = Math.min(share, Math.ceil((stop * p.im * PER_PERIOD) / (2 * Math.PI)));
+		for (let k = 1; k <= count; k++) ts.push((stop * k) / count);
+	}
+	const grid = Float64Array.from(ts).sort();
+	let w = 1;
+	for (let i = 1; i < grid.length; i++) if (grid[i] > grid[w - 1]) grid[w++] = grid[i];
+	return grid.subarray(0, w);
+}
+
 export interface StepResult {
 	t: number[];
 	y: number[];
@@ -112,7 +144,7 @@ function bisect(f: (t: number) => number, a: number, b: number): number {
 }
 
 /** Golden-section search around the largest sample: the peak between grid points. */
-function refinePeak(u: (t: number) => number, grid: number[], vals: number[]): number {
+function refinePeak(u: (t: number) => number, grid: Float64Array, vals: number[]): number {
 	let i = 0;
 	for (let k = 1; k < vals.length; k++) if (vals[k] > vals[i]) i = k;
 	if (i === 0 || i === vals.length - 1) return vals[i];
@@ -141,26 +173,27 @@ function refinePeak(u: (t: number) => number, grid: number[], vals: number[]): n
 	return Math.max(vals[i], fc, fd);
 }
 
-export function stepResponse(
+export interface StepFigures {
+	riseTime: number | null;
+	overshoot: number | null;
+	settlingTime: number | null;
+}
+
+/**
+ * Rise time 10–90 %, overshoot (%) and the last exit from the ±1 % band of the final value, from
+ * the pole–residue form: located on metricsGrid, refined by bisection (crossings) and golden
+ * section (peak) to double precision. The analysis and the design aids share this one definition.
+ */
+export function stepMetrics(
 	md: Modal,
-	final: number | null,
+	final: number,
 	tEnd: number,
 	tFast: number,
-	points: number
-): StepResult {
-	const n = Math.max(2, Math.floor(points));
-	const at = stepEvaluator(md);
-	const t = Array.from({ length: n }, (_, i) => (tEnd * i) / (n - 1));
-	const y = t.map(at);
-	if (final === null || final === 0 || !Number.isFinite(final)) {
-		return { t, y, riseTime: null, overshoot: null, settlingTime: null, final };
-	}
-	// Metrics on a dense log grid (fast and slow poles both resolved), refined by bisection.
-	const grid = [0];
-	const t0 = Math.min(tFast, tEnd) * 1e-3;
-	for (let i = 0; i <= 1500; i++) grid.push(t0 * (tEnd / t0) ** (i / 1500));
+	at: (t: number) => number = stepEvaluator(md)
+): StepFigures {
+	const grid = metricsGrid(md, tEnd, Math.min(tFast, tEnd) * 1e-3);
 	const u = (x: number) => at(x) / final;
-	const vals = grid.map(u);
+	const vals = Array.from(grid, u);
 	const cross = (level: number) => {
 		if (vals[0] >= level) return 0;
 		for (let i = 1; i < grid.length; i++) {
@@ -178,18 +211,32 @@ export function stepResponse(
 			break;
 		}
 	}
-	let settling: number | null = 0;
-	if (last === grid.length - 1) settling = null;
+	let settlingTime: number | null = 0;
+	if (last === grid.length - 1) settlingTime = null;
 	else if (last >= 0) {
 		const side = vals[last] > 1 ? 1.01 : 0.99;
-		settling = bisect((x) => u(x) - side, grid[last], grid[last + 1]);
+		settlingTime = bisect((x) => u(x) - side, grid[last], grid[last + 1]);
 	}
 	return {
-		t,
-		y,
 		riseTime: t10 !== null && t90 !== null ? t90 - t10 : null,
 		overshoot: Math.max(0, (peak - 1) * 100),
-		settlingTime: settling,
-		final
+		settlingTime
 	};
+}
+
+export function stepResponse(
+	md: Modal,
+	final: number | null,
+	tEnd: number,
+	tFast: number,
+	points: number
+): StepResult {
+	const n = Math.max(2, Math.floor(points));
+	const at = stepEvaluator(md);
+	const t = Array.from({ length: n }, (_, i) => (tEnd * i) / (n - 1));
+	const y = t.map(at);
+	if (final === null || final === 0 || !Number.isFinite(final)) {
+		return { t, y, riseTime: null, overshoot: null, settlingTime: null, final };
+	}
+	return { t, y, ...stepMetrics(md, final, tEnd, tFast, at), final };
 }

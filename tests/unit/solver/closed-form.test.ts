@@ -253,3 +253,45 @@ describe('RLC series resonance', () => {
 		expectRel(a.expansion!.denominator[1].termSum!, L * C, 1e-10, 'b2 from the τ products');
 	});
 });
+
+describe('lightly damped second-order step: overshoot and 1 % settling', () => {
+	// Closed form of the underdamped second-order step (any control-systems text):
+	//   y(t) = 1 − e^{−ζωn t} (cos ωd t + ζ/√(1−ζ²) sin ωd t),  ωd = ωn √(1−ζ²),
+	//   peak overshoot = exp(−πζ/√(1−ζ²)).
+	// The exact settling time (last exit from the ±1 % band) is found here from that formula
+	// by dense sampling plus bisection, independently of the solver's own search.
+	const [L, C] = [1e-3, 1e-6];
+	const wn = 1 / Math.sqrt(L * C);
+	for (const zeta of [0.05, 0.01, 0.002]) {
+		test(`ζ = ${zeta} (Q = ${1 / (2 * zeta)}): settling 1e-6, overshoot 1e-9`, () => {
+			const a = analyze(
+				net(
+					[
+						el('Vin', 'V', ['in', 'gnd'], 1),
+						el('R1', 'R', ['in', 'a'], 2 * zeta * Math.sqrt(L / C)),
+						el('L1', 'L', ['a', 'out'], L),
+						el('C1', 'C', ['out', 'gnd'], C)
+					],
+					'out'
+				)
+			);
+			const root = Math.sqrt(1 - zeta * zeta);
+			const wd = wn * root;
+			const y = (t: number) =>
+				1 - Math.exp(-zeta * wn * t) * (Math.cos(wd * t) + (zeta / root) * Math.sin(wd * t));
+			const outside = (t: number) => Math.abs(y(t) - 1) > 0.01;
+			const span = 12 / (zeta * wn);
+			const samples = 64 * Math.ceil((span * wd) / (2 * Math.PI));
+			let last = 0;
+			for (let i = 1; i <= samples; i++) if (outside((span * i) / samples)) last = i;
+			let [lo, hi] = [(span * last) / samples, (span * (last + 1)) / samples];
+			for (let k = 0; k < 80; k++) {
+				const mid = (lo + hi) / 2;
+				if (outside(mid)) lo = mid;
+				else hi = mid;
+			}
+			expectRel(a.step!.settlingTime, (lo + hi) / 2, 1e-6, 'settling');
+			expectRel(a.step!.overshoot, 100 * Math.exp((-Math.PI * zeta) / root), 1e-9, 'overshoot %');
+		});
+	}
+});
