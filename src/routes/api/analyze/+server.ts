@@ -1,20 +1,24 @@
 // POST /api/analyze: a network document in, the analysis out (signed-in session or API token).
 // The solver runs in the worker pool under a time limit, so one large network never holds up
-// other requests.
+// other requests. Query options: points, fMin, fMax, stepPoints, tEnd, response=0, step=0 (what is
+// computed) and omit=impedanceCurve,groupDelay,expansion, matrixPorts=N (what is sent back; see
+// analysis-omit.ts). Without them the whole analysis comes back.
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { apiActor, endpoint, problem, readBody } from '$lib/server/api/respond';
 import { checkDocument, LIMITS, readOptions } from '$lib/server/analysis-request';
 import { analyzeInPool } from '$lib/server/jobs/analysis-pool';
+import { readTrim, trimAnalysis } from '$lib/server/analysis-omit';
 
 export const POST = endpoint(async (event) => {
 	apiActor(event);
 	const options = readOptions(event.url);
+	const trim = readTrim(event.url);
 	const document = checkDocument(await readBody(event.request, z.unknown(), LIMITS.bodyBytes));
 	const outcome = await analyzeInPool({ document, options });
 	if (!outcome.ok) {
 		const { error, ...where } = outcome.error;
 		return problem(422, error, where);
 	}
-	return json(outcome.analysis);
+	return json(trimAnalysis(outcome.analysis, trim));
 });
