@@ -2,6 +2,7 @@
 // three demo networks (figures for docs/performance.md, printed and kept in test-results/).
 import { expect, test, type Page } from '@playwright/test';
 import { mkdirSync, writeFileSync } from 'node:fs';
+import { loadavg } from 'node:os';
 import { demoSheets } from '../../src/lib/server/db/seed/demo-sheets';
 import { analysis, newSheet, node, openSheet, signIn, signUpFresh } from './editor-helpers';
 
@@ -39,7 +40,16 @@ test('editor screenshots, light and dark, of the seeded divider', async ({ page 
 test('edit → results time on the demo networks', { tag: '@bench' }, async ({ page }) => {
 	test.setTimeout(90_000);
 	await signUpFresh(page);
-	const figures: Record<string, { inPageMs: number[]; wallMs: number[]; requestMs: number[] }> = {};
+	const figures: Record<
+		string,
+		{
+			inPageMs: number[];
+			wallMs: number[];
+			requestMs: number[];
+			phases: Record<string, number>[];
+			responseBytes: number;
+		}
+	> = {};
 	for (const demo of demoSheets) {
 		await openSheet(page, await newSheet(page, demo.document, demo.name));
 		await expect(analysis(page)).toHaveAttribute('data-analysis-status', 'done');
@@ -49,14 +59,31 @@ test('edit → results time on the demo networks', { tag: '@bench' }, async ({ p
 		const inPageMs: number[] = [];
 		const wallMs: number[] = [];
 		const requestMs: number[] = [];
+		const phases: Record<string, number>[] = [];
+		let responseBytes = NaN;
 		for (let i = 0; i < 6; i++) {
 			const sent = Number(await analysis(page).getAttribute('data-analysis-sent'));
+			// Wait inside the page with a MutationObserver: Playwright's own polling of a
+			// role locator walks the page's accessibility tree on the main thread every few
+			// milliseconds, which delays the very work being measured.
+			const finished = page.evaluate(
+				(n) =>
+					new Promise<void>((resolve) => {
+						const el = document.querySelector<HTMLElement>('section[data-analysis-sent]')!;
+						const done = () =>
+							el.dataset.analysisSent === String(n) && el.dataset.analysisStatus === 'done';
+						new MutationObserver((_, mo) => {
+							if (done()) resolve(mo.disconnect());
+						}).observe(el, { attributes: true });
+					}),
+				sent + 1
+			);
 			const t0 = Date.now();
 			await field.fill(i % 2 ? String(r.value) : `${1 + i / 10}k`);
-			await expect(analysis(page)).toHaveAttribute('data-analysis-sent', String(sent + 1));
-			await expect(analysis(page)).toHaveAttribute('data-analysis-status', 'done');
+			await finished;
 			wallMs.push(Date.now() - t0);
 			inPageMs.push(Number(await analysis(page).getAttribute('data-analysis-ms')));
+			phases.push(JSON.parse((await analysis(page).getAttribute('data-analysis-phases'))!));
 			// The request alone (server, worker pool, transfer), from the browser's resource timing.
 			requestMs.push(
 				await page.evaluate(() => {
@@ -67,8 +94,15 @@ test('edit → results time on the demo networks', { tag: '@bench' }, async ({ p
 					return r ? r.responseEnd - r.startTime : NaN;
 				})
 			);
+			responseBytes = await page.evaluate(() => {
+				const r = performance
+					.getEntriesByType('resource')
+					.filter((e) => e.name.includes('/api/analyze'))
+					.pop() as PerformanceResourceTiming | undefined;
+				return r?.decodedBodySize ?? NaN;
+			});
 		}
-		figures[demo.name] = { inPageMs, wallMs, requestMs };
+		figures[demo.name] = { inPageMs, wallMs, requestMs, phases, responseBytes };
 	}
 	const median = (a: number[]) => [...a].sort((x, y) => x - y)[Math.floor(a.length / 2)];
 	const table = Object.entries(figures).map(([k, v]) => ({
@@ -76,10 +110,20 @@ test('edit → results time on the demo networks', { tag: '@bench' }, async ({ p
 		medianInPageMs: median(v.inPageMs),
 		maxInPageMs: Math.max(...v.inPageMs),
 		medianWallMs: median(v.wallMs),
-		medianRequestMs: median(v.requestMs)
+		medianRequestMs: median(v.requestMs),
+		// Where the time goes, median of each phase (ms from the edit; see live-analysis.svelte.ts).
+		medianPhases: Object.fromEntries(
+			Object.keys(v.phases[0]).map((k) => [k, median(v.phases.map((p) => p[k]))])
+		),
+		responseBytes: v.responseBytes
 	}));
 	mkdirSync('test-results', { recursive: true });
-	writeFileSync('test-results/editor-timing.json', JSON.stringify({ table, figures }, null, 2));
+	const load = loadavg().map((l) => l.toFixed(2));
+	writeFileSync(
+		'test-results/editor-timing.json',
+		JSON.stringify({ load, table, figures }, null, 2)
+	);
+	console.log(`load average ${load.join(' ')}`);
 	console.log(JSON.stringify(table));
 	// Every edit produced a finished analysis (asserted above for each); the times are reported
 	// in test-results/editor-timing.json and docs/performance.md, not asserted.

@@ -75,3 +75,19 @@ describe('LiveAnalysis', () => {
 		expect(live.fault).toMatchObject({ node: 'a', code: 'dangling_node' });
 	});
 });
+
+describe('LiveAnalysis without a pause', () => {
+	it('sends in the same turn as the edit and records each phase of the round trip', async () => {
+		const { seen, fetcher } = slowServer(5);
+		const live = new LiveAnalysis(0, fetcher);
+		live.update(doc('1k'), []);
+		expect(seen).toHaveLength(1);
+		await wait(40);
+		const p = live.lastPhases!;
+		expect(live.status).toBe('done');
+		expect(p.sent).toBeLessThanOrEqual(p.answered);
+		expect(p.answered).toBeLessThanOrEqual(p.parsed);
+		expect(p.parsed).toBeLessThanOrEqual(p.shown);
+		expect(live.lastMs).toBe(p.painted);
+	});
+});

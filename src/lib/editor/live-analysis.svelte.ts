@@ -1,6 +1,7 @@
 // Live analysis: every change posts the document to /api/analyze after a short pause; a newer
 // request aborts the one in flight, so a stale answer can never overwrite a fresh one. While the
 // drawing has a problem (a wrong value, no input) nothing is sent and the panels say why.
+import { tick, untrack } from 'svelte';
 import type { NetworkDocument } from '$lib/network/schema';
 import type { Analysis } from '$lib/solver';
 import type { BuildProblem } from './to-document';
@@ -12,30 +13,64 @@ export interface AnalysisFault {
 	node?: string;
 }
 
+export interface AnalysisPhases {
+	sent: number;
+	answered: number;
+	parsed: number;
+	shown: number;
+	painted: number;
+}
+
+/** After the next frame is painted (a task queued from a frame callback runs after its paint). */
+const nextPaint = () =>
+	typeof requestAnimationFrame === 'function'
+		? new Promise<void>((done) => {
+				requestAnimationFrame(() => setTimeout(done, 0));
+				setTimeout(done, 1000); // a hidden tab paints nothing; don't wait for it
+			})
+		: Promise.resolve();
+
 export type AnalysisStatus = 'idle' | 'waiting' | 'running' | 'done' | 'blocked' | 'failed';
 
-export const ANALYZE_URL = '/api/analyze?points=200&stepPoints=300';
+/** Above this many ports the panels show no port-matrix tables, so the editor asks for none. */
+export const PORT_TABLE_LIMIT = 12;
+
+// The panels draw neither the input-impedance curve (only its DC value), the group delay nor the
+// expansion: leaving them out of the answer cuts its JSON by about 40 %.
+export const ANALYZE_URL = `/api/analyze?points=200&stepPoints=300&omit=impedanceCurve,groupDelay,expansion&matrixPorts=${PORT_TABLE_LIMIT}`;
 
 export class LiveAnalysis {
 	result = $state.raw<Analysis | null>(null);
 	fault = $state.raw<AnalysisFault | null>(null);
 	problems = $state.raw<BuildProblem[]>([]);
 	status = $state<AnalysisStatus>('idle');
-	/** Edit → result on screen, for the last completed analysis (ms). */
+	/** Edit → result painted in the panels, for the last completed analysis (ms). */
 	lastMs = $state<number | null>(null);
+	/** The same edit's phases (ms from the edit): sent, answered, parsed, in the DOM, painted. */
+	lastPhases = $state.raw<AnalysisPhases | null>(null);
 	/** How many requests were actually sent (tests check a bad value sends none). */
 	sent = $state(0);
 	#timer: ReturnType<typeof setTimeout> | undefined;
 	#controller: AbortController | null = null;
 	#lastBody = '';
 
+	/**
+	 * `delayMs` 0 sends at once: the caller's effect already folds every change made in one
+	 * update, and a newer edit aborts the request in flight, so a pause would only add latency.
+	 */
 	constructor(
-		private readonly delayMs = 16,
+		private readonly delayMs = 0,
 		private readonly fetcher: typeof fetch = (...a) => fetch(...a)
 	) {}
 
 	/** Called on every change of the drawing. */
 	update(document: NetworkDocument, problems: BuildProblem[], editedAt = performance.now()): void {
+		// The caller's effect must depend on the drawing only: reading `status` here would re-run
+		// it (and re-send a failed network) each time an answer arrives.
+		untrack(() => this.#update(document, problems, editedAt));
+	}
+
+	#update(document: NetworkDocument, problems: BuildProblem[], editedAt: number): void {
 		clearTimeout(this.#timer);
 		if (problems.length) {
 			this.#controller?.abort();
@@ -48,7 +83,8 @@ export class LiveAnalysis {
 		const body = JSON.stringify(document);
 		if (body === this.#lastBody && this.status !== 'failed') return; // moved a part: same network
 		this.status = 'waiting';
-		this.#timer = setTimeout(() => this.#run(body, editedAt), this.delayMs);
+		if (this.delayMs <= 0) void this.#run(body, editedAt);
+		else this.#timer = setTimeout(() => this.#run(body, editedAt), this.delayMs);
 	}
 
 	async #run(body: string, editedAt: number): Promise<void> {
@@ -58,6 +94,7 @@ export class LiveAnalysis {
 		this.#lastBody = body;
 		this.status = 'running';
 		this.sent++;
+		const sent = performance.now() - editedAt;
 		try {
 			const res = await this.fetcher(ANALYZE_URL, {
 				method: 'POST',
@@ -65,13 +102,23 @@ export class LiveAnalysis {
 				body,
 				signal: controller.signal
 			});
+			const answered = performance.now() - editedAt;
 			const data = await res.json();
 			if (controller.signal.aborted) return;
+			const parsed = performance.now() - editedAt;
 			if (res.ok) {
 				this.result = data as Analysis;
 				this.fault = null;
+				// Measured once the panels hold the new numbers (Svelte has applied the DOM updates)
+				// and again once the browser has painted them.
+				await tick();
+				const shown = performance.now() - editedAt;
+				await nextPaint();
+				if (controller.signal.aborted) return;
+				const painted = performance.now() - editedAt;
+				this.lastPhases = { sent, answered, parsed, shown, painted };
+				this.lastMs = painted;
 				this.status = 'done';
-				this.lastMs = performance.now() - editedAt;
 			} else {
 				this.fault = {
 					message: data?.error ?? `the analysis answered ${res.status}`,
