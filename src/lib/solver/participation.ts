@@ -25,10 +25,29 @@ export function participation(
 		total += p[k];
 	}
 	if (!(total > 0) || !Number.isFinite(total)) return [];
-	const out: { element: string; share: number }[] = [];
-	for (let k = 0; k < m; k++) {
-		const share = p[k] / total;
-		if (share >= 1e-6) out.push({ element: net.elements[elements[k]].id, share });
+	// Sort the kept indices on the raw numbers, then build the objects once, in order. Small
+	// lists (every pole of a 50-element sheet) go by insertion sort on a typed array: a sort
+	// with a comparator callback cost more than all the rest of this function.
+	const floor = 1e-6 * total;
+	const keep = new Int32Array(m);
+	let count = 0;
+	for (let k = 0; k < m; k++) if (p[k] >= floor) keep[count++] = k;
+	if (count <= 64) {
+		for (let i = 1; i < count; i++) {
+			const k = keep[i];
+			const v = p[k];
+			let j = i - 1;
+			while (j >= 0 && p[keep[j]] < v) {
+				keep[j + 1] = keep[j];
+				j--;
+			}
+			keep[j + 1] = k;
+		}
+	} else keep.subarray(0, count).sort((a, b) => p[b] - p[a] || a - b);
+	const out: { element: string; share: number }[] = new Array(count);
+	for (let i = 0; i < count; i++) {
+		const k = keep[i];
+		out[i] = { element: net.elements[elements[k]].id, share: p[k] / total };
 	}
-	return out.sort((a, b) => b.share - a.share);
+	return out;
 }

@@ -47,20 +47,28 @@ export function sequentialTimeConstants(
 		held.add(k);
 		alive = alive.filter((i) => i !== best);
 		const pivot = H[best * m + best];
-		const scale = Math.max(...alive.map((i) => Math.abs(H[i * m + i])), Math.abs(pivot));
-		if (ports.singular || alive.some((i) => ports.infinite[i]) || ports.infinite[best]) {
+		let scale = Math.abs(pivot);
+		let anyInfinite = false;
+		for (const i of alive) {
+			scale = Math.max(scale, Math.abs(H[i * m + i]));
+			if (ports.infinite[i]) anyInfinite = true;
+		}
+		if (ports.singular || anyInfinite || ports.infinite[best]) {
 			if (alive.length > 0) rebuild();
 			continue;
 		}
 		// A zero pivot (a port that reads nothing) leaves the others unchanged when shorted.
 		if (Math.abs(pivot) <= 1e-15 * scale) continue;
-		const idx = Int32Array.from(alive);
-		const rowJ = Float64Array.from(alive, (j) => H[best * m + j]);
-		for (let a = 0; a < idx.length; a++) {
-			const row = idx[a] * m;
+		const count = alive.length;
+		const rowBest = best * m;
+		for (let a = 0; a < count; a++) {
+			const row = alive[a] * m;
 			const f = H[row + best] / pivot;
 			if (f === 0) continue;
-			for (let b = 0; b < idx.length; b++) H[row + idx[b]] -= f * rowJ[b];
+			for (let b = 0; b < count; b++) {
+				const j = alive[b];
+				H[row + j] -= f * H[rowBest + j];
+			}
 		}
 	}
 	return out;
