@@ -19,7 +19,10 @@ function models() {
 export interface DesignJobRecord {
 	id: string;
 	sheetId: string;
+	/** The revision it ran on, or (source 'drawing') the revision that drawing was based on. */
 	revision: number;
+	/** 'drawing': it ran on a network sent with the request (unsaved edits), kept in the job. */
+	source: 'drawing' | 'revision';
 	kind: string;
 	state: DesignJobState;
 	request: unknown;
@@ -35,11 +38,13 @@ export interface DesignJobRecord {
 }
 
 const plain = (row: DesignJob): DesignJobRecord => {
-	const { queueId, ...rest } = row.get({ plain: true }) as DesignJobRecord & {
+	const { queueId, request, ...rest } = row.get({ plain: true }) as DesignJobRecord & {
 		queueId: string | null;
 	};
 	void queueId;
-	return rest;
+	// A sent network can be a megabyte: it stays in the row for the runner, out of every answer.
+	const { document, ...asked } = (request ?? {}) as { document?: unknown };
+	return { ...rest, request: asked, source: document === undefined ? 'revision' : 'drawing' };
 };
 
 export async function getDesignSettings(sheetId: string): Promise<DesignSettings> {
@@ -136,6 +141,12 @@ export async function cancelDesignJob(id: string): Promise<DesignJobRecord | nul
 	);
 	await Job.update({ cancelRequested: true }, { where: { id, state: 'running' } });
 	return getDesignJob(id);
+}
+
+/** The network sent with a job (a drawing with unsaved edits), or null for a revision's job. */
+export async function storedNetworkOf(id: string): Promise<unknown | null> {
+	const row = await models().DesignJob.findByPk(id, { attributes: ['request'] });
+	return (row?.request as { document?: unknown } | undefined)?.document ?? null;
 }
 
 export async function queueIdOf(id: string): Promise<string | null> {

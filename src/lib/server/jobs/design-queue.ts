@@ -12,7 +12,13 @@
 // again by pg-boss after its expiry and starts over.
 import PgBoss from 'pg-boss';
 import { databaseUrl } from '../db/connection';
-import { finishDesignJob, getDesignJob, reportProgress, startDesignJob } from '../db/design-jobs';
+import {
+	finishDesignJob,
+	getDesignJob,
+	reportProgress,
+	startDesignJob,
+	storedNetworkOf
+} from '../db/design-jobs';
 import { getRevision } from '../db/sheets';
 import { runDesign } from './design-pool';
 import { ApiProblem } from '../api/respond';
@@ -110,14 +116,16 @@ export async function runToleranceJob(jobId: string): Promise<void> {
 	const job = await getDesignJob(jobId);
 	if (!job || !(await startDesignJob(jobId))) return;
 	try {
-		const revision = await getRevision(job.sheetId, job.revision);
-		if (!revision) throw new Error(`revision ${job.revision} of the sheet no longer exists`);
+		// A drawing sent with the request runs as sent; otherwise the stored revision's network.
+		const document =
+			(await storedNetworkOf(jobId)) ?? (await getRevision(job.sheetId, job.revision))?.document;
+		if (!document) throw new Error(`revision ${job.revision} of the sheet no longer exists`);
 		const { request } = job.request as StoredRequest;
 		const records: RunRecord[] = [];
 		for (let from = 0; from < request.runs; from += RUNS_PER_CHUNK) {
 			const to = Math.min(request.runs, from + RUNS_PER_CHUNK);
 			const chunk = (await runDesign(
-				{ kind: 'mc-chunk', key: jobId, document: revision.document, request, from, to },
+				{ kind: 'mc-chunk', key: jobId, document, request, from, to },
 				CHUNK_TIMEOUT_MS
 			)) as RunRecord[];
 			records.push(...chunk);
@@ -127,12 +135,16 @@ export async function runToleranceJob(jobId: string): Promise<void> {
 			}
 		}
 		const summary = await runDesign(
-			{ kind: 'mc-summary', key: jobId, document: revision.document, request, records },
+			{ kind: 'mc-summary', key: jobId, document, request, records },
 			CHUNK_TIMEOUT_MS
 		);
 		await finishDesignJob(jobId, {
 			state: 'done',
-			result: { revision: job.revision, ...(summary as Record<string, unknown>) }
+			result: {
+				revision: job.revision,
+				source: job.source,
+				...(summary as Record<string, unknown>)
+			}
 		});
 	} catch (e) {
 		await finishDesignJob(jobId, {

@@ -1,5 +1,6 @@
 // What people do with the design aids, shared by the JSON API and the sheet page: each verb
 // starts with the access module, then hands the numbers to the design worker pool.
+import { randomUUID } from 'node:crypto';
 import { authorizeSheet, AccessDenied, type Actor } from '../access';
 import { readRevision } from '../sharing/sheet-actions';
 import {
@@ -15,27 +16,49 @@ import {
 } from '../db/design-jobs';
 import type { DesignSettings, SpecLimits, ElementTolerance } from '../../network/design-schema';
 import { ApiProblem } from '../api/respond';
+import { checkDocument, LIMITS } from '../analysis-request';
 import { runDesign } from './design-pool';
 import { cancelQueued, designQueue, enqueueDesignJob } from './design-queue';
 import type { MonteCarloRequest } from '../../design/tolerance';
 
 type UserActor = Actor & { kind: 'user' };
 
+/**
+ * A network sent with a design request, through the same front door as POST /api/analyze: its
+ * size limit (the whole body there), the element limit and the shape check naming the element.
+ */
+export function checkDesignNetwork(document: unknown) {
+	const bytes = Buffer.byteLength(JSON.stringify(document ?? null));
+	if (bytes > LIMITS.bodyBytes)
+		throw new ApiProblem(
+			413,
+			`document: the network is ${bytes} bytes; the limit is ${LIMITS.bodyBytes}, as for /api/analyze`
+		);
+	return checkDocument(document);
+}
+
 export interface MonteCarloInput {
 	sheetId: string;
 	revision?: number;
+	/** The drawing as it is now, run instead of the revision's network (which it is based on). */
+	document?: unknown;
 	runs?: number;
 	seed?: number;
 	tolerances?: ElementTolerance[];
 	spec?: SpecLimits;
 }
 
-/** Queue a Monte Carlo run on a stored revision (the latest unless one is named). */
+/**
+ * Queue a Monte Carlo run on a stored revision (the latest unless one is named), or on the
+ * network given, recorded with the revision it is based on.
+ */
 export async function startMonteCarlo(
 	actor: UserActor,
 	input: MonteCarloInput
 ): Promise<DesignJobRecord> {
 	const { revision } = await readRevision(actor, input.sheetId, input.revision, 'analyze');
+	const drawing = input.document === undefined ? null : checkDesignNetwork(input.document);
+	const document = drawing ?? revision.document;
 	const settings = await getDesignSettings(input.sheetId);
 	const tolerances = (input.tolerances ?? settings.tolerances.elements).filter(
 		(t) => t.distribution !== 'fixed' && t.tolerance > 0
@@ -56,8 +79,9 @@ export async function startMonteCarlo(
 	// Refuse a network or element the run could not use now, not minutes later in the queue.
 	await runDesign({
 		kind: 'mc-chunk',
-		key: `check-${revision.id}`,
-		document: revision.document,
+		// The worker keeps opened networks by key: a revision's never changes, a drawing's may.
+		key: drawing ? `check-${randomUUID()}` : `check-${revision.id}`,
+		document,
 		request,
 		from: 0,
 		to: 0
@@ -66,7 +90,7 @@ export async function startMonteCarlo(
 		sheetId: input.sheetId,
 		revision: revision.number,
 		kind: 'monte-carlo',
-		request: { request },
+		request: drawing ? { request, document: drawing } : { request },
 		total: request.runs,
 		createdBy: actor.id
 	});

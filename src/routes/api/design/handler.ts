@@ -1,9 +1,10 @@
 // One shape for the synchronous design endpoints: signed-in caller, body within the limit,
-// the document through the analysis front door, then the task in the design worker pool.
+// the document through the analysis front door (its size and element limits, its shape check
+// naming the element), then the task in the design worker pool.
 import { json, type RequestHandler } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { apiActor, BODY_LIMITS, endpoint, readBody } from '$lib/server/api/respond';
-import { checkDocument } from '$lib/server/analysis-request';
+import { checkDesignNetwork } from '$lib/server/jobs/design-service';
 import { runDesign } from '$lib/server/jobs/design-pool';
 import type { DesignTask } from '$lib/server/workers/design.worker';
 
@@ -15,7 +16,7 @@ export function designEndpoint<S extends z.ZodType<{ document: unknown }>>(
 	return endpoint(async (event) => {
 		apiActor(event);
 		const body = await readBody(event.request, schema, BODY_LIMITS.document);
-		const document = checkDocument(body.document);
+		const document = checkDesignNetwork(body.document);
 		return respond(await runDesign(task(body, document)), event.url);
 	});
 }

@@ -65,7 +65,10 @@ export const specBody = z.object({ document: z.unknown(), spec: specLimitsSchema
 
 export const monteCarloBody = z.object({
 	sheetId: z.uuid('sheetId must be a sheet id'),
+	/** The revision to run on; with `document`, the saved revision that drawing started from. */
 	revision: z.number().int().min(1).optional(),
+	/** The drawing as it is now (unsaved edits), run instead of the stored revision's network. */
+	document: z.unknown().optional(),
 	runs: z
 		.number()
 		.int()
