@@ -1,5 +1,6 @@
 import { dcPorts, type DcPorts } from './dc-ports';
 import { luFactor, luSolve } from './lu';
+import { edgesOnLoops } from './loop-edges';
 import { branchNodes } from './topology';
 import { UnionFind } from './union-find';
 import type { ResolvedNetwork, TimeConstant } from './types';
@@ -104,14 +105,15 @@ function hasStructuralExtreme(net: ResolvedNetwork): boolean {
 		const e = els[k];
 		if (e.type === 'L' && shorts.connected(e.nodes[0], e.nodes[1])) return true;
 	}
-	for (const k of net.reactive) {
-		if (els[k].type !== 'C') continue;
-		const uf = new UnionFind(n);
-		els.forEach((e, j) => {
-			if (j !== k && (e.type === 'R' || e.type === 'C' || VOLTAGE_EDGE.has(e.type)))
-				uf.union(...branchNodes(e));
-		});
-		if (!uf.connected(els[k].nodes[0], els[k].nodes[1])) return true;
-	}
+	// A capacitor whose terminals only it connects: a bridge of the graph of R, C and sources.
+	const edges: [number, number][] = [];
+	const edgeOf = new Map<number, number>();
+	els.forEach((e, j) => {
+		if (e.type !== 'R' && e.type !== 'C' && !VOLTAGE_EDGE.has(e.type)) return;
+		edgeOf.set(j, edges.length);
+		edges.push(branchNodes(e));
+	});
+	const onLoop = edgesOnLoops(n, edges);
+	for (const k of net.reactive) if (els[k].type === 'C' && !onLoop[edgeOf.get(k)!]) return true;
 	return false;
 }
