@@ -4,10 +4,8 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import type { RequestEvent } from '@sveltejs/kit';
 import { useDatabase } from './support/database';
+import { dividerSheet } from './design-helpers';
 import { call } from './support/handlers';
-import { person } from './support/fixtures';
-import { createWorkspace } from '../../src/lib/server/db/workspaces';
-import { createSheet } from '../../src/lib/server/db/sheets';
 import { digitizerDivider } from '../../src/lib/server/db/seed/demo-sheets';
 import { closeDesignPool } from '../../src/lib/server/jobs/design-pool';
 import { stopDesignQueue } from '../../src/lib/server/jobs/design-queue';
@@ -28,17 +26,7 @@ afterAll(async () => {
 	await closeDesignPool();
 });
 
-async function world() {
-	const [ana, eve] = [await person('Ana'), await person('Eve')];
-	const ws = await createWorkspace(ana.id, 'Design bench');
-	const { sheet } = await createSheet({
-		userId: ana.id,
-		workspaceId: ws.id,
-		name: 'Divider',
-		document: digitizerDivider
-	});
-	return { ana, eve, sheet };
-}
+const world = dividerSheet;
 
 async function waitFor(
 	user: { id: string; email: string; name: string },

@@ -4,10 +4,9 @@
 // the revision it was based on, and leaves the sheet's revisions alone.
 import { afterAll, describe, expect, it } from 'vitest';
 import { useDatabase } from './support/database';
+import { dividerSheet } from './design-helpers';
 import { call } from './support/handlers';
-import { person } from './support/fixtures';
-import { createWorkspace } from '../../src/lib/server/db/workspaces';
-import { createSheet, listRevisions } from '../../src/lib/server/db/sheets';
+import { listRevisions } from '../../src/lib/server/db/sheets';
 import { digitizerDivider } from '../../src/lib/server/db/seed/demo-sheets';
 import { LIMITS } from '../../src/lib/server/analysis-request';
 import { closeDesignPool } from '../../src/lib/server/jobs/design-pool';
@@ -30,17 +29,7 @@ const edited = (id: string, value: string) => ({
 	elements: digitizerDivider.elements.map((e) => (e.id === id ? { ...e, value } : e))
 });
 
-async function world() {
-	const [ana, eve] = [await person('Ana'), await person('Eve')];
-	const ws = await createWorkspace(ana.id, 'Drawing bench');
-	const { sheet } = await createSheet({
-		userId: ana.id,
-		workspaceId: ws.id,
-		name: 'Divider',
-		document: digitizerDivider
-	});
-	return { ana, eve, sheet };
-}
+const world = dividerSheet;
 
 type User = { id: string; email: string; name: string };
 async function finished(user: User, id: string) {

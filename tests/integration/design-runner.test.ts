@@ -3,11 +3,8 @@
 // up once the runner starts; a start that fails is logged, not thrown, and the next start works.
 import { afterAll, describe, expect, it, vi } from 'vitest';
 import { useDatabase } from './support/database';
-import { person } from './support/fixtures';
-import { createWorkspace } from '../../src/lib/server/db/workspaces';
-import { createSheet } from '../../src/lib/server/db/sheets';
+import { dividerSheet } from './design-helpers';
 import { createDesignJob, getDesignJob, setQueueId } from '../../src/lib/server/db/design-jobs';
-import { digitizerDivider } from '../../src/lib/server/db/seed/demo-sheets';
 import { closeDesignPool } from '../../src/lib/server/jobs/design-pool';
 import {
 	enqueueDesignJob,
@@ -35,14 +32,7 @@ async function finished(id: string) {
 }
 
 async function queuedJob() {
-	const ana = await person('Ana');
-	const ws = await createWorkspace(ana.id, 'Runner bench');
-	const { sheet } = await createSheet({
-		userId: ana.id,
-		workspaceId: ws.id,
-		name: 'Divider',
-		document: digitizerDivider
-	});
+	const { ana, sheet } = await dividerSheet();
 	const request = {
 		tolerances: [{ element: 'Ctop', tolerance: 0.1, distribution: 'uniform' as const }],
 		runs: 300,
