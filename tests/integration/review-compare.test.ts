@@ -78,6 +78,15 @@ describe('revision comparison', () => {
 		expect(back.body.elements.removed.map((e: { id: string }) => e.id)).toEqual(['R2', 'C2']);
 	});
 
+	it('removing a load on the output is a removal, not a change of the output', async () => {
+		const world = await matrixWorld();
+		const { sheet } = await world.sheet();
+		await save(world.owner.id, sheet.id, lowPass('1k', '1n', [{ id: 'RL', type: 'R', nodes: ['out', 'gnd'], value: '1M' }]));
+		await save(world.owner.id, sheet.id, lowPass('1k'));
+		const res = await call(compare.GET, { user: world.owner, params: { id: sheet.id }, path: `/api/sheets/${sheet.id}/compare?from=2&to=3` });
+		expect(res.body.elements).toEqual({ added: [], removed: [{ id: 'RL', type: 'R', value: '1M' }], changed: [], ports: [] });
+	});
+
 	it('answers 400 for a bad query, 404 for a missing revision or a stranger', async () => {
 		const world = await matrixWorld();
 		const { sheet } = await world.sheet();

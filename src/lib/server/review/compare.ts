@@ -48,7 +48,8 @@ export function diffElements(a: NetworkDocument, b: NetworkDocument): ElementDif
 	for (const [id, e] of before) if (!after.has(id)) out.removed.push({ id, type: e.type, value: val(e) });
 	if (a.input !== b.input) out.ports.push(`input source ${a.input} → ${b.input}`);
 	const [oa, ob] = [a, b].map((d) => `${net(d.output.node)} against ${net(d.output.reference ?? 'gnd')}`);
-	if (outputSignature(a) !== outputSignature(b)) out.ports.push(`output ${oa} → ${ob}`);
+	// Only parts both sides have: removing a load on the output is a removal, not a new output.
+	if (outputSignature(a, both) !== outputSignature(b, both)) out.ports.push(`output ${oa} → ${ob}`);
 	return out;
 }
 

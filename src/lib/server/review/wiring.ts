@@ -19,10 +19,12 @@ export function wiring(doc: NetworkDocument, keep?: Set<string>): Map<string, st
 	return out;
 }
 
-/** The output node as the terminals on it (name-free). */
-export function outputSignature(doc: NetworkDocument): string {
+/** The output node as the terminals on it (name-free), counting only parts in `keep` if given. */
+export function outputSignature(doc: NetworkDocument, keep?: Set<string>): string {
+	const kept = doc.elements.filter((e) => !keep || keep.has(e.id));
+	// A node only new (or only removed) parts touch has no name-free signature: use its name.
 	const sig = (node: string | number) =>
-		isGround(node) ? 'gnd' : doc.elements.flatMap((e) => e.nodes.map((n, i) => (String(n) === String(node) ? `${e.id}.${i}` : null))).filter(Boolean).sort().join(',');
+		isGround(node) ? 'gnd' : kept.flatMap((e) => e.nodes.map((n, i) => (String(n) === String(node) ? `${e.id}.${i}` : null))).filter(Boolean).sort().join(',') || `net ${node}`;
 	return `${sig(doc.output.node)}/${sig(doc.output.reference ?? 'gnd')}`;
 }
 
