@@ -1,8 +1,21 @@
-// The design aids' connection to the server for one sheet: the latest saved document (design
-// aids work on what is saved, so every figure belongs to a revision), JSON calls with their
-// error message kept for the panel that asked, and the sheet's stored settings.
+// The design aids' connection to the server for one sheet. They work on the drawing as it is
+// on the canvas now (unsaved edits too) when the page links an editable editor; otherwise
+// (read-only viewers, pages without an editor) on the latest saved revision. Also: JSON calls
+// with their error message kept for the panel that asked, and the sheet's stored settings.
 import type { DesignSettings } from '$lib/network/design-schema';
 import type { NetworkDocument } from '$lib/network/schema';
+import type { DrawingLink, DrawingNow } from '$lib/editor/drawing-link.svelte';
+
+/** What a design aid ran on: the canvas (based on a saved revision) or a saved revision. */
+export type DesignSource =
+	{ kind: 'drawing'; base: number; unsaved: boolean } | { kind: 'revision'; number: number };
+
+export const sourceLabel = (s: DesignSource): string =>
+	s.kind === 'revision'
+		? `saved revision ${s.number}`
+		: s.unsaved
+			? `the drawing as it is now (unsaved edits on revision ${s.base})`
+			: `the drawing as it is now (saved as revision ${s.base})`;
 
 export interface CallError {
 	message: string;
@@ -12,16 +25,52 @@ export interface CallError {
 export class DesignClient {
 	readonly sheetId: string;
 	readonly canEdit: boolean;
-	document = $state.raw<NetworkDocument | null>(null);
+	readonly #link: DrawingLink | undefined;
+	#saved = $state.raw<NetworkDocument | null>(null);
 	revision = $state(0);
 	settings = $state.raw<DesignSettings>({
 		spec: {},
 		tolerances: { elements: [], runs: 1000, seed: 1 }
 	});
 
-	constructor(sheetId: string, canEdit: boolean) {
+	constructor(sheetId: string, canEdit: boolean, link?: DrawingLink) {
 		this.sheetId = sheetId;
 		this.canEdit = canEdit;
+		this.#link = link;
+	}
+
+	/** The editable drawing, when the aids work on it (null: they work on saved revisions). */
+	get drawing(): DrawingNow | null {
+		return (this.canEdit && this.#link?.now) || null;
+	}
+
+	/** The document the aids see now: the drawing, or the saved revision last fetched. */
+	get document(): NetworkDocument | null {
+		return this.drawing?.document ?? this.#saved;
+	}
+
+	/** Null until the saved revision is known when there is no drawing. */
+	get source(): DesignSource | null {
+		const d = this.drawing;
+		if (d) return { kind: 'drawing', base: d.base, unsaved: d.unsaved };
+		return this.revision ? { kind: 'revision', number: this.revision } : null;
+	}
+
+	/** The network to run an aid on, and what it is; refuses a drawing that cannot be analysed yet. */
+	async network(): Promise<{ document: NetworkDocument; source: DesignSource }> {
+		const d = this.drawing;
+		if (!d) {
+			const document = await this.refresh();
+			return { document, source: { kind: 'revision', number: this.revision } };
+		}
+		if (d.problem)
+			throw { message: `The drawing cannot be analysed yet: ${d.problem}` } satisfies CallError;
+		return { document: d.document, source: { kind: 'drawing', base: d.base, unsaved: d.unsaved } };
+	}
+
+	/** Write values into the drawing as one undo step (autosave saves it); the names changed. */
+	setValues(values: Record<string, number>): string[] {
+		return this.drawing ? this.#link!.setValues(values) : [];
 	}
 
 	/** Elements whose value a design aid may change, in document order. */
@@ -36,7 +85,7 @@ export class DesignClient {
 			'GET',
 			`/api/sheets/${this.sheetId}`
 		);
-		this.document = r.revision.document;
+		this.#saved = r.revision.document;
 		this.revision = r.revision.number;
 		return r.revision.document;
 	}
@@ -60,10 +109,10 @@ export class DesignClient {
 		).settings;
 	}
 
-	/** POST with the latest saved document added to the body. */
-	async withDocument<T>(path: string, body: object): Promise<T> {
-		const document = await this.refresh();
-		return this.call<T>('POST', path, { ...body, document });
+	/** POST with the network (the drawing, or the latest saved revision) added to the body. */
+	async withDocument<T>(path: string, body: object): Promise<T & { source: DesignSource }> {
+		const { document, source } = await this.network();
+		return { ...(await this.call<T>('POST', path, { ...body, document })), source };
 	}
 
 	async call<T>(method: string, path: string, body?: unknown): Promise<T> {
