@@ -3,6 +3,7 @@ import { formAction, formActor } from '$lib/server/sharing/form-action';
 import { sheetTable } from '$lib/server/sharing/sheet-list';
 import { duplicateSheetAs, newSheet, renameSheetAs, trashSheetAs } from '$lib/server/sharing/sheet-actions';
 import { templateById } from '$lib/editor/templates';
+import { importSheetForm } from '$lib/server/exchange/import-form';
 import { createSheetSchema, listParams, renameSheetSchema, sheetIdSchema } from './schema';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -18,6 +19,8 @@ export const actions: Actions = {
 			const { sheet } = await newSheet(actor, event.params.id, { name, document: templateById(template)?.document });
 			redirect(303, `/sheets/${sheet.id}`);
 		}),
+	// A sheet file (or a bare network document) as a new sheet; multipart, so not formAction.
+	import: (event) => importSheetForm(event, event.params.id),
 	rename: (event) =>
 		formAction(event, 'rename', renameSheetSchema, async ({ id, name }, actor) => {
 			await renameSheetAs(actor, id, name);
