@@ -1,0 +1,104 @@
+// Files attached to comments, for one sheet's review panel: one list for the whole sheet
+// (GET …/attachments?comment=all) grouped by comment, fetched again when the threads change.
+// Kept beside the SheetReview (one per review, through a WeakMap) rather than inside it, so the
+// review state stays about comments and this part can come and go on its own.
+import type { SheetReview } from '../sheet-review.svelte';
+
+export interface CommentFile {
+	id: string;
+	commentId: string | null;
+	fileName: string;
+	contentType: string;
+	byteSize: number;
+	createdBy: string | null;
+	createdByName: string | null;
+	createdAt: string;
+}
+
+/** The server's default limit; it checks again and has the last word. */
+export const LIMIT_MB = 5;
+export const ACCEPT = 'image/png,image/jpeg,image/gif,image/webp,application/pdf';
+
+export const sizeText = (n: number) =>
+	n >= 1024 * 1024
+		? `${(n / 1024 / 1024).toFixed(1)} MB`
+		: n >= 1024
+			? `${Math.round(n / 1024)} KB`
+			: `${n} B`;
+
+export const kindText = (type: string) =>
+	type === 'application/pdf' ? 'PDF' : type.replace('image/', '').toUpperCase();
+
+export class CommentFiles {
+	byComment = $state.raw<Map<string, CommentFile[]>>(new Map());
+	#queued = false;
+
+	constructor(readonly review: SheetReview) {}
+
+	get base() {
+		return `/api/sheets/${this.review.sheetId}/attachments`;
+	}
+
+	of(commentId: string): CommentFile[] {
+		return this.byComment.get(commentId) ?? [];
+	}
+
+	/** Fetch again; every comment asks when the threads change, and one request answers all. */
+	sync() {
+		if (this.#queued) return;
+		this.#queued = true;
+		queueMicrotask(() => {
+			this.#queued = false;
+			void this.#load();
+		});
+	}
+
+	async #load() {
+		if (!this.review.sheetId) return;
+		const r = await fetch(`${this.base}?comment=all`).catch(() => null);
+		if (!r?.ok) return;
+		const { attachments } = (await r.json()) as { attachments: CommentFile[] };
+		const next = new Map<string, CommentFile[]>();
+		for (const a of attachments)
+			if (a.commentId) next.set(a.commentId, [...(next.get(a.commentId) ?? []), a]);
+		this.byComment = next;
+	}
+
+	#put(commentId: string, list: CommentFile[]) {
+		this.byComment = new Map(this.byComment).set(commentId, list);
+	}
+
+	/** Attach one file to a comment; null when stored, else the reason in words (the server's). */
+	async upload(commentId: string, file: File): Promise<string | null> {
+		if (file.size > LIMIT_MB * 1024 * 1024)
+			return `“${file.name}” was not attached: the file is over the ${LIMIT_MB} MB upload limit.`;
+		const form = new FormData();
+		form.set('file', file);
+		form.set('commentId', commentId);
+		const r = await fetch(this.base, { method: 'POST', body: form }).catch(() => null);
+		if (!r) return `“${file.name}” was not attached: the server could not be reached.`;
+		const body = await r.json().catch(() => ({ error: `the server answered ${r.status}.` }));
+		if (!r.ok) return `“${file.name}” was not attached: ${body.error}`;
+		this.#put(commentId, [...this.of(commentId), body.attachment]);
+		return null;
+	}
+
+	async remove(file: CommentFile): Promise<string | null> {
+		const r = await fetch(`${this.base}/${file.id}`, { method: 'DELETE' }).catch(() => null);
+		if (!r?.ok) return (await r?.json().catch(() => null))?.error ?? 'The file was not deleted.';
+		if (file.commentId)
+			this.#put(
+				file.commentId,
+				this.of(file.commentId).filter((f) => f.id !== file.id)
+			);
+		return null;
+	}
+}
+
+const perReview = new WeakMap<SheetReview, CommentFiles>();
+
+export function commentFilesOf(review: SheetReview): CommentFiles {
+	let files = perReview.get(review);
+	if (!files) perReview.set(review, (files = new CommentFiles(review)));
+	return files;
+}
