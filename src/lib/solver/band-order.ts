@@ -8,17 +8,26 @@
  */
 export function bandOrder(a: Float64Array, n: number): Int32Array | null {
 	if (n < 8) return null;
-	const adj: number[][] = Array.from({ length: n }, () => []);
+	// One row-major pass over the pattern (reading each entry's transpose would stride the whole
+	// matrix), then each vertex's neighbours sorted and de-duplicated: ascending order, as the
+	// tie-breaking of the breadth-first search below expects.
+	const raw: number[][] = Array.from({ length: n }, () => []);
 	let before = 0;
 	for (let i = 0; i < n; i++) {
-		for (let j = i + 1; j < n; j++) {
-			if (a[i * n + j] !== 0 || a[j * n + i] !== 0) {
-				adj[i].push(j);
-				adj[j].push(i);
-				if (j - i > before) before = j - i;
-			}
+		const row = i * n;
+		for (let j = 0; j < n; j++) {
+			if (j === i || a[row + j] === 0) continue;
+			if (Math.abs(j - i) > before) before = Math.abs(j - i);
+			raw[i].push(j);
+			raw[j].push(i);
 		}
 	}
+	const adj = raw.map((list) => {
+		list.sort((x, y) => x - y);
+		const out: number[] = [];
+		for (const v of list) if (out.length === 0 || out[out.length - 1] !== v) out.push(v);
+		return out;
+	});
 	const degree = adj.map((x) => x.length);
 	const order = new Int32Array(n);
 	const placed = new Uint8Array(n);

@@ -28,24 +28,34 @@ export interface RealLU {
  */
 export function luFactor(a: Float64Array, n: number, band = false): RealLU {
 	const q = band ? bandOrder(a, n) : null;
-	const lu = q ? permuted(a, n, q) : a.slice();
 	const piv = new Int32Array(n);
 	// Node rows are in siemens and branch rows are dimensionless; equilibrating the rows makes
 	// one pivot threshold mean the same thing for a 1 TΩ leakage path and an op-amp branch.
+	// Renumbering, scaling and each row's last non-zero are done in one pass per row.
 	const rs = new Float64Array(n);
-	for (let i = 0; i < n; i++) {
-		let mx = 0;
-		for (let j = 0; j < n; j++) mx = Math.max(mx, Math.abs(lu[i * n + j]));
-		rs[i] = mx > 0 ? 1 / mx : 1;
-		for (let j = 0; j < n; j++) lu[i * n + j] *= rs[i];
-	}
+	const lu = new Float64Array(n * n);
 	// Network matrices are banded or nearly so: each row's non-zero extent is tracked through the
 	// elimination (a row update extends it to the pivot row's), so work and solves skip the zeros.
 	const hi = new Int32Array(n);
 	for (let i = 0; i < n; i++) {
-		let j = n;
-		while (j > i && lu[i * n + j - 1] === 0) j--;
-		hi[i] = Math.max(j, i + 1);
+		const src = (q ? q[i] : i) * n;
+		let mx = 0;
+		for (let j = 0; j < n; j++) {
+			const v = Math.abs(a[src + j]);
+			if (v > mx) mx = v;
+		}
+		const scale = mx > 0 ? 1 / mx : 1;
+		rs[i] = scale;
+		const row = i * n;
+		let last = i + 1;
+		for (let j = 0; j < n; j++) {
+			const v = a[src + (q ? q[j] : j)];
+			if (v !== 0) {
+				lu[row + j] = v * scale;
+				if (j >= last) last = j + 1;
+			}
+		}
+		hi[i] = last;
 	}
 	let minPivot = Infinity;
 	for (let k = 0; k < n; k++) {
@@ -91,15 +101,6 @@ export function luFactor(a: Float64Array, n: number, band = false): RealLU {
 	}
 	const pivotRatio = n === 0 ? 1 : minPivot;
 	return { n, lu, piv, rs, pivotRatio, lo, hi, q, work: new Float64Array(q ? n : 0) };
-}
-
-function permuted(a: Float64Array, n: number, q: Int32Array): Float64Array {
-	const out = new Float64Array(n * n);
-	for (let i = 0; i < n; i++) {
-		const row = q[i] * n;
-		for (let j = 0; j < n; j++) out[i * n + j] = a[row + q[j]];
-	}
-	return out;
 }
 
 /** Solves in place: b becomes x. */
