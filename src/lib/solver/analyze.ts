@@ -8,6 +8,7 @@ import { poleInfo } from './pole-info';
 import { portMatrices } from './port-matrices';
 import { portModelFrom } from './port-model';
 import { sequentialTimeConstants } from './sequential';
+import { shortCircuitTimeConstantsRC } from './short-circuit-rc';
 import { shiftedModel } from './shift';
 import { stepResponse } from './step-response';
 import {
@@ -31,11 +32,13 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	const net = validateNetwork(doc);
 	const extra: Warning[] = [];
 	const ocPorts = openCircuitPorts(net);
-	// The direct infinite-value configuration: with banded factorization (lu.ts) it costs less
-	// than inverting the m×m port matrix (K = −H⁻¹, 9× slower at m = 1000) and is exact by structure.
-	const scPorts = shortCircuitPorts(net);
 	const oc = openCircuitTimeConstants(net, ocPorts);
-	const sc = shortCircuitTimeConstants(net, scPorts);
+	// Larger RC networks: the diagonal of H⁻¹ by Cholesky (short-circuit-rc.ts). Otherwise the
+	// direct infinite-value configuration: with banded factorization (lu.ts) it costs less than
+	// inverting the whole m×m port matrix (K = −H⁻¹, 9× slower at m = 1000), exact by structure.
+	const sc =
+		shortCircuitTimeConstantsRC(net, ocPorts) ??
+		shortCircuitTimeConstants(net, shortCircuitPorts(net));
 	if (ocPorts.singular && net.reactive.length > 0) {
 		extra.push({
 			code: 'no_dc_solution',

@@ -95,7 +95,7 @@ const VOLTAGE_EDGE = new Set(['V', 'VCVS', 'CCVS', 'OPAMP']);
  * path of shorted capacitors; a capacitor whose terminals only it connects) come out of the
  * inversion as round-off instead, so such networks take the direct, structural route.
  */
-function hasStructuralExtreme(net: ResolvedNetwork): boolean {
+export function hasStructuralExtreme(net: ResolvedNetwork): boolean {
 	const n = net.nodeNames.length;
 	const els = net.elements;
 	const shorts = new UnionFind(n);

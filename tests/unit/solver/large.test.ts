@@ -6,6 +6,7 @@ import {
 	shortCircuitPorts,
 	shortCircuitTimeConstants
 } from '../../../src/lib/solver/time-constants';
+import { shortCircuitTimeConstantsRC } from '../../../src/lib/solver/short-circuit-rc';
 import { el, net, rel, type El } from './helpers';
 
 /** An RLC ladder long enough (m > 20) for the large-network paths. */
@@ -110,5 +111,57 @@ describe('zeros of a network with capacitor loops (poles at infinity)', { timeou
 				1e-9 * Math.max(1, Math.abs(db))
 			);
 		});
+	});
+});
+
+describe('short-circuit τ of RC networks from the Cholesky factor of H', { timeout: 30_000 }, () => {
+	/** A random RC network: resistors between neighbours and to ground (values over three
+	 *  decades), a capacitor to ground at even nodes and from each odd node to the node before:
+	 *  a tree of capacitors (no capacitor loop), so H is dense and positive definite. */
+	function rcMesh(nodes: number, seed: number) {
+		let s = seed;
+		const r = () => ((s = (s * 1664525 + 1013904223) >>> 0), s / 2 ** 32);
+		const els: El[] = [el('Vin', 'V', ['src', 'gnd'], 1), el('Rs', 'R', ['src', 'm0'], 50)];
+		for (let i = 0; i < nodes; i++) {
+			if (i + 1 < nodes) els.push(el(`R${i}`, 'R', [`m${i}`, `m${i + 1}`], 100 * 10 ** (3 * r())));
+			if (r() < 0.3) els.push(el(`Rg${i}`, 'R', [`m${i}`, 'gnd'], 1e4 * 10 ** (3 * r())));
+			const to = i % 2 === 0 ? 'gnd' : `m${i - 1}`;
+			els.push(el(`C${i}`, 'C', [`m${i}`, to], 1e-12 * 10 ** (3 * r())));
+		}
+		els.push(el('RL', 'R', [`m${nodes - 1}`, 'gnd'], 1e4));
+		return net(els, `m${nodes - 1}`);
+	}
+	test('equal the direct infinite-value configuration on five random meshes (1e-9)', () => {
+		for (const seed of [1, 2, 3, 4, 5]) {
+			const nw = validateNetwork(rcMesh(30, seed));
+			const oc = openCircuitPorts(nw);
+			expect(oc.m).toBeGreaterThan(20);
+			const fast = shortCircuitTimeConstantsRC(nw, oc);
+			expect(fast, `seed ${seed}`).not.toBeNull();
+			const direct = shortCircuitTimeConstants(nw, shortCircuitPorts(nw));
+			fast!.forEach((t, i) => {
+				expect(t.element).toBe(direct[i].element);
+				expect(rel(t.tau!, direct[i].tau!), `${t.element}, seed ${seed}`).toBeLessThan(1e-9);
+				expect(rel(t.resistance!, direct[i].resistance!)).toBeLessThan(1e-9);
+			});
+		}
+	});
+	test('an inductor, a capacitor loop, or a capacitor only it connects: the direct route', () => {
+		const withL = rcMesh(30, 9);
+		withL.elements.push(el('Lx', 'L', ['m3', 'm4'], 1e-6));
+		const a = validateNetwork(withL);
+		expect(shortCircuitTimeConstantsRC(a, openCircuitPorts(a))).toBeNull();
+		const island = rcMesh(30, 9);
+		island.elements.push(el('Cf', 'C', ['m5', 'float'], 1e-12));
+		const b = validateNetwork(island);
+		expect(shortCircuitTimeConstantsRC(b, openCircuitPorts(b))).toBeNull();
+		// C2, C3 and this one close a loop: H is singular, which the pivot check catches.
+		const loop = rcMesh(30, 9);
+		loop.elements.push(el('Cl', 'C', ['m3', 'gnd'], 1e-12));
+		const c = validateNetwork(loop);
+		expect(shortCircuitTimeConstantsRC(c, openCircuitPorts(c))).toBeNull();
+		expect(analyze(loop, { frequency: false, step: false }).timeConstants.shortCircuit).toHaveLength(
+			openCircuitPorts(c).m
+		);
 	});
 });
