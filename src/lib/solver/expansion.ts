@@ -153,8 +153,11 @@ function topPairs(m: number, f: (i: number, j: number) => number, keep: number) 
 			const v = f(i, j);
 			sum += v;
 			if (best.length < keep || Math.abs(v) > floor) {
-				best.push([i, j, v]);
-				best.sort((a, b) => Math.abs(b[2]) - Math.abs(a[2]));
+				// Insert in place (largest |v| first, ties after the earlier pair), as a stable
+				// sort of the appended list would: m² candidates, so no re-sort per insertion.
+				let at = best.length;
+				while (at > 0 && Math.abs(best[at - 1][2]) < Math.abs(v)) at--;
+				best.splice(at, 0, [i, j, v]);
 				if (best.length > keep) best.pop();
 				floor = Math.abs(best[best.length - 1][2]);
 			}

@@ -98,7 +98,7 @@ export function relativeDegree(md: Modal, h0: number, tol = 1e-8): number {
 		for (let i = 0; i < n; i++) {
 			sr += wr[i];
 			si += wi[i];
-			mag += Math.hypot(wr[i], wi[i]);
+			mag += wi[i] === 0 ? Math.abs(wr[i]) : Math.hypot(wr[i], wi[i]);
 		}
 		if (mag > 0 && Math.hypot(sr, si) > tol * mag) return k + 1;
 		for (let i = 0; i < n; i++) {
