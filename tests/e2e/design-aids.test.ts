@@ -1,8 +1,9 @@
 // The design aids on the sheet page, in Chromium against the built app: solve the demo
 // divider's trimmer and see the flat response, run a seeded Monte Carlo with progress and see
-// its yield (also after a reload), snap to E12. Each test makes its own sheet.
+// its yield (also after a reload), snap to E12 and apply the values to the drawing, and work on
+// unsaved edits. Each test makes its own sheet.
 import { expect, test, type Page } from '@playwright/test';
-import { newSheet, signIn, signUpFresh } from './editor-helpers';
+import { newSheet, node, setValue, signIn, signUpFresh } from './editor-helpers';
 import { digitizerDivider } from '../../src/lib/server/db/seed/demo-sheets';
 
 const shots = process.env.DESIGN_SHOTS;
@@ -19,7 +20,9 @@ async function openAids(page: Page) {
 	const id = await newSheet(page, digitizerDivider, 'Divider for design aids');
 	await page.goto(`/sheets/${id}`);
 	const aids = page.getByRole('region', { name: 'Design aids' });
-	await expect(aids.getByText('on saved revision 1')).toBeVisible();
+	await expect(aids.getByTestId('design-source')).toHaveText(
+		'on the drawing as it is now (saved as revision 1)'
+	);
 	return { id, aids };
 }
 
@@ -98,4 +101,76 @@ test('sweep Ctop: pole paths and a table', async ({ page }) => {
 	await aids.getByRole('button', { name: 'Rank what moves each pole' }).click();
 	await expect(aids.getByText(/^Pole 1: /)).toBeVisible();
 	if (shots) await aids.screenshot({ path: `${shots}/design-sensitivity.png` });
+});
+
+test('apply snapped values to the drawing: one undo step each, saved like any edit', async ({
+	page
+}) => {
+	const { aids } = await openAids(page);
+	const saved = page.locator('[data-save-status]');
+	await aids.getByRole('tab', { name: 'Preferred values' }).click();
+	await aids.getByLabel('Series (IEC 60063)').selectOption('E12');
+	await aids.getByRole('button', { name: 'Snap to E12' }).click();
+	const table = aids.getByRole('table', { name: 'Preferred values' });
+	// 50 Ω is not in E12 (47 and 56 are; IEC 60063 E12, from memory): nearest by ratio is 47 Ω.
+	await table.getByRole('button', { name: 'Apply 8.2 MΩ to Rtop' }).click();
+	await expect(aids.getByRole('status').filter({ hasText: 'Applied' })).toContainText(
+		'Applied to the drawing: Rtop = 8.2 MΩ'
+	);
+	await expect(node(page, 'Rtop')).toContainText('8.2 MΩ');
+	// The table is the drawing now: Rtop is in the series, its effect is gone.
+	await expect(table.getByRole('row', { name: /Rtop/ })).toContainText('in E12');
+	await expect(saved).toHaveAttribute('data-revision', '2');
+	await expect(saved).toHaveAttribute('data-save-status', 'saved');
+	await expect(aids.getByTestId('design-source')).toHaveText(
+		'on the drawing as it is now (saved as revision 2)'
+	);
+	if (shots) await aids.screenshot({ path: `${shots}/design-snap-applied.png` });
+
+	await aids.getByRole('button', { name: 'Apply all' }).click();
+	await expect(node(page, 'Rsrc')).toContainText('47 Ω');
+	await expect(node(page, 'Ccable')).toContainText('39 pF');
+	await expect(saved).toHaveAttribute('data-revision', '3');
+	// One undo takes the whole "apply all" back, and not the single apply before it.
+	await page.getByLabel('Drawing commands').getByRole('button', { name: /Undo/ }).click();
+	await expect(node(page, 'Rsrc')).toContainText('50 Ω');
+	await expect(node(page, 'Ccable')).toContainText('42 pF');
+	await expect(node(page, 'Rtop')).toContainText('8.2 MΩ');
+	await expect(saved).toHaveAttribute('data-revision', '4');
+	// The table knows the drawing changed under it.
+	await expect(aids.getByText('The drawing’s values have changed since')).toBeVisible();
+	await expect(aids.getByRole('button', { name: 'Apply all' })).toBeDisabled();
+	await page.reload();
+	await expect(node(page, 'Rtop')).toContainText('8.2 MΩ');
+	await expect(node(page, 'Ccable')).toContainText('42 pF');
+});
+
+test('the aids run on unsaved edits and say so', async ({ page }) => {
+	const { aids } = await openAids(page);
+	// Hold every save back: the edit below stays unsaved for the whole test.
+	await page.route('**/api/sheets/*/revisions', (route) => route.abort());
+	await setValue(page, 'Ctop', '6.6667p');
+	await expect(node(page, 'Ctop')).toContainText('6.6667 pF');
+	await expect(aids.getByTestId('design-source')).toHaveText(
+		'on the drawing as it is now (unsaved edits on revision 1)'
+	);
+	await aids.getByRole('tab', { name: 'Spec limits' }).click();
+	await aids.getByLabel('Flat within ± (dB)').fill('0.05');
+	await aids.getByLabel('Flat from (Hz)').fill('10');
+	await aids.getByLabel('Flat up to (Hz)').fill('1M');
+	await aids.getByRole('button', { name: 'Save limits and check' }).click();
+	// Saved revision 1 (6.8 pF) lifts 0.17 dB and fails; the drawing, at the compensating
+	// 6.6667 pF (1 MΩ × 60 pF / 9 MΩ, closed form), is flat.
+	await expect(aids.getByTestId('spec-verdict')).toHaveText('meets every limit');
+	await expect(
+		aids.getByText('On the drawing as it is now (unsaved edits on revision 1):')
+	).toBeVisible();
+	if (shots) await aids.screenshot({ path: `${shots}/design-unsaved.png` });
+	await aids.getByRole('tab', { name: 'Solve for a value' }).click();
+	await aids.getByLabel('Element to adjust').selectOption('Ctop');
+	await aids.getByRole('button', { name: 'Solve' }).click();
+	await expect(aids.getByTestId('solved-value')).toContainText(/was 6\.667 pF/);
+	// A half-typed value is named, not sent.
+	await setValue(page, 'Ctop', '6.6q');
+	await expect(aids.getByText(/The drawing cannot be analysed yet \(Ctop:/)).toBeVisible();
 });
