@@ -62,9 +62,24 @@ test('comment attachments: keyboard attach, server refusal shown, thumbnail and 
 			buffer: Buffer.from('<!doctype html><script>alert(1)</script>')
 		}
 	]);
-	await expect(composer.getByRole('list', { name: 'Files to attach' })).toContainText(
-		'step-100k.png'
+	const toAttach = composer.getByRole('list', { name: 'Files to attach' });
+	await expect(toAttach).toContainText('step-100k.png');
+	await expect(toAttach).toContainText('notes.png');
+
+	// Over the server's limit (5 MB here): refused on the spot, in the server's words, not sent.
+	const more = page.waitForEvent('filechooser');
+	await attach.click();
+	await (
+		await more
+	).setFiles({
+		name: 'burst.png',
+		mimeType: 'image/png',
+		buffer: Buffer.alloc(5 * 1024 * 1024 + 1)
+	});
+	await expect(composer.getByRole('alert')).toHaveText(
+		'“burst.png” was not attached: the file is over the 5 MB upload limit.'
 	);
+	await expect(toAttach).not.toContainText('burst.png');
 	await composer.getByRole('button', { name: 'Post comment' }).click();
 
 	await expect(composer.getByRole('alert')).toHaveText(

@@ -174,6 +174,19 @@ describe('attachments', () => {
 		expect(missing.status).toBe(404);
 	});
 
+	it('the list tells the upload limit (POLEWISE_UPLOAD_LIMIT_BYTES, default 5 MB) so a browser can check before sending', async () => {
+		const { owner, sheet } = await exchangeWorld();
+		const list = () =>
+			send(attachments.GET, { user: owner, params: { id: sheet.id }, path: '/x?comment=all' });
+		expect((await list()).json.uploadLimitBytes).toBe(5 * 1024 * 1024);
+		process.env.POLEWISE_UPLOAD_LIMIT_BYTES = String(2 * 1024 * 1024);
+		try {
+			expect((await list()).json.uploadLimitBytes).toBe(2 * 1024 * 1024);
+		} finally {
+			delete process.env.POLEWISE_UPLOAD_LIMIT_BYTES;
+		}
+	});
+
 	it('outsiders get 404; signed-out callers 401', async () => {
 		const { outsider, sheet } = await exchangeWorld();
 		expect(

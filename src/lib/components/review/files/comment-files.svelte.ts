@@ -15,8 +15,8 @@ export interface CommentFile {
 	createdAt: string;
 }
 
-/** The server's default limit; it checks again and has the last word. */
-export const LIMIT_MB = 5;
+/** The server's default upload limit until it tells its own; it checks again either way. */
+const DEFAULT_LIMIT = 5 * 1024 * 1024;
 export const ACCEPT = 'image/png,image/jpeg,image/gif,image/webp,application/pdf';
 
 export const sizeText = (n: number) =>
@@ -31,9 +31,16 @@ export const kindText = (type: string) =>
 
 export class CommentFiles {
 	byComment = $state.raw<Map<string, CommentFile[]>>(new Map());
+	limitBytes = $state(DEFAULT_LIMIT);
 	#queued = false;
 
 	constructor(readonly review: SheetReview) {}
+
+	/** "5 MB", as the server words it. */
+	get limitText() {
+		const mb = this.limitBytes / (1024 * 1024);
+		return Number.isInteger(mb) ? `${mb} MB` : `${Math.round(this.limitBytes / 1024)} KB`;
+	}
 
 	get base() {
 		return `/api/sheets/${this.review.sheetId}/attachments`;
@@ -57,7 +64,11 @@ export class CommentFiles {
 		if (!this.review.sheetId) return;
 		const r = await fetch(`${this.base}?comment=all`).catch(() => null);
 		if (!r?.ok) return;
-		const { attachments } = (await r.json()) as { attachments: CommentFile[] };
+		const { attachments, uploadLimitBytes } = (await r.json()) as {
+			attachments: CommentFile[];
+			uploadLimitBytes?: number;
+		};
+		if (uploadLimitBytes) this.limitBytes = uploadLimitBytes;
 		const next = new Map<string, CommentFile[]>();
 		for (const a of attachments)
 			if (a.commentId) next.set(a.commentId, [...(next.get(a.commentId) ?? []), a]);
@@ -68,10 +79,17 @@ export class CommentFiles {
 		this.byComment = new Map(this.byComment).set(commentId, list);
 	}
 
+	/** The refusal for a file over the limit: the server would answer 413, but only after the upload. */
+	tooLarge(file: File): string | null {
+		return file.size > this.limitBytes
+			? `“${file.name}” was not attached: the file is over the ${this.limitText} upload limit.`
+			: null;
+	}
+
 	/** Attach one file to a comment; null when stored, else the reason in words (the server's). */
 	async upload(commentId: string, file: File): Promise<string | null> {
-		if (file.size > LIMIT_MB * 1024 * 1024)
-			return `“${file.name}” was not attached: the file is over the ${LIMIT_MB} MB upload limit.`;
+		const big = this.tooLarge(file);
+		if (big) return big;
 		const form = new FormData();
 		form.set('file', file);
 		form.set('commentId', commentId);
