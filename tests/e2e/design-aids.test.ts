@@ -2,7 +2,7 @@
 // divider's trimmer and see the flat response, run a seeded Monte Carlo with progress and see
 // its yield (also after a reload), snap to E12 and apply the values to the drawing, and work on
 // unsaved edits. Each test makes its own sheet.
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test, type Locator, type Page } from '@playwright/test';
 import { newSheet, node, setValue, signIn, signUpFresh } from './editor-helpers';
 import { digitizerDivider } from '../../src/lib/server/db/seed/demo-sheets';
 
@@ -26,6 +26,15 @@ async function openAids(page: Page) {
 	return { id, aids };
 }
 
+/** Save a flatness limit (± dB from 10 Hz to 1 MHz) with the sheet and check against it. */
+async function checkFlatWithin(aids: Locator, withinDb: string) {
+	await aids.getByRole('tab', { name: 'Spec limits' }).click();
+	await aids.getByLabel('Flat within ± (dB)').fill(withinDb);
+	await aids.getByLabel('Flat from (Hz)').fill('10');
+	await aids.getByLabel('Flat up to (Hz)').fill('1M');
+	await aids.getByRole('button', { name: 'Save limits and check' }).click();
+}
+
 test('solve the divider’s trimmer for a flat response', async ({ page }) => {
 	const { aids } = await openAids(page);
 	await aids.getByLabel('Element to adjust').selectOption('Ctop');
@@ -46,11 +55,7 @@ test('a seeded Monte Carlo shows progress and yield, and is still there after a 
 	// A background job on a shared 2-core machine: allow for a slow queue.
 	test.setTimeout(120_000);
 	const { aids } = await openAids(page);
-	await aids.getByRole('tab', { name: 'Spec limits' }).click();
-	await aids.getByLabel('Flat within ± (dB)').fill('0.3');
-	await aids.getByLabel('Flat from (Hz)').fill('10');
-	await aids.getByLabel('Flat up to (Hz)').fill('1M');
-	await aids.getByRole('button', { name: 'Save limits and check' }).click();
+	await checkFlatWithin(aids, '0.3');
 	await expect(aids.getByTestId('spec-verdict')).toHaveText('meets every limit');
 	await aids.getByRole('tab', { name: 'Tolerance runs' }).click();
 	await aids.getByLabel('Tolerance of Ctop in percent').fill('10');
@@ -154,11 +159,7 @@ test('the aids run on unsaved edits and say so', async ({ page }) => {
 	await expect(aids.getByTestId('design-source')).toHaveText(
 		'on the drawing as it is now (unsaved edits on revision 1)'
 	);
-	await aids.getByRole('tab', { name: 'Spec limits' }).click();
-	await aids.getByLabel('Flat within ± (dB)').fill('0.05');
-	await aids.getByLabel('Flat from (Hz)').fill('10');
-	await aids.getByLabel('Flat up to (Hz)').fill('1M');
-	await aids.getByRole('button', { name: 'Save limits and check' }).click();
+	await checkFlatWithin(aids, '0.05');
 	// Saved revision 1 (6.8 pF) lifts 0.17 dB and fails; the drawing, at the compensating
 	// 6.6667 pF (1 MΩ × 60 pF / 9 MΩ, closed form), is flat.
 	await expect(aids.getByTestId('spec-verdict')).toHaveText('meets every limit');
