@@ -25,6 +25,8 @@ async function open(user: { id: string; email: string; name: string } | null, sh
 	const request = new Request(url, { signal: abort.signal, headers: lastEventId ? { 'last-event-id': String(lastEventId) } : {} });
 	const response = await events.GET({ request, url, params: { id: sheetId }, locals: { user, session: null, auth: 'session' } } as unknown as RequestEvent);
 	const got: Received[] = [];
+	/** The id each stream says it starts from (its first frame, `event: ready`). */
+	const ready: number[] = [];
 	let buffer = '';
 	const reader = response.body?.getReader();
 	const decoder = new TextDecoder();
@@ -38,6 +40,10 @@ async function open(user: { id: string; email: string; name: string } | null, sh
 				const block = buffer.slice(0, end);
 				buffer = buffer.slice(end + 2);
 				const id = /^id: (\d+)$/m.exec(block);
+				if (/^event: ready$/m.test(block)) {
+					ready.push(Number(id?.[1]));
+					continue;
+				}
 				const data = /^data: (.*)$/m.exec(block);
 				if (id && data) got.push({ id: Number(id[1]), data: JSON.parse(data[1]) });
 			}
@@ -46,6 +52,7 @@ async function open(user: { id: string; email: string; name: string } | null, sh
 	return {
 		response,
 		got,
+		ready,
 		async next(count: number, timeoutMs = 8000) {
 			const deadline = Date.now() + timeoutMs;
 			while (got.length < count && Date.now() < deadline) await new Promise((r) => setTimeout(r, 25));
@@ -91,7 +98,17 @@ describe('live sheet events', () => {
 		// Without Last-Event-ID (or ?after=) a stream starts from now: nothing old is sent again.
 		const fresh = await open(world.viewer, sheet.id);
 		expect(await fresh.next(1, 400)).toEqual([]);
+		// …and says where "now" is, so a cut before any event still resumes there: what is said
+		// while it is away comes back on the next connection from that id.
+		const lastSeen = again.got[again.got.length - 1].id;
+		expect(fresh.ready).toHaveLength(1);
+		expect(fresh.ready[0]).toBeGreaterThanOrEqual(lastSeen);
 		await fresh.close();
+		await say('five');
+		const resumed = await open(world.viewer, sheet.id, fresh.ready[0]);
+		expect((await resumed.next(1)).map((e) => e.data.kind)).toEqual(['comment']);
+		expect(resumed.ready).toEqual(fresh.ready);
+		await resumed.close();
 	});
 
 	it('an event written by another app process (straight into PostgreSQL) reaches this process\'s stream', async () => {

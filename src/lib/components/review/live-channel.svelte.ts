@@ -10,6 +10,8 @@ export interface LiveMessage {
 
 export class LiveChannel {
 	status = $state<LiveStatus>('off');
+	/** When the stream last came back after a break (and caught up), for the status line. */
+	reconnectedAt = $state<Date | null>(null);
 	#source: EventSource | null = null;
 	#lastId: string | null = null;
 	#delay = 1000;
@@ -31,9 +33,17 @@ export class LiveChannel {
 		if (this.#stopped) return;
 		this.status = this.#lastId ? 'reconnecting' : 'connecting';
 		const sep = this.url.includes('?') ? '&' : '?';
-		const source = new EventSource(this.#lastId ? `${this.url}${sep}after=${this.#lastId}` : this.url);
+		const source = new EventSource(
+			this.#lastId ? `${this.url}${sep}after=${this.#lastId}` : this.url
+		);
 		this.#source = source;
+		// The server's first frame names where this stream starts: from then on a reopen resumes
+		// there even if no event has arrived yet.
+		source.addEventListener('ready', (e) => {
+			if ((e as MessageEvent).lastEventId) this.#lastId = (e as MessageEvent).lastEventId;
+		});
 		source.onopen = () => {
+			if (this.status === 'reconnecting') this.reconnectedAt = new Date();
 			this.status = 'live';
 			this.#delay = 1000;
 			this.onOpen();

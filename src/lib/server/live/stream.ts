@@ -13,16 +13,24 @@ export function startingId(request: Request, url: URL): number | null {
 	return raw !== null && /^\d{1,15}$/.test(raw) ? Number(raw) : null;
 }
 
-const frame = (e: LiveEvent) => `id: ${e.id}\ndata: ${JSON.stringify({ kind: e.kind, ...e.payload })}\n\n`;
+const frame = (e: LiveEvent) =>
+	`id: ${e.id}\ndata: ${JSON.stringify({ kind: e.kind, ...e.payload })}\n\n`;
 
 /**
  * `stillAllowed` is asked every minute: a person whose access was withdrawn stops receiving
  * events on an open stream too.
  */
-export async function eventStream(channel: string, from: number | null, signal: AbortSignal, stillAllowed: () => Promise<boolean>): Promise<Response> {
+export async function eventStream(
+	channel: string,
+	from: number | null,
+	signal: AbortSignal,
+	stillAllowed: () => Promise<boolean>
+): Promise<Response> {
 	const encoder = new TextEncoder();
-	// Fixed before the response starts, so nothing published meanwhile can slip past.
-	let cursor = from ?? (await latestEventId(channel));
+	// Fixed before the response starts, so nothing published meanwhile can slip past. A fresh
+	// stream starts at the newest id anywhere (not this channel's, which may be days old and
+	// would look like a reconnect from before the pruning).
+	let cursor = from ?? (await latestEventId());
 	const resync = from !== null && from > 0 && from < (await oldestKeptId()) - 1;
 	let busy = false;
 	let again = false;
@@ -51,7 +59,11 @@ export async function eventStream(channel: string, from: number | null, signal: 
 				try {
 					do {
 						again = false;
-						for (let batch = await eventsAfter(channel, cursor); batch.length; batch = await eventsAfter(channel, cursor)) {
+						for (
+							let batch = await eventsAfter(channel, cursor);
+							batch.length;
+							batch = await eventsAfter(channel, cursor)
+						) {
 							for (const e of batch) send(frame(e));
 							cursor = batch[batch.length - 1].id;
 						}
@@ -63,13 +75,19 @@ export async function eventStream(channel: string, from: number | null, signal: 
 				}
 			};
 			send('retry: 2000\n\n');
+			// The starting point as an id, so a connection cut before any event still resumes
+			// exactly here (the browser's Last-Event-ID, and the client's ?after= when it reopens).
+			send(`event: ready\nid: ${cursor}\ndata: {"kind":"ready"}\n\n`);
 			if (resync) send(`data: ${JSON.stringify({ kind: 'resync' })}\n\n`);
 			cleanups.push(subscribe(channel, () => void pump()));
 			const beat = setInterval(() => send(': still here\n\n'), HEARTBEAT_MS);
 			const recheck = setInterval(() => {
 				stillAllowed().then((ok) => ok || close(), close);
 			}, RECHECK_MS);
-			cleanups.push(() => clearInterval(beat), () => clearInterval(recheck));
+			cleanups.push(
+				() => clearInterval(beat),
+				() => clearInterval(recheck)
+			);
 			signal.addEventListener('abort', close, { once: true });
 			await pump();
 		},
@@ -79,6 +97,11 @@ export async function eventStream(channel: string, from: number | null, signal: 
 		}
 	});
 	return new Response(body, {
-		headers: { 'content-type': 'text/event-stream; charset=utf-8', 'cache-control': 'no-store', connection: 'keep-alive', 'x-accel-buffering': 'no' }
+		headers: {
+			'content-type': 'text/event-stream; charset=utf-8',
+			'cache-control': 'no-store',
+			connection: 'keep-alive',
+			'x-accel-buffering': 'no'
+		}
 	});
 }
