@@ -30,7 +30,8 @@ export const kindText = (type: string) =>
 	type === 'application/pdf' ? 'PDF' : type.replace('image/', '').toUpperCase();
 
 export class CommentFiles {
-	byComment = $state.raw<Map<string, CommentFile[]>>(new Map());
+	/** Comment id → its files; replaced whole on every change (raw state, no deep proxy). */
+	byComment = $state.raw<Readonly<Record<string, CommentFile[]>>>({});
 	limitBytes = $state(DEFAULT_LIMIT);
 	#queued = false;
 
@@ -47,7 +48,7 @@ export class CommentFiles {
 	}
 
 	of(commentId: string): CommentFile[] {
-		return this.byComment.get(commentId) ?? [];
+		return this.byComment[commentId] ?? [];
 	}
 
 	/** Fetch again; every comment asks when the threads change, and one request answers all. */
@@ -69,14 +70,13 @@ export class CommentFiles {
 			uploadLimitBytes?: number;
 		};
 		if (uploadLimitBytes) this.limitBytes = uploadLimitBytes;
-		const next = new Map<string, CommentFile[]>();
-		for (const a of attachments)
-			if (a.commentId) next.set(a.commentId, [...(next.get(a.commentId) ?? []), a]);
+		const next: Record<string, CommentFile[]> = {};
+		for (const a of attachments) if (a.commentId) (next[a.commentId] ??= []).push(a);
 		this.byComment = next;
 	}
 
 	#put(commentId: string, list: CommentFile[]) {
-		this.byComment = new Map(this.byComment).set(commentId, list);
+		this.byComment = { ...this.byComment, [commentId]: list };
 	}
 
 	/** The refusal for a file over the limit: the server would answer 413, but only after the upload. */
