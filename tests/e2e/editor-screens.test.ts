@@ -32,6 +32,19 @@ test('editor screenshots, light and dark, of the seeded divider', async ({ page 
 		await page.getByRole('button', { name: 'Show the parts that set pole 1' }).click();
 		await expect(page.locator('.pw-symbol-lit').first()).toBeVisible();
 		await page.locator('.pw-canvas').scrollIntoViewIfNeeded();
+		// Every part's comment marker sits clear of every name/value label on the canvas.
+		const overlaps = await page.evaluate(() => {
+			const boxes = (sel: string) =>
+				[...document.querySelectorAll(sel)].map((e) => e.getBoundingClientRect());
+			const labels = boxes('.pw-canvas .pw-labels');
+			return boxes('.pw-canvas .pw-node-marker').filter((m) =>
+				labels.some(
+					(l) => m.left < l.right && l.left < m.right && m.top < l.bottom && l.top < m.bottom
+				)
+			).length;
+		});
+		expect(await page.locator('.pw-canvas .pw-node-marker .pw-comment-marker').count()).toBe(7);
+		expect(overlaps).toBe(0);
 		await page.screenshot({ path: `docs/images/editor-${theme}.png` });
 	}
 });
