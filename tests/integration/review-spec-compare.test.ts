@@ -9,7 +9,8 @@ import { matrixWorld } from './support/fixtures';
 import { getRevision, saveRevision } from '../../src/lib/server/db/sheets';
 import { saveDesignSettings } from '../../src/lib/server/db/design-jobs';
 import { closeDesignPool } from '../../src/lib/server/jobs/design-pool';
-import { compareSpec } from '../../src/lib/server/review/spec-compare';
+import { answerSpec, compareSpec } from '../../src/lib/server/review/spec-compare';
+import { answerReview, createReviewRequest } from '../../src/lib/server/db/reviews';
 import { AccessDenied } from '../../src/lib/server/access';
 import { designSettingsSchema } from '../../src/lib/network/design-schema';
 
@@ -97,6 +98,51 @@ describe('spec pass/fail across two revisions', () => {
 			['dcGain', true, null]
 		]);
 		expect([c.passBefore, c.passAfter]).toEqual([true, null]);
+	});
+
+	it('the review answer judges the asked revision against the last signed-off one, else the one before', async () => {
+		const { world, sheet } = await twoRevisions();
+		await saveDesignSettings(sheet.id, world.owner.id, designSettingsSchema.parse({ spec }));
+		const ask = (revisionNumber: number) =>
+			createReviewRequest({
+				sheetId: sheet.id,
+				revisionNumber,
+				requestedBy: world.owner.id,
+				message: '',
+				dueOn: null,
+				reviewerIds: [world.commenter.id]
+			});
+		// Nobody asked the commenter yet: nothing to show.
+		expect(await answerSpec(user(world.commenter), sheet.id)).toBeNull();
+		const first = await ask(2);
+		const a = await answerSpec(user(world.commenter), sheet.id);
+		expect([a!.from, a!.to]).toEqual([1, 2]);
+		// Revision 1 is the fixture's 9 MΩ low-pass: 17.7 Hz (closed form 1/(2πRC)), far below 100 kHz.
+		expect(a!.lines[0]).toMatchObject({ key: 'bandwidth', turn: 'fixed' });
+		await answerReview(first, world.commenter.id, 'approve', 'fine');
+		await ask(3);
+		const b = await answerSpec(user(world.commenter), sheet.id);
+		expect([b!.from, b!.to]).toEqual([2, 3]);
+		expect(b!.lines.map((l) => l.turn)).toEqual(['broke', 'broke', 'kept']);
+		// The viewer was not asked.
+		expect(await answerSpec(user(world.viewer), sheet.id)).toBeNull();
+	});
+
+	it('a first revision is judged alone', async () => {
+		const world = await matrixWorld();
+		const { sheet } = await world.sheet('Spec RC alone');
+		await saveDesignSettings(
+			sheet.id,
+			world.owner.id,
+			designSettingsSchema.parse({ spec: { bandwidthMin: 10 } })
+		);
+		const c = await compareSpec(user(world.owner), sheet.id, null, 1);
+		// 9 MΩ · 1 nF: 1/(2πRC) = 17.7 Hz (closed form), above 10 Hz; the value itself to 1e-4.
+		expect(c.lines).toMatchObject([
+			{ key: 'bandwidth', before: null, after: { pass: true }, turn: 'kept' }
+		]);
+		expect(c.lines[0].after!.value! / (1 / (2 * Math.PI * 9e-3))).toBeCloseTo(1, 4);
+		expect([c.passBefore, c.passAfter]).toEqual([null, true]);
 	});
 
 	it('someone outside the workspace gets not-found', async () => {

@@ -5,6 +5,7 @@ import { checkSpec, type SpecCheck, type SpecFigures } from '../../design/spec-l
 import { ApiProblem } from '../api/respond';
 import { getDesignSettings } from '../db/design-jobs';
 import { specOfRevision } from '../jobs/design-service';
+import { reviewOverview } from './review-actions';
 import type { Actor } from '../access';
 
 export interface SpecSide {
@@ -24,7 +25,8 @@ export interface SpecLine {
 }
 
 export interface SpecComparison {
-	from: number;
+	/** null: `to` judged alone (nothing before it). */
+	from: number | null;
 	to: number;
 	lines: SpecLine[];
 	/** null when the sheet has no limits (nothing to pass or fail). */
@@ -67,33 +69,59 @@ async function judge(actor: Actor, sheetId: string, n: number): Promise<Judged> 
 	}
 }
 
-/** Both revisions against the sheet's limits (access: `analyze` on the sheet, as for a comparison). */
+/**
+ * Both revisions against the sheet's limits (access: `analyze` on the sheet, as for a
+ * comparison). `from` null judges `to` alone (a first revision has nothing before it).
+ */
 export async function compareSpec(
 	actor: Actor,
 	sheetId: string,
-	from: number,
+	from: number | null,
 	to: number
 ): Promise<SpecComparison> {
-	const [a, b] = await Promise.all([judge(actor, sheetId, from), judge(actor, sheetId, to)]);
+	const [a, b] = await Promise.all([
+		from === null ? null : judge(actor, sheetId, from),
+		judge(actor, sheetId, to)
+	]);
+	const failed = (j: Judged | null) => j === null || 'error' in j;
 	// The lines themselves, for a side that could not be judged: the limits with no values.
 	const blank = async () =>
 		checkSpec((await getDesignSettings(sheetId)).spec, {} as SpecFigures).checks;
-	const checksOf = async (j: Judged) => ('error' in j ? blank() : j.checks);
+	const checksOf = async (j: Judged | null) =>
+		j === null ? [] : 'error' in j ? blank() : j.checks;
 	const [ca, cb] = await Promise.all([checksOf(a), checksOf(b)]);
 	const lines = pairSpecChecks(ca, cb).map((l) => ({
 		...l,
-		before: 'error' in a ? null : l.before,
-		after: 'error' in b ? null : l.after,
-		turn: 'error' in a || 'error' in b ? ('kept' as const) : l.turn
+		before: failed(a) ? null : l.before,
+		after: failed(b) ? null : l.after,
+		turn: failed(a) || failed(b) ? ('kept' as const) : l.turn
 	}));
-	const verdict = (j: Judged) => (lines.length && !('error' in j) ? j.pass : null);
+	const verdict = (j: Judged | null) => (lines.length && j && !('error' in j) ? j.pass : null);
+	const why = (j: Judged | null) => (j && 'error' in j ? j.error : null);
 	return {
 		from,
 		to,
 		lines,
 		passBefore: verdict(a),
 		passAfter: verdict(b),
-		errorBefore: 'error' in a ? a.error : null,
-		errorAfter: 'error' in b ? b.error : null
+		errorBefore: why(a),
+		errorAfter: why(b)
 	};
+}
+
+/**
+ * For the review answer: the revision the caller is asked to review, against the revision
+ * signed off before it (else the one just before it). null when nobody asked the caller.
+ */
+export async function answerSpec(actor: Actor, sheetId: string): Promise<SpecComparison | null> {
+	const o = await reviewOverview(actor, sheetId);
+	const asked = o.requests.find((r) => r.id === o.myRequestId);
+	if (!asked) return null;
+	const n = asked.revisionNumber;
+	const signedOff = o.requests
+		.filter((r) => !r.withdrawnAt && r.revisionNumber < n && r.reviewers.length)
+		.filter((r) => r.reviewers.every((x) => x.decision === 'approve'))
+		.map((r) => r.revisionNumber);
+	const from = signedOff.length ? Math.max(...signedOff) : n > 1 ? n - 1 : null;
+	return compareSpec(actor, sheetId, from, n);
 }
