@@ -118,7 +118,7 @@ describe('net names given afresh', () => {
 		const onNet = await post(world.commenter, sheet.id, { body: 'b?', anchor: { kind: 'net', ref: 'b' } });
 		const onPole = await post(world.commenter, sheet.id, { body: 'p1?', anchor: { kind: 'pole', ref: 'p1' } });
 		const renamed = network('9M');
-		renamed.elements = renamed.elements.map((e) => ({ ...e, nodes: e.nodes.map((n) => ({ a: 'n1', b: 'n2' })[n as 'a' | 'b'] ?? n), ...(e.id === 'C1' ? { value: '1 n' } : {}) }));
+		renamed.elements = renamed.elements.map((e) => ({ ...e, nodes: e.nodes.map((n) => ({ a: 'n1', b: 'n2' })[n as 'a' | 'b'] ?? n), ...(e.id === 'C1' ? { value: '1 n' } : {}) })) as typeof renamed.elements;
 		await save(world.owner.id, sheet.id, { ...renamed, output: { node: 'n2' } });
 		const { threads } = (await call(comments.GET, { user: world.owner, params: { id: sheet.id } })).body;
 		expect([onC1, onNet, onPole].map((c) => statusOf(threads, c.body.comment.id))).toEqual(['current', 'current', 'current']);

@@ -2,6 +2,7 @@
 // analysis of the latest revision (for pole/zero anchors), and the live connection that keeps
 // them fresh. Every live event triggers a refetch of what it concerns, so a missed or merged
 // event can never leave the panel wrong.
+import type { SpecComparison } from '$lib/server/review/spec-compare';
 import { getContext, setContext, untrack } from 'svelte';
 import { LiveChannel } from './live-channel.svelte';
 import type { ActivityItem, Anchor, CommentView, Person, ReviewOverview } from './types';
@@ -33,6 +34,8 @@ export class SheetReview {
 	results = $state.raw<ResultAnchors | null>(null);
 	/** A revision someone else saved while this page was open. */
 	newerRevision = $state<number | null>(null);
+	/** The page's spec verdicts for the revision this person is asked to review (streamed by its load). */
+	answerSpec = $state.raw<Promise<SpecComparison | null> | null>(null);
 	/** The comment the canvas or a result row asked to show or start. */
 	focus = $state<{ anchor: Anchor } | null>(null);
 	loaded = $state(false);

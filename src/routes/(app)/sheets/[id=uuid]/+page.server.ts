@@ -3,6 +3,7 @@ import { AccessDenied, actorOf } from '$lib/server/access';
 import { requireUser } from '$lib/server/auth/guard';
 import { listRevisions } from '$lib/server/db/sheets';
 import { formAction } from '$lib/server/sharing/form-action';
+import { answerSpec } from '$lib/server/review/spec-compare';
 import { requestContext } from '$lib/server/sharing/context';
 import { readRevision, renameSheetAs, restoreRevisionAs, trashSheetAs, duplicateSheetAs } from '$lib/server/sharing/sheet-actions';
 import { cancelGuestInvitation, changeGrant, endShareLink, newShareLink, sharingOf, shareWithEmail, unshare } from '$lib/server/sharing/share-actions';
@@ -29,7 +30,9 @@ export const load: PageServerLoad = async ({ params, url, locals }) => {
 			workspace: { id: workspace.id, name: workspace.name, member: target.workspaceRole !== null },
 			history,
 			sharing,
-			may: { rename: can('rename'), restore: can('save'), trash: can('trash'), duplicate: can('duplicate'), comment: can('comment') }
+			may: { rename: can('rename'), restore: can('save'), trash: can('trash'), duplicate: can('duplicate'), comment: can('comment') },
+			// Streamed (not awaited): the review answer's spec verdicts follow the page in.
+			reviewSpec: answerSpec(actor, sheet.id).catch(() => null)
 		};
 	} catch (e) {
 		if (e instanceof AccessDenied) error(e.status === 409 ? 404 : e.status, e.message);
