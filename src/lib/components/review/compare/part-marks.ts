@@ -26,7 +26,6 @@ export const MARK_STYLE: Record<
 const fieldWords: Record<string, string> = {
 	value: '',
 	type: 'kind ',
-	nodes: 'wiring',
 	control: 'control '
 };
 
