@@ -58,6 +58,7 @@ test('the review answer shows each spec line before and after, and the top of th
 	await openSheet(b, sheetId);
 	const jump = b.getByRole('navigation', { name: 'On this sheet' }).getByTestId('jump-review');
 	await expect(jump).toContainText('your answer is asked for revision 2');
+	await b.screenshot({ path: '/tmp/review-jump-nav.png', clip: { x: 0, y: 0, width: 1400, height: 260 } });
 	await jump.click();
 	const mine = b.getByRole('region', { name: 'Your review' });
 	await expect(mine).toBeInViewport();
