@@ -9,6 +9,7 @@ import { apiActor, endpoint, problem, readBody } from '$lib/server/api/respond';
 import { checkDocument, LIMITS, readOptions } from '$lib/server/analysis-request';
 import { analyzeInPool } from '$lib/server/jobs/analysis-pool';
 import { readTrim, trimAnalysis } from '$lib/server/analysis-omit';
+import type { Analysis } from '$lib/solver';
 
 export const POST = endpoint(async (event) => {
 	apiActor(event);
@@ -20,5 +21,6 @@ export const POST = endpoint(async (event) => {
 		const { error, ...where } = outcome.error;
 		return problem(422, error, where);
 	}
-	return json(trimAnalysis(outcome.analysis, trim));
+	// The worker's outcome is typed `unknown` across the thread boundary; it is analyze()'s result.
+	return json(trimAnalysis(outcome.analysis as Analysis, trim));
 });
