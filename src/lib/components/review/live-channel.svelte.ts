@@ -11,7 +11,7 @@ export interface LiveMessage {
 export class LiveChannel {
 	status = $state<LiveStatus>('off');
 	/** When the stream last came back after a break (and caught up), for the status line. */
-	reconnectedAt = $state<Date | null>(null);
+	reconnectedAt = $state<number | null>(null);
 	#source: EventSource | null = null;
 	#lastId: string | null = null;
 	#delay = 1000;
@@ -43,7 +43,7 @@ export class LiveChannel {
 			if ((e as MessageEvent).lastEventId) this.#lastId = (e as MessageEvent).lastEventId;
 		});
 		source.onopen = () => {
-			if (this.status === 'reconnecting') this.reconnectedAt = new Date();
+			if (this.status === 'reconnecting') this.reconnectedAt = Date.now();
 			this.status = 'live';
 			this.#delay = 1000;
 			this.onOpen();

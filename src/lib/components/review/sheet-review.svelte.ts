@@ -104,6 +104,7 @@ export class SheetReview {
 				api<{ analysis: ResultAnchors }>(`${this.base}/revisions/${n}/analysis`).catch(() => null)
 			]);
 			const els = revision.document.elements;
+			// eslint-disable-next-line svelte/prefer-svelte-reactivity -- a throwaway set for de-duplication, never state
 			const nets = [...new Set(els.flatMap((e) => e.nodes.map((x) => (String(x) === '0' ? 'gnd' : String(x)))))].sort();
 			this.results = {
 				poles: analysis?.analysis.poles ?? [],
@@ -150,6 +151,7 @@ export class SheetReview {
 
 	/** Open threads per anchor key (`element:C1`, `pole:p1`…), for markers on the canvas and beside result rows. */
 	get openByAnchor(): Map<string, number> {
+		// eslint-disable-next-line svelte/prefer-svelte-reactivity -- rebuilt on every read from $state threads; never mutated after
 		const out = new Map<string, number>();
 		for (const t of this.threads) {
 			if (t.resolvedAt || t.deletedAt) continue;

@@ -82,7 +82,7 @@ export function matchSingularities(before: Point[], after: Point[]): Movement[] 
 	}
 	before.forEach((a, i) => usedA.has(i) || out.push({ before: point(a), after: null, movementPct: null, order: i }));
 	after.forEach((b, j) => usedB.has(j) || out.push({ before: null, after: point(b), movementPct: null, order: before.length + j }));
-	return out.sort((x, y) => x.order - y.order).map(({ order: _order, ...m }) => m); // eslint-disable-line @typescript-eslint/no-unused-vars
+	return out.sort((x, y) => x.order - y.order).map(({ order: _order, ...m }) => m);
 }
 
 export interface Figure {
