@@ -71,4 +71,9 @@ test('compare: both drawings with added, removed and changed parts marked; spec 
 	await expect(spec.getByTestId('spec-before')).toHaveText('✓ meets all');
 	await expect(spec.getByTestId('spec-after')).toHaveText('✗ misses');
 	await page.screenshot({ path: '/tmp/review-compare-drawing.png', fullPage: true });
+	// The outlines and badges must read on the dark palette too.
+	await page.evaluate(() => (document.documentElement.dataset.theme = 'dark'));
+	await page
+		.getByTestId('change-drawings')
+		.screenshot({ path: '/tmp/review-compare-drawing-dark.png' });
 });
