@@ -33,7 +33,9 @@ export function analysisPool(): Piscina {
 			filename,
 			execArgv,
 			minThreads: 1,
-			maxThreads: Number(process.env.ANALYSIS_THREADS ?? Math.max(1, os.availableParallelism() - 1)),
+			maxThreads: Number(
+				process.env.ANALYSIS_THREADS ?? Math.max(1, os.availableParallelism() - 1)
+			),
 			idleTimeout: 60_000,
 			// Bounded queue: beyond this the server answers 503 instead of piling up work.
 			maxQueue: 64
@@ -46,16 +48,25 @@ export function analysisPool(): Piscina {
  * Run one analysis with a time limit; an overrun ends that worker thread (503), and so does a
  * full queue (503 with Retry-After) — the server stays responsive either way.
  */
-export async function analyzeInPool(task: AnalyzeTask, timeoutMs = LIMITS.timeoutMs): Promise<AnalyzeOutcome> {
+export async function analyzeInPool(
+	task: AnalyzeTask,
+	timeoutMs = LIMITS.timeoutMs
+): Promise<AnalyzeOutcome> {
 	const signal = AbortSignal.timeout(timeoutMs);
 	try {
 		return (await analysisPool().run(task, { signal })) as AnalyzeOutcome;
 	} catch (error) {
 		if (signal.aborted) {
-			throw new ApiProblem(503, `the analysis took longer than ${timeoutMs / 1000} s and was stopped`, { code: 'timeout' });
+			throw new ApiProblem(
+				503,
+				`the analysis took longer than ${timeoutMs / 1000} s and was stopped`,
+				{ code: 'timeout' }
+			);
 		}
 		if (error instanceof Error && /queue is at limit/i.test(error.message)) {
-			throw new ApiProblem(503, 'the server is busy with other analyses; try again in a moment', { code: 'busy' });
+			throw new ApiProblem(503, 'the server is busy with other analyses; try again in a moment', {
+				code: 'busy'
+			});
 		}
 		throw error;
 	}
