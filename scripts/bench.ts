@@ -229,7 +229,44 @@ for (const s of sweep)
 	console.log(
 		`${pad(String(s.n), 6)}${pad(s.analyzeMs.toFixed(1), 15)}${pad(s.directMs === null ? '—' : s.directMs.toFixed(1), 12)}  ${s.note}`
 	);
-const t50 = rows.find((r) => r.family === 'ladder' && r.n === 50)!.medianMs ?? NaN;
+/**
+ * The first target is worded per element ("a 50-element network"), the second per capacitor;
+ * the family rows above count capacitors (ladder 50 has 101 elements). So the first target is
+ * timed on networks of exactly 50 elements: a 24-section ladder with its source and a load
+ * resistor, and the largest mesh of the family with at most 50 elements (padded with resistors
+ * to ground up to 50). The 50-capacitor rows stay in the table as the stricter reading.
+ */
+function exactly50(): { name: string; doc: Doc }[] {
+	const lad = ladder(24);
+	lad.elements.push({ id: 'Rload', type: 'R', nodes: ['x24', 'gnd'], value: 1e4 });
+	let n = 10;
+	while (mesh(n + 1).elements.length <= 50) n++;
+	const m = mesh(n);
+	for (let k = 0; m.elements.length < 50; k++)
+		m.elements.push({ id: `Rpad${k}`, type: 'R', nodes: [`m${k}`, 'gnd'], value: 1e5 });
+	return [
+		{ name: `ladder, 24 capacitors`, doc: lad },
+		{ name: `mesh, ${m.elements.filter((e) => e.type === 'C').length} capacitors`, doc: m }
+	];
+}
+const fifty = exactly50().map(({ name, doc }) => {
+	for (let w = 0; w < 20; w++) analyze(doc);
+	const runs = timeBoth(() => analyze(doc), 201);
+	return {
+		name,
+		elements: doc.elements.length,
+		medianMs: median(runs.wall),
+		fastestMs: Math.min(...runs.wall),
+		cpuMs: median(runs.cpu)
+	};
+});
+console.log('\nExactly 50 elements (201 runs after 20 warm-up runs)');
+for (const f of fifty)
+	console.log(
+		`${f.name.padEnd(24)}${pad(String(f.elements), 4)} elements${pad(fmt(f.medianMs), 10)} ms median${pad(fmt(f.fastestMs), 8)} fastest${pad(fmt(f.cpuMs), 8)} cpu`
+	);
+const t50 = Math.max(...fifty.map((f) => f.medianMs));
+const t50caps = rows.find((r) => r.family === 'ladder' && r.n === 50)!.medianMs ?? NaN;
 const t300 = Math.max(...rows.filter((r) => r.n === 300).map((r) => r.medianMs ?? Infinity));
 const loadAfter = loadavg()[0];
 console.log(
@@ -239,7 +276,7 @@ console.log(
 	`Load average (1 min): ${loadBefore.toFixed(1)} before, ${loadAfter.toFixed(1)} after; whole run ${((performance.now() - began) / 1000).toFixed(0)} s.`
 );
 console.log(
-	`Targets: 50 elements ≤ 5 ms: ${t50.toFixed(2)} ms ${t50 <= 5 ? 'met' : 'MISSED'}; 300 capacitors ≤ 1 s: ${t300.toFixed(0)} ms ${t300 <= 1000 ? 'met' : 'MISSED'}`
+	`Targets: 50 elements ≤ 5 ms: ${t50.toFixed(2)} ms ${t50 <= 5 ? 'met' : 'MISSED'} (50 capacitors, 101 elements: ${t50caps.toFixed(2)} ms ${t50caps <= 5 ? 'met' : 'missed'}); 300 capacitors ≤ 1 s: ${t300.toFixed(0)} ms ${t300 <= 1000 ? 'met' : 'MISSED'}`
 );
 
 mkdirSync('bench-results', { recursive: true });
@@ -253,6 +290,7 @@ writeFileSync(
 			calibrationCpuMs: calibration.cpu,
 			load: [loadBefore, loadAfter],
 			analysis: rows,
+			exactly50Elements: fifty,
 			sweep
 		},
 		null,
