@@ -79,6 +79,13 @@ const web = http.createServer((request, response) => {
 	response.writeHead(404, { 'content-type': 'text/plain' }).end('not found');
 });
 
+// A client that drops its connection mid-conversation (a process shutting down, a test's
+// mailer closed early) reaches the server as an 'error' event; without a listener Node ends the
+// whole catcher and every later mail is lost. One connection's trouble is not the catcher's.
+smtp.on('error', (error: NodeJS.ErrnoException) => {
+	if (error.code !== 'ECONNRESET' && error.code !== 'EPIPE')
+		process.stderr.write(`[mail catcher] ${error.message}\n`);
+});
 smtp.listen(smtpPort, '127.0.0.1');
 web.listen(webPort, '127.0.0.1');
 for (const signal of ['SIGINT', 'SIGTERM'] as const) {
