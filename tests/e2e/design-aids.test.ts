@@ -175,3 +175,26 @@ test('the aids run on unsaved edits and say so', async ({ page }) => {
 	await setValue(page, 'Ctop', '6.6q');
 	await expect(aids.getByText(/The drawing cannot be analysed yet \(Ctop:/)).toBeVisible();
 });
+
+test('limits typed while the saved ones are still loading are kept', async ({ page }) => {
+	const { aids } = await openAids(page);
+	// Hold the saved limits back until a value has been typed, as a slow server would.
+	let release!: () => void;
+	const held = new Promise<void>((resolve) => (release = resolve));
+	await page.route('**/api/design/sheets/*/settings', async (route) => {
+		if (route.request().method() === 'GET') await held;
+		await route.continue();
+	});
+	const loaded = page.waitForResponse(
+		(r) => r.url().endsWith('/settings') && r.request().method() === 'GET'
+	);
+	await aids.getByRole('tab', { name: 'Spec limits' }).click();
+	const field = aids.getByLabel('Flat within ± (dB)');
+	await field.fill('0.05');
+	release();
+	await loaded;
+	// Let the panel apply what it loaded, then the typed value must still be there.
+	await page.evaluate(() => new Promise((resolve) => setTimeout(resolve, 100)));
+	await expect(field).toHaveValue('0.05');
+	await expect(aids.getByLabel('Flat from (Hz)')).toHaveValue('');
+});
