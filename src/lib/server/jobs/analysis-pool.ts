@@ -1,34 +1,18 @@
 // The worker-thread pool for analyses. In the built server the worker is the bundled
 // build/workers/analyze.worker.mjs (scripts/build-workers.mjs); under the Vite dev server and in
 // tests it is the TypeScript source, run through tsx.
-import { existsSync } from 'node:fs';
 import os from 'node:os';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
 import type { AnalyzeOutcome, AnalyzeTask } from '../workers/analyze.worker';
 import { ApiProblem } from '../api/respond';
 import { LIMITS } from '../analysis-request';
+import { workerFile } from './worker-file';
 
 let pool: Piscina | null = null;
 
-function workerFile(): { filename: string; execArgv: string[] } {
-	const here = path.dirname(fileURLToPath(import.meta.url));
-	const source = path.join(here, '..', 'workers', 'analyze.worker.ts');
-	if (existsSync(source)) return { filename: source, execArgv: ['--import', 'tsx'] };
-	// Built: this chunk sits somewhere below build/server; the workers sit in build/workers.
-	let dir = here;
-	for (let i = 0; i < 10; i++) {
-		const candidate = path.join(dir, 'workers', 'analyze.worker.mjs');
-		if (existsSync(candidate)) return { filename: candidate, execArgv: [] };
-		dir = path.dirname(dir);
-	}
-	throw new Error('analysis worker not found: run `npm run build` (it bundles build/workers)');
-}
-
 export function analysisPool(): Piscina {
 	if (!pool) {
-		const { filename, execArgv } = workerFile();
+		const { filename, execArgv } = workerFile('analyze', import.meta.url);
 		pool = new Piscina({
 			filename,
 			execArgv,
