@@ -2,6 +2,7 @@
 // Names are stored as typed and always rendered as text, so markup in a name stays inert.
 import { z } from 'zod';
 
+// eslint-disable-next-line no-control-regex -- matching control characters is the point
 const CONTROL = /[\u0000-\u001f\u007f]/;
 
 const name = (field: string, max: number) =>

@@ -23,6 +23,7 @@ export const nameField = z
 	// Names are always shown escaped; angle brackets are refused anyway so nobody is surprised
 	// by markup appearing as text in a colleague's member list or an e-mail.
 	.refine((s) => !/[<>]/.test(s), 'A name cannot contain < or >.')
+	// eslint-disable-next-line no-control-regex -- matching control characters is the point
 	.refine((s) => !/[\u0000-\u001f\u007f]/.test(s), 'A name cannot contain control characters.');
 
 export const newPasswordField = z

@@ -15,6 +15,7 @@ export const tokenNameSchema = z.object({
 		.trim()
 		.min(1, 'Name the token after the script or machine that will use it.')
 		.max(60, 'A token name has at most 60 characters.')
+		// eslint-disable-next-line no-control-regex -- matching control characters is the point
 		.refine((s) => !/[<>\u0000-\u001f]/.test(s), 'A token name cannot contain <, > or control characters.')
 });
 
