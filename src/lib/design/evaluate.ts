@@ -6,7 +6,7 @@ import { portModelFrom, SINGULAR_PIVOT, type PortModel } from '../solver/port-mo
 import { frequencyRange } from '../solver/response-range';
 import { shiftedModel } from '../solver/shift';
 import { byMagnitude, singularity } from '../solver/singularity';
-import { stepResponse } from '../solver/step-response';
+import { stepMetrics, stepResponse } from '../solver/step-response';
 import {
 	openCircuitPorts,
 	openCircuitTimeConstants,
@@ -15,7 +15,7 @@ import {
 } from '../solver/time-constants';
 import { SolverError } from '../solver/errors';
 import type { Prepared } from './prepared';
-import { fastBandwidth, fastStepFigures, logMag2 } from './fast-figures';
+import { fastBandwidth, logMag2 } from './fast-figures';
 
 /**
  * The figures a design aid compares between variants of one network, computed on the prepared
@@ -150,7 +150,7 @@ export function evaluate(p: Prepared, shift: number, opts: EvaluateOptions = {})
 		const slow = Math.min(...poles.map((q) => Math.abs(q.re)), Infinity);
 		const fast = Math.max(...poles.map((q) => Math.hypot(q.re, q.im)), 0);
 		const tEnd = Number.isFinite(slow) ? 10 / slow : fast > 0 ? 10 / fast : 1;
-		({ riseTime, overshoot, settlingTime } = fastStepFigures(
+		({ riseTime, overshoot, settlingTime } = stepMetrics(
 			md,
 			dcGain,
 			tEnd,

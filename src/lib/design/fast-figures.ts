@@ -1,6 +1,4 @@
 import type { PzForm } from '../solver/frequency-response';
-import type { Modal } from '../solver/modal';
-import { stepMetrics, type StepFigures } from '../solver/step-response';
 
 /**
  * Faster twin of the analysis' bandwidth, same definition. A tolerance run asks for it ten
@@ -50,9 +48,4 @@ export function fastBandwidth(
 		prev = x;
 	}
 	return null;
-}
-
-/** The analysis' own step figures (one definition, one sampling grid); see step-response.ts. */
-export function fastStepFigures(md: Modal, final: number, tEnd: number, tFast: number): StepFigures {
-	return stepMetrics(md, final, tEnd, tFast);
 }

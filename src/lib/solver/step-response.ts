@@ -6,30 +6,9 @@ import type { Modal } from './modal';
  * Exact at any t with no time stepping, which matters here: a probe's poles 10⁵ apart would need
  * 10⁵ steps per slow time constant to step through. (It assumes distinct poles; a defective
  * pair shows up as huge opposite residues, which the analysis checks and warns about.)
- */
-export function stepAt(md: Modal, t: number): number {
-	let y = md.direct;
-	for (const p of md.poles) {
-		if (p.re === 0 && p.im === 0) {
-			y += p.rr * t;
-			continue;
-		}
-		// r (e^{pt} − 1) / p, real part; expm1 keeps the early-time digits.
-		const er = Math.exp(p.re * t);
-		const cr = p.im === 0 ? Math.expm1(p.re * t) : er * Math.cos(p.im * t) - 1;
-		const ci = er * Math.sin(p.im * t);
-		const nr = p.rr * cr - p.ri * ci;
-		const ni = p.rr * ci + p.ri * cr;
-		const d = p.re * p.re + p.im * p.im;
-		y += (nr * p.re + ni * p.im) / d;
-	}
-	return y;
-}
-
-/**
- * stepAt prepared once for many t: the residues divided by their poles ahead of time, real poles
- * (all of them in an RC network) on a one-expm1 path, sorted fastest first. Same formula; only
- * the order of the sum differs (round-off of the last digit).
+ *
+ * stepEvaluator prepares that sum once for many t: the residues divided by their poles ahead of
+ * time, real poles (all of them in an RC network) on a one-expm1 path, sorted fastest first.
  *
  * Below −40, expm1 is exactly −1 in double precision (its own cut-off is −56·ln 2) and below −746
  * exp is exactly 0. With the real rates sorted, the modes that have fully decayed at time t are a
