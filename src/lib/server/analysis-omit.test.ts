@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyze } from '../solver';
 import { demoSheets } from './db/seed/demo-sheets';
-import { readTrim, trimAnalysis } from './analysis-omit';
+import { readTrim, skipped, trimAnalysis } from './analysis-omit';
 import { ApiProblem } from './api/respond';
 
 const divider = demoSheets[0].document;
@@ -57,5 +57,26 @@ describe('analysis response trimming', () => {
 			expect((e as ApiProblem).status).toBe(400);
 			expect((e as ApiProblem).message).toContain(word);
 		}
+	});
+
+	it('what is omitted is not computed: the solver skips it and the answer is the same', () => {
+		const trim = readTrim(url('omit=impedanceCurve,groupDelay,expansion'));
+		expect(skipped(trim)).toEqual({ expansion: false, impedanceCurve: false });
+		expect(skipped(readTrim(url('omit=groupDelay')))).toEqual({});
+		const lean = analyze(divider, {
+			frequency: { points: 50 },
+			step: { points: 50 },
+			...skipped(trim)
+		});
+		expect(lean.expansion).toBeNull();
+		expect(lean.inputImpedance).toEqual({
+			dc: full.inputImpedance!.dc,
+			f: [],
+			magnitude: [],
+			phaseDeg: []
+		});
+		const { meta: _a, ...leanRest } = trimAnalysis(lean, trim);
+		const { meta: _b, ...fullRest } = trimAnalysis(full, trim);
+		expect(leanRest).toEqual(fullRest);
 	});
 });

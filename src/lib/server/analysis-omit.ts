@@ -4,7 +4,7 @@
 // the whole analysis, as before. Every trimmed part keeps its key and type: arrays become empty,
 // `expansion` becomes null (its documented "not available" value).
 import { z } from 'zod';
-import type { Analysis } from '../solver';
+import type { Analysis, AnalyzeOptions } from '../solver';
 import { ApiProblem } from './api/respond';
 
 export const OMITTABLE = ['impedanceCurve', 'groupDelay', 'expansion'] as const;
@@ -40,6 +40,14 @@ export function readTrim(url: URL): Trim {
 		throw new ApiProblem(400, ports.error.issues[0].message, { code: 'bad_options' });
 	}
 	return { omit: new Set(omit.data), matrixPorts: ports ? ports.data : null };
+}
+
+/** The solver options that leave omitted parts uncomputed. */
+export function skipped({ omit }: Trim): Pick<AnalyzeOptions, 'expansion' | 'impedanceCurve'> {
+	return {
+		...(omit.has('expansion') ? { expansion: false as const } : {}),
+		...(omit.has('impedanceCurve') ? { impedanceCurve: false as const } : {})
+	};
 }
 
 export function trimAnalysis(a: Analysis, { omit, matrixPorts }: Trim): Analysis {

@@ -164,15 +164,16 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	}
 	const zinDc = dcInputImpedance(net, ocPorts, poleAtZero);
 	const zin =
-		freq && mdZ
+		freq && mdZ && options.impedanceCurve !== false
 			? freq.map((f) => {
 					const v = evalModal(mdZ!, 0, 2 * Math.PI * f);
 					return impedanceFromReading(net, v.re, v.im);
 				})
 			: [];
-	const exp = net.reactive.length
-		? expansion(net, ocPorts, roots, zeroRoots, numeratorScale(pz, roots, zeroRoots, dcGain))
-		: null;
+	const exp =
+		net.reactive.length && options.expansion !== false
+			? expansion(net, ocPorts, roots, zeroRoots, numeratorScale(pz, roots, zeroRoots, dcGain))
+			: null;
 	const improper = zeroRoots.length > roots.length;
 
 	const result: Omit<Analysis, 'warnings' | 'meta'> = {
@@ -190,7 +191,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		step,
 		inputImpedance: {
 			dc: zinDc,
-			f: freq ?? [],
+			f: options.impedanceCurve === false ? [] : (freq ?? []),
 			magnitude: zin.map((z) => (z ? nullIfBad(Math.hypot(z.re, z.im)) : null)),
 			phaseDeg: zin.map((z) => (z ? nullIfBad((Math.atan2(z.im, z.re) * 180) / Math.PI) : null))
 		}

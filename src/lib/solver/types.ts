@@ -136,4 +136,8 @@ export interface Analysis {
 export interface AnalyzeOptions {
 	frequency?: { points?: number; fMin?: number; fMax?: number } | false;
 	step?: { points?: number; tEnd?: number } | false;
+	/** false: skip the time-and-transfer-constant expansion (reported as null). */
+	expansion?: false;
+	/** false: skip the input-impedance curve (the DC value is still computed; arrays empty). */
+	impedanceCurve?: false;
 }

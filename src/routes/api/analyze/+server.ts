@@ -8,7 +8,7 @@ import { z } from 'zod';
 import { apiActor, endpoint, problem, readBody } from '$lib/server/api/respond';
 import { checkDocument, LIMITS, readOptions } from '$lib/server/analysis-request';
 import { analyzeInPool } from '$lib/server/jobs/analysis-pool';
-import { readTrim, trimAnalysis } from '$lib/server/analysis-omit';
+import { readTrim, skipped, trimAnalysis } from '$lib/server/analysis-omit';
 import type { Analysis } from '$lib/solver';
 
 export const POST = endpoint(async (event) => {
@@ -16,7 +16,9 @@ export const POST = endpoint(async (event) => {
 	const options = readOptions(event.url);
 	const trim = readTrim(event.url);
 	const document = checkDocument(await readBody(event.request, z.unknown(), LIMITS.bodyBytes));
-	const outcome = await analyzeInPool({ document, options });
+	// What will not be sent is not computed either (the expansion and the impedance curve are
+	// the costly ones); trimAnalysis then shapes the answer.
+	const outcome = await analyzeInPool({ document, options: { ...options, ...skipped(trim) } });
 	if (!outcome.ok) {
 		const { error, ...where } = outcome.error;
 		return problem(422, error, where);
