@@ -90,4 +90,16 @@ describe('LiveAnalysis without a pause', () => {
 		expect(p.parsed).toBeLessThanOrEqual(p.shown);
 		expect(live.lastMs).toBe(p.painted);
 	});
+
+	it('tells the analysis the sheet opened with from one that follows an edit', async () => {
+		const { fetcher } = slowServer(1);
+		const live = new LiveAnalysis(0, fetcher);
+		live.update(doc('1k'), []);
+		await wait(20);
+		expect(live.status).toBe('done');
+		expect(live.lastAfterEdit).toBe(false);
+		live.update(doc('2k'), []);
+		await wait(20);
+		expect(live.lastAfterEdit).toBe(true);
+	});
 });

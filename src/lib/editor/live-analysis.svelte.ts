@@ -48,6 +48,8 @@ export class LiveAnalysis {
 	lastMs = $state<number | null>(null);
 	/** The same edit's phases (ms from the edit): sent, answered, parsed, in the DOM, painted. */
 	lastPhases = $state.raw<AnalysisPhases | null>(null);
+	/** False while the shown result is the one the sheet opened with (no edit measured yet). */
+	lastAfterEdit = $state(false);
 	/** How many requests were actually sent (tests check a bad value sends none). */
 	sent = $state(0);
 	#timer: ReturnType<typeof setTimeout> | undefined;
@@ -93,6 +95,7 @@ export class LiveAnalysis {
 		this.#controller = controller;
 		this.#lastBody = body;
 		this.status = 'running';
+		const opening = this.sent === 0;
 		this.sent++;
 		const sent = performance.now() - editedAt;
 		try {
@@ -118,6 +121,7 @@ export class LiveAnalysis {
 				const painted = performance.now() - editedAt;
 				this.lastPhases = { sent, answered, parsed, shown, painted };
 				this.lastMs = painted;
+				this.lastAfterEdit = !opening;
 				this.status = 'done';
 			} else {
 				this.fault = {
