@@ -9,12 +9,18 @@ export const eng = (v: number | null | undefined, unit = '', digits = 4) =>
 			: '—'
 		: formatEngineering(v, unit, digits);
 
+/** A fraction as a percentage; below 0.0001 % (round-off, e.g. an exact one-pole estimate) it
+ *  reads "< 0.0001 %" rather than "4.6e-14 %". */
 export const pct = (v: number | null | undefined, digits = 2) =>
 	v === null || v === undefined || !Number.isFinite(v)
 		? '—'
-		: v >= 10
-			? `${Math.round(v * 100)} %`
-			: `${Number((v * 100).toPrecision(digits))} %`;
+		: v === 0
+			? '0 %'
+			: Math.abs(v) < 1e-6
+				? '< 0.0001 %'
+				: v >= 10
+					? `${Math.round(v * 100)} %`
+					: `${Number((v * 100).toPrecision(digits))} %`;
 
 /** A complex frequency in rad/s as "−1.11 k ± j 2.2 M". */
 export function sValue(re: number, im: number): string {
