@@ -16,6 +16,8 @@ export interface ElementNodeData extends Record<string, unknown> {
 	readonly: boolean;
 	normalValue?: string;
 	valueError: boolean;
+	/** Accepted but suspicious (a negative R, C or L): said on the symbol. */
+	valueWarning?: string;
 }
 
 export interface WireEdgeData extends Record<string, unknown> {
@@ -36,6 +38,7 @@ export function sameNodeData(a: ElementNodeData, b: ElementNodeData): boolean {
 		a.negWired === b.negWired &&
 		a.readonly === b.readonly &&
 		a.normalValue === b.normalValue &&
-		a.valueError === b.valueError
+		a.valueError === b.valueError &&
+		a.valueWarning === b.valueWarning
 	);
 }
