@@ -95,7 +95,7 @@ test('request, comment on a part and a pole, live updates, sign-off, changed sin
 	await setValue(a, 'R1', '2k');
 	await expect(a.locator('[data-save-status]')).toHaveAttribute('data-save-status', 'saved', { timeout: 15_000 });
 	const notice = panel(a).getByTestId('changed-since-approval');
-	await expect(notice).toContainText('changed since approval');
+	await expect(notice).toContainText('changed since sign-off');
 	// R1 changed, C1 did not: only the pole comment now refers to an earlier revision.
 	await expect(panel(a).locator('[data-anchor="pole:p1"] [data-testid="earlier-revision"]')).toBeVisible();
 	await expect(panel(a).locator('[data-anchor="element:C1"] [data-testid="earlier-revision"]')).toHaveCount(0);
