@@ -40,9 +40,21 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	// Larger RC networks: the diagonal of H⁻¹ by Cholesky (short-circuit-rc.ts). Otherwise the
 	// direct infinite-value configuration: with banded factorization (lu.ts) it costs less than
 	// inverting the whole m×m port matrix (K = −H⁻¹, 9× slower at m = 1000), exact by structure.
-	const sc =
-		shortCircuitTimeConstantsRC(tcNet, ocPorts) ??
-		shortCircuitTimeConstants(tcNet, shortCircuitPorts(tcNet));
+	const viaRC = shortCircuitTimeConstantsRC(tcNet, ocPorts);
+	const scPorts = viaRC ? null : shortCircuitPorts(tcNet);
+	const sc = viaRC ?? shortCircuitTimeConstants(tcNet, scPorts!);
+	for (const [ports, config] of [
+		[ocPorts, 'open-circuit (zero-value)'],
+		[scPorts, 'short-circuit (infinite-value)']
+	] as const) {
+		for (const c of ports?.conflicts ?? []) {
+			extra.push({
+				code: 'inconsistent_configuration',
+				message: `in the ${config} configuration ${c.by.length ? c.by.join(', ') : 'the shorted elements'} short the ideal output of ${c.element}; the time constants that depend on it are unknown (null)`,
+				element: c.element
+			});
+		}
+	}
 	if (ocPorts.singular && net.reactive.length > 0) {
 		extra.push({
 			code: 'no_dc_solution',

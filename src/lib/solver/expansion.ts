@@ -59,7 +59,12 @@ export function expansion(
 	zeros: { re: number; im: number }[],
 	numeratorScale: number | null
 ): Analysis['expansion'] {
-	if (oc.singular || oc.infinite.some((x) => x) || poles.some((p) => p.re === 0 && p.im === 0))
+	if (
+		oc.singular ||
+		oc.conflicts.length ||
+		oc.infinite.some((x) => x) ||
+		poles.some((p) => p.re === 0 && p.im === 0)
+	)
 		return null;
 	const m = oc.m;
 	const id = (i: number) => net.elements[oc.elements[i]].id;

@@ -27,10 +27,10 @@ export function portMatrices(
 	for (let i = 0; i < m; i++) {
 		const row: (number | null)[] = new Array(m);
 		const crow: number[] = new Array(m).fill(0);
-		const bad = oc.singular || oc.infinite[i] === 1;
+		const bad = oc.singular || oc.infinite[i] === 1 || oc.unknown[i] === 1;
 		for (let j = 0; j < m; j++) {
 			const v = sign[i] * oc.H[i * m + j];
-			row[j] = bad || oc.infinite[j] || !Number.isFinite(v) ? null : v;
+			row[j] = bad || oc.infinite[j] || oc.unknown[j] || !Number.isFinite(v) ? null : v;
 		}
 		crow[i] = Math.abs(oc.d[i]);
 		R[i] = row;

@@ -17,6 +17,7 @@ import type { ResolvedNetwork, PortReading } from './types';
  * and the caller takes the direct configuration.
  */
 const MIN_PIVOT_SHARE = 1e-4;
+const RECIPROCAL = new Set(['R', 'C', 'L', 'V', 'I']);
 
 export function shortCircuitTimeConstantsRC(
 	net: ResolvedNetwork,
@@ -25,6 +26,8 @@ export function shortCircuitTimeConstantsRC(
 	const m = oc.m;
 	if (m <= SC_FROM_OC_ABOVE || oc.singular || oc.infinite.some((x) => x)) return null;
 	if (oc.elements.some((k) => net.elements[k].type !== 'C')) return null;
+	// H is symmetric only for a reciprocal network: a controlled source or an op-amp breaks it.
+	if (net.elements.some((e) => !RECIPROCAL.has(e.type))) return null;
 	if (hasStructuralExtreme(net)) return null;
 	const H = oc.H;
 	const L = new Float64Array(m * m);
