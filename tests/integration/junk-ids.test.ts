@@ -16,11 +16,28 @@ import * as fallback from '../../src/routes/api/[...path]/+server';
 useDatabase();
 
 const JUNK = ['x', '-'.repeat(36), '00000000-0000-0000-0000-00000000000g'];
-const ID_NAMES = ['comment', 'commentId', 'workspaceId', 'sheetId', 'userId', 'parentId', 'itemId', 'requestId', 'measurementId', 'attachmentId', 'linkId', 'invitationId', 'id'];
+const ID_NAMES = [
+	'comment',
+	'commentId',
+	'workspaceId',
+	'sheetId',
+	'userId',
+	'parentId',
+	'itemId',
+	'requestId',
+	'measurementId',
+	'attachmentId',
+	'linkId',
+	'invitationId',
+	'id'
+];
 
 // Streams never end and the PDF starts a browser: they take the same ids through the same code.
 const SKIP = /\/(events|report\.pdf)\/\+server\.ts$/;
-const modules = import.meta.glob<Record<string, RequestHandler>>('../../src/routes/api/**/+server.ts', { eager: true });
+const modules = import.meta.glob<Record<string, RequestHandler>>(
+	'../../src/routes/api/**/+server.ts',
+	{ eager: true }
+);
 
 /** Like support/handlers' call, for any answer: the status and, when the answer is JSON, its body. */
 async function send(handler: RequestHandler, options: Parameters<typeof call>[1] & object) {
@@ -44,7 +61,20 @@ describe('junk ids', () => {
 			const route = file.replace(/^.*src\/routes/, '').replace(/\/\+server\.ts$/, '');
 			const params: Record<string, string> = {};
 			for (const [, name, kind] of route.matchAll(/\[(\w+)(?:=(\w+))?\]/g)) {
-				params[name] = kind === 'uuid' ? (name === 'id' ? (route.startsWith('/api/workspaces') ? world.workspace.id : route.startsWith('/api/sheets') ? sheet.id : randomUUID()) : randomUUID()) : kind === 'revision' ? '1' : kind === 'token' ? 'a'.repeat(52) : 'poles.csv';
+				params[name] =
+					kind === 'uuid'
+						? name === 'id'
+							? route.startsWith('/api/workspaces')
+								? world.workspace.id
+								: route.startsWith('/api/sheets')
+									? sheet.id
+									: randomUUID()
+							: randomUUID()
+						: kind === 'revision'
+							? '1'
+							: kind === 'token'
+								? 'a'.repeat(52)
+								: 'poles.csv';
 			}
 			const path = route.replace(/\[(\w+)(?:=\w+)?\]/g, (_, n) => params[n]);
 			for (const method of ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'] as const) {
@@ -52,18 +82,32 @@ describe('junk ids', () => {
 				if (!handler) continue;
 				for (const junk of JUNK) {
 					for (const name of ID_NAMES) {
-						const tries = [{ path: `${path}?${name}=${encodeURIComponent(junk)}`, body: undefined as unknown }];
+						const tries = [
+							{ path: `${path}?${name}=${encodeURIComponent(junk)}`, body: undefined as unknown }
+						];
 						if (method !== 'GET') tries.push({ path, body: { [name]: junk } });
 						for (const t of tries) {
 							let result;
 							try {
-								result = await send(handler, { user: world.owner, params, method, path: t.path, body: t.body });
+								result = await send(handler, {
+									user: world.owner,
+									params,
+									method,
+									path: t.path,
+									body: t.body
+								});
 							} catch (e) {
-								failures.push(`${method} ${t.path} ${JSON.stringify(t.body ?? '')}: threw ${(e as Error).message.slice(0, 120)}`);
+								failures.push(
+									`${method} ${t.path} ${JSON.stringify(t.body ?? '')}: threw ${(e as Error).message.slice(0, 120)}`
+								);
 								continue;
 							}
-							if (result.status >= 500) failures.push(`${method} ${t.path} ${JSON.stringify(t.body ?? '')}: ${result.status}`);
-							else if (result.body?.code === 'bad_value') failures.push(`${method} ${t.path} ${JSON.stringify(t.body ?? '')}: unnamed 400`);
+							if (result.status >= 500)
+								failures.push(
+									`${method} ${t.path} ${JSON.stringify(t.body ?? '')}: ${result.status}`
+								);
+							else if (result.body?.code === 'bad_value')
+								failures.push(`${method} ${t.path} ${JSON.stringify(t.body ?? '')}: unnamed 400`);
 						}
 					}
 				}
@@ -76,14 +120,34 @@ describe('junk ids', () => {
 		const world = await matrixWorld();
 		const { sheet } = await world.sheet();
 		for (const junk of ['x', '-'.repeat(36)]) {
-			const r = await call(attachments.GET, { user: world.viewer, params: { id: sheet.id }, path: `/api/sheets/${sheet.id}/attachments?comment=${junk}` });
+			const r = await call(attachments.GET, {
+				user: world.viewer,
+				params: { id: sheet.id },
+				path: `/api/sheets/${sheet.id}/attachments?comment=${junk}`
+			});
 			expect(r.status).toBe(400);
 			expect(r.body.error).toMatch(/^comment: /);
 			expect(r.body.issues).toEqual([{ field: 'comment', message: 'not an id (a UUID)' }]);
 		}
 		// "all" and a real (if unknown) id still work.
-		expect((await call(attachments.GET, { user: world.viewer, params: { id: sheet.id }, path: `/api/sheets/${sheet.id}/attachments?comment=all` })).status).toBe(200);
-		expect((await call(attachments.GET, { user: world.viewer, params: { id: sheet.id }, path: `/api/sheets/${sheet.id}/attachments?comment=${randomUUID()}` })).status).toBe(200);
+		expect(
+			(
+				await call(attachments.GET, {
+					user: world.viewer,
+					params: { id: sheet.id },
+					path: `/api/sheets/${sheet.id}/attachments?comment=all`
+				})
+			).status
+		).toBe(200);
+		expect(
+			(
+				await call(attachments.GET, {
+					user: world.viewer,
+					params: { id: sheet.id },
+					path: `/api/sheets/${sheet.id}/attachments?comment=${randomUUID()}`
+				})
+			).status
+		).toBe(200);
 	});
 
 	it('a junk id in a path is a 400 naming the path parameter; an unknown address a JSON 404', async () => {

@@ -11,7 +11,14 @@ import { FORMULA_START, guardCell, guardCsvFile } from './formula-guard';
 const HOSTILE = ["=cmd|' /C calc'!A0", '-2+3', '\t=1+1', '@SUM(A1)', '+1', '\r=2'];
 
 // A ladder of three RC sections whose resistors and capacitors carry the hostile ids.
-const ids = { r1: HOSTILE[0], c1: HOSTILE[1], r2: HOSTILE[2], c2: HOSTILE[3], r3: HOSTILE[4], c3: HOSTILE[5] };
+const ids = {
+	r1: HOSTILE[0],
+	c1: HOSTILE[1],
+	r2: HOSTILE[2],
+	c2: HOSTILE[3],
+	r3: HOSTILE[4],
+	c3: HOSTILE[5]
+};
 const network = {
 	schema: 1,
 	elements: [
@@ -39,26 +46,36 @@ describe('CSV exports neutralise formula-like cells', () => {
 	it.each([
 		['poles.csv', () => polesCsv(analysis)],
 		['time-constants.csv', () => timeConstantsCsv(analysis)]
-	])('%s: no text cell starts like a formula, and the ids read back behind one apostrophe', (_, make) => {
-		const csv = make();
-		const cells = textCells(csv);
-		expect(cells.length).toBeGreaterThan(0);
-		for (const c of cells) expect(c, JSON.stringify(c)).not.toMatch(FORMULA_START);
-		// The time-constant table lists each capacitor by id; the pole table names owners.
-		const capacitors = [ids.c1, ids.c2, ids.c3];
-		for (const id of capacitors) expect(cells.some((c) => c === `'${id}` || c.startsWith(`'${id} `))).toBe(true);
-	});
+	])(
+		'%s: no text cell starts like a formula, and the ids read back behind one apostrophe',
+		(_, make) => {
+			const csv = make();
+			const cells = textCells(csv);
+			expect(cells.length).toBeGreaterThan(0);
+			for (const c of cells) expect(c, JSON.stringify(c)).not.toMatch(FORMULA_START);
+			// The time-constant table lists each capacitor by id; the pole table names owners.
+			const capacitors = [ids.c1, ids.c2, ids.c3];
+			for (const id of capacitors)
+				expect(cells.some((c) => c === `'${id}` || c.startsWith(`'${id} `))).toBe(true);
+		}
+	);
 
 	it('leaves numbers alone: negative poles stay numeric cells', () => {
 		const { data } = Papa.parse<string[]>(polesCsv(analysis).trim(), { newline: '\r\n' });
-		const re = data.slice(1).filter((r) => r[0] === 'pole').map((r) => Number(r[2]));
+		const re = data
+			.slice(1)
+			.filter((r) => r[0] === 'pole')
+			.map((r) => Number(r[2]));
 		expect(re).toHaveLength(3);
 		for (const v of re) expect(v).toBeLessThan(0);
 		expect(re.map((v) => Math.abs(v))).toEqual(analysis.poles.map((p) => Math.abs(p.re)));
 	});
 
 	it('guards the design sweep table (element ids head columns, messages fill the last)', () => {
-		const csv = metricsCsv([ids.c1, ids.r1], [{ values: [1e-9, 1e3], metrics: null, error: '=HYPERLINK("x")' }]);
+		const csv = metricsCsv(
+			[ids.c1, ids.r1],
+			[{ values: [1e-9, 1e3], metrics: null, error: '=HYPERLINK("x")' }]
+		);
 		for (const c of textCells(csv)) expect(c, JSON.stringify(c)).not.toMatch(FORMULA_START);
 		expect(textCells(csv)).toContain(`'=HYPERLINK("x")`);
 	});

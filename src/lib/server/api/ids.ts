@@ -10,13 +10,18 @@ export const isUuid = (value: unknown): value is string =>
 	typeof value === 'string' && UUID_PATTERN.test(value);
 
 /** What was sent, short enough to quote back. */
-const quote = (value: string) => JSON.stringify(value.length > 40 ? `${value.slice(0, 40)}…` : value);
+const quote = (value: string) =>
+	JSON.stringify(value.length > 40 ? `${value.slice(0, 40)}…` : value);
 
 export function badId(name: string, value: string, where: 'path' | 'query' | 'body'): ApiProblem {
-	return new ApiProblem(400, `${name}: ${quote(value)} is not an id (ids are UUIDs like 3f2b8c1e-…); ${where} parameter "${name}"`, {
-		code: 'bad_id',
-		issues: [{ field: name, message: 'not an id (a UUID)' }]
-	});
+	return new ApiProblem(
+		400,
+		`${name}: ${quote(value)} is not an id (ids are UUIDs like 3f2b8c1e-…); ${where} parameter "${name}"`,
+		{
+			code: 'bad_id',
+			issues: [{ field: name, message: 'not an id (a UUID)' }]
+		}
+	);
 }
 
 /** The value when it is a UUID; a 400 naming `name` otherwise. */

@@ -42,4 +42,4 @@ export function publicOrigin(url: URL): string {
 	return (process.env.ORIGIN ?? url.origin).replace(/\/+$/, '');
 }
 
-export { passwordResetMail, invitationMail, sheetSharedMail } from './templates';
+export { passwordResetMail, invitationMail, sheetSharedMail, signUpConfirmMail, signUpExistingMail } from './templates';

@@ -10,7 +10,12 @@ import { match as isTokenParam } from '../../../params/token';
 
 // The route folders under /api, e.g. ["sheets", "[id=uuid]", "attachments"], read at build time.
 const templates = Object.keys(import.meta.glob('/src/routes/api/**/+server.ts'))
-	.map((file) => file.replace(/^\/src\/routes\/api\/|\/?\+server\.ts$/g, '').split('/').filter(Boolean))
+	.map((file) =>
+		file
+			.replace(/^\/src\/routes\/api\/|\/?\+server\.ts$/g, '')
+			.split('/')
+			.filter(Boolean)
+	)
 	.filter((t) => !t.some((s) => s.startsWith('[...')));
 
 const matchers: Record<string, (value: string) => boolean> = {
@@ -27,7 +32,8 @@ function badParameter(segments: string[]) {
 		const fits = template.every((part, i) => {
 			const param = /^\[(\w+)=(\w+)\]$/.exec(part);
 			if (!param) return part === segments[i] || /^\[\w+\]$/.test(part);
-			if (!bad && !(matchers[param[2]]?.(segments[i]) ?? true)) bad = { name: param[1], kind: param[2], value: segments[i] };
+			if (!bad && !(matchers[param[2]]?.(segments[i]) ?? true))
+				bad = { name: param[1], kind: param[2], value: segments[i] };
 			return true;
 		});
 		if (fits && bad) return bad as { name: string; kind: string; value: string };
@@ -42,7 +48,12 @@ const answer: RequestHandler = ({ params }) => {
 		const e = badId(bad.name, bad.value, 'path');
 		return problem(400, e.message, e.details);
 	}
-	if (bad?.kind === 'revision') return problem(400, `${bad.name}: a revision number is a whole number from 1 (path parameter "${bad.name}")`, { code: 'bad_parameter' });
+	if (bad?.kind === 'revision')
+		return problem(
+			400,
+			`${bad.name}: a revision number is a whole number from 1 (path parameter "${bad.name}")`,
+			{ code: 'bad_parameter' }
+		);
 	// A malformed share or invitation token is simply not found, like an unknown one.
 	return problem(404, 'No such API address. See docs/api.md for the routes.');
 };
