@@ -37,6 +37,7 @@ export function polesCsv(a: Analysis): string {
 			p.q,
 			p.zeta,
 			p.tau,
+			p.estimate?.method,
 			p.estimate?.element,
 			p.estimate?.tau,
 			p.estimate?.hz,
@@ -60,6 +61,7 @@ export function polesCsv(a: Analysis): string {
 			null,
 			null,
 			null,
+			null,
 			z.cancels === null ? null : `pole ${z.cancels + 1}`
 		])
 	);
@@ -73,6 +75,7 @@ export function polesCsv(a: Analysis): string {
 			'q',
 			'zeta',
 			'tau_s',
+			'estimate_method',
 			'estimate_element',
 			'estimate_tau_s',
 			'estimate_hz',
@@ -94,6 +97,8 @@ export function timeConstantsCsv(a: Analysis): string {
 		return [
 			o.element,
 			kinds.get(o.element) ?? null,
+			o.members.join(' '),
+			o.value,
 			o.resistance,
 			o.tau,
 			s?.resistance,
@@ -106,6 +111,8 @@ export function timeConstantsCsv(a: Analysis): string {
 		[
 			'element',
 			'kind',
+			'members',
+			'value',
 			'open_circuit_resistance_ohm',
 			'open_circuit_tau_s',
 			'short_circuit_resistance_ohm',
