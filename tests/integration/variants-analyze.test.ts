@@ -4,6 +4,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import type { RequestEvent } from '@sveltejs/kit';
 import { POST } from '../../src/routes/api/analyze/+server';
 import { closeAnalysisPool } from '../../src/lib/server/jobs/analysis-pool';
+import type { NetworkDocument } from '../../src/lib/network/schema';
+import type { VariantSet } from '../../src/lib/network/variant-schema';
 
 afterAll(closeAnalysisPool);
 
@@ -38,7 +40,7 @@ const doc = {
 			{ name: 'Load', options: [{ name: 'open' }, { name: 'loaded', present: ['RL'] }] }
 		]
 	}
-};
+} as NetworkDocument & { variants: VariantSet };
 const pole = (a: { poles: { re: number }[] }) => -a.poles[0].re;
 const rel = (a: number, b: number) => Math.abs(a - b) / b;
 
@@ -87,10 +89,9 @@ describe('POST /api/analyze with variants', () => {
 
 	it('a variant the solver refuses has its error; the others still analyse', async () => {
 		const broken = structuredClone(doc);
-		(broken.variants.groups[1].options[1] as { absent?: string[] }).absent = ['C1'];
-		(broken.variants.groups[1].options[1] as { present?: string[] }).present = ['RL'];
+		broken.variants.groups[1].options[1].absent = ['C1'];
 		broken.variants.groups[1].options[1].name = 'no cap';
-		broken.variants.groups[0].options[0] = { name: 'x1', absent: ['V1'] } as never;
+		broken.variants.groups[0].options[0] = { name: 'x1', absent: ['V1'] };
 		const { variants } = await (await call(broken, '?variants=all')).json();
 		const first = variants[0];
 		expect(first.analysis).toBeNull();

@@ -1,9 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { networkDocumentSchema } from './schema';
+import { networkDocumentSchema, type NetworkDocument } from './schema';
+import type { VariantSet } from './variant-schema';
 import { baseNetwork, findVariant, listVariants, overridesOf, resolveVariant } from './variants';
 import { analyze, SolverError, validateNetwork } from '../solver';
 
 // A small range switch with a cable: parts a position puts in, parts it takes out, values it sets.
+type Doc = NetworkDocument & { variants: VariantSet };
 const doc = {
 	schema: 1 as const,
 	title: 'switch',
@@ -30,7 +32,7 @@ const doc = {
 			{ name: 'Cable', options: [{ name: '1.2 m' }, { name: '2 m', values: { Ccable: '70p' } }] }
 		]
 	}
-};
+} as Doc;
 
 describe('variants: listing and resolving', () => {
 	it('passes the shape check and lists every combination, first group slowest', () => {
@@ -59,7 +61,7 @@ describe('variants: listing and resolving', () => {
 		expect(byId.Rtop.value).toBe('9.99M');
 		expect(byId.Rsh.value).toBe('10.1k');
 		expect(byId.Ccable.value).toBe('70p');
-		expect(byId.Rload).toEqual(doc.elements[3]); // the role field and all else kept
+		expect(byId.Rload).toBe(doc.elements[3]); // the role field and all else kept
 		const base = resolveVariant(doc, '10:1 · 1.2 m');
 		expect(base.elements.map((e) => e.id)).toEqual(['V1', 'Rtop', 'Rload', 'Ccable']);
 		expect(baseNetwork(doc)).toEqual(base);
@@ -95,13 +97,13 @@ describe('variants: listing and resolving', () => {
 		a.variants.groups[0].options[1].present = ['Rtop'];
 		expect(() => listVariants(a)).toThrow(/"Rtop" is present in the base already/);
 		const b = structuredClone(doc);
-		(b.variants.groups[0].options[1] as { absent?: string[] }).absent = ['Rsh'];
+		b.variants.groups[0].options[1].absent = ['Rsh'];
 		expect(() => listVariants(b)).toThrow(/"Rsh" is listed as both absent and present/);
 	});
 
 	it('two groups setting the same value is an error naming both options', () => {
 		const c = structuredClone(doc);
-		c.variants.groups[1].options[1].values = { Rtop: '8M' } as never;
+		c.variants.groups[1].options[1].values = { Rtop: '8M' };
 		expect(() => resolveVariant(c, '100:1 · 2 m')).toThrow(
 			'"Range: 100:1" and "Cable: 2 m" both set the value of Rtop; set it in one group only'
 		);
@@ -111,7 +113,7 @@ describe('variants: listing and resolving', () => {
 
 	it('two groups disagreeing about a part being in the network is an error', () => {
 		const c = structuredClone(doc);
-		(c.variants.groups[1].options[1] as { absent?: string[] }).absent = ['Rsh'];
+		c.variants.groups[1].options[1].absent = ['Rsh'];
 		expect(() => overridesOf(c, [1, 1])).toThrow(/disagree whether Rsh is in the network/);
 	});
 
@@ -127,7 +129,7 @@ describe('variants: listing and resolving', () => {
 		many.variants.groups = [
 			{ name: 'A', options: opts },
 			{ name: 'B', options: opts }
-		] as never;
+		];
 		expect(() => listVariants(many)).toThrow('the variant groups make 49 combinations; the limit is 36');
 	});
 });
