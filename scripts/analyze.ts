@@ -56,9 +56,9 @@ function renderTable(a: Analysis): string {
 			String(i + 1),
 			f(p.re) + im,
 			f(p.hz, 'Hz'),
-			p.q === null ? '—' : p.q.toPrecision(4),
+			p.q === null ? (p.im === 0 ? 'real' : '—') : p.q.toPrecision(4),
 			f(p.tau, 's'),
-			p.estimate?.hz == null ? '—' : `${f(p.estimate.hz, 'Hz')} (${p.estimate.element})`,
+			p.estimate ? `${f(p.estimate.hz, 'Hz')} (${p.estimate.basis})` : '—',
 			p.relativeError === null ? '—' : `${(p.relativeError * 100).toPrecision(3)} %`,
 			p.owners[0] ? `${p.owners[0].element} ${(p.owners[0].share * 100).toFixed(0)} %` : '—'
 		]);

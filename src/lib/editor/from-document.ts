@@ -33,7 +33,7 @@ export function sameNetwork(a: NetworkDocument, b: NetworkDocument): boolean {
 		const els = [...d.elements].sort((x, y) => (x.id < y.id ? -1 : 1));
 		const lines = els.map(
 			(e) =>
-				`${e.id}|${e.type}|${String(e.value ?? '')}|${e.control ?? ''}|${e.nodes.map(nodeName).join(',')}`
+				`${e.id}|${e.type}|${String(e.value ?? '')}|${e.control ?? ''}|${e.role ?? 'design'}|${e.range ? `${e.range.min}…${e.range.max}` : ''}|${e.nodes.map(nodeName).join(',')}`
 		);
 		lines.push(`out|${nodeName(d.output.node)}|${nodeName(d.output.reference ?? 'gnd')}`);
 		return lines.join('\n');

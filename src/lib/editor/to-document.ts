@@ -40,6 +40,24 @@ export function buildDocument(s: Snapshot): Built {
 			el.value = it.value.trim();
 			const check = checkValue(it.kind, it.value);
 			if (!check.ok) problems.push({ item: it.id, message: `${it.name}: ${check.message}` });
+			if (it.role && it.role !== 'design') el.role = it.role;
+			if (it.role === 'trimmer') {
+				const range = it.range ?? { min: '', max: '' };
+				el.range = { min: range.min.trim(), max: range.max.trim() };
+				const lo = checkValue(it.kind, range.min);
+				const hi = checkValue(it.kind, range.max);
+				const bad = !lo.ok
+					? `range min: ${lo.message}`
+					: !hi.ok
+						? `range max: ${hi.message}`
+						: null;
+				if (bad) problems.push({ item: it.id, message: `${it.name}: ${bad}` });
+				else if (lo.ok && hi.ok && !(lo.value < hi.value))
+					problems.push({
+						item: it.id,
+						message: `${it.name}: the trimmer's range min must be below its max`
+					});
+			}
 		}
 		if (it.kind === 'CCCS' || it.kind === 'CCVS') {
 			if (it.control) el.control = it.control;

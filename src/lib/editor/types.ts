@@ -1,3 +1,4 @@
+import type { PartRole } from '$lib/network/schema';
 import type { ItemKind } from './kinds';
 
 export type Rotation = 0 | 90 | 180 | 270;
@@ -12,6 +13,10 @@ export interface EditorItem {
 	value: string;
 	/** Name of the controlling V element (CCCS / CCVS). */
 	control?: string;
+	/** What the value is to the designer (absent: a design value); see the network schema. */
+	role?: PartRole;
+	/** A trimmer's adjustment range as typed ("5p" … "15p"). */
+	range?: { min: string; max: string };
 	/** Relative tolerance as typed, e.g. "1%"; kept for the design aids. */
 	tolerance?: string;
 	notes?: string;

@@ -35,6 +35,7 @@ export function polesCsv(a: Analysis): string {
 			p.q,
 			p.zeta,
 			p.tau,
+			p.estimate?.method,
 			p.estimate?.element,
 			p.estimate?.tau,
 			p.estimate?.hz,
@@ -58,6 +59,7 @@ export function polesCsv(a: Analysis): string {
 			null,
 			null,
 			null,
+			null,
 			z.cancels === null ? null : `pole ${z.cancels + 1}`
 		])
 	);
@@ -71,6 +73,7 @@ export function polesCsv(a: Analysis): string {
 			'q',
 			'zeta',
 			'tau_s',
+			'estimate_method',
 			'estimate_element',
 			'estimate_tau_s',
 			'estimate_hz',
@@ -92,6 +95,8 @@ export function timeConstantsCsv(a: Analysis): string {
 		return [
 			o.element,
 			kinds.get(o.element) ?? null,
+			o.members.join(' '),
+			o.value,
 			o.resistance,
 			o.tau,
 			s?.resistance,
@@ -104,6 +109,8 @@ export function timeConstantsCsv(a: Analysis): string {
 		[
 			'element',
 			'kind',
+			'members',
+			'value',
 			'open_circuit_resistance_ohm',
 			'open_circuit_tau_s',
 			'short_circuit_resistance_ohm',

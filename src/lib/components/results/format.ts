@@ -36,3 +36,21 @@ export const plain = (v: number | null | undefined, digits = 4) =>
 		: Math.abs(v) < 1e-9
 			? '≈ 0'
 			: Number(v.toPrecision(digits)).toString();
+
+/** How an estimate was made, in words a designer reads beside the number. */
+export function estimateMethod(e: {
+	method: string;
+	basis: string;
+	element: string | null;
+}): string {
+	switch (e.method) {
+		case 'b1':
+			return '1/b1, b1 = Σ τ open';
+		case 'ratio':
+			return `coefficient ratio ${e.basis}`;
+		case 'two-pole':
+			return 'root of 1 + b1·s + b2·s²';
+		default:
+			return `sequential, port ${e.element}`;
+	}
+}
