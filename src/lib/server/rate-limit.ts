@@ -5,6 +5,7 @@
 import { json } from '@sveltejs/kit';
 import { QueryTypes } from 'sequelize';
 import { db } from './db/connection';
+import { config } from './config';
 
 export interface RateRule {
 	name: string;
@@ -23,7 +24,13 @@ export const RULES = {
 	resetAddress: { name: 'reset:address', points: 10, windowSeconds: 60 * MINUTES },
 	/** New accounts per client address. Configurable because the browser test suite signs up
 	 * many people from 127.0.0.1 within one hour (npm test raises it for that run only). */
-	signUpAddress: { name: 'sign-up:address', points: Number(process.env.POLEWISE_SIGNUPS_PER_HOUR) || 10, windowSeconds: 60 * MINUTES },
+	signUpAddress: {
+		name: 'sign-up:address',
+		get points() {
+			return config().signupsPerHour;
+		},
+		windowSeconds: 60 * MINUTES
+	},
 	/** Requests with an unknown or revoked API token, per client address. */
 	badTokenAddress: { name: 'api-token:address', points: 30, windowSeconds: 15 * MINUTES }
 } satisfies Record<string, RateRule>;

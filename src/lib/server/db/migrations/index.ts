@@ -7,6 +7,7 @@ import * as m0003 from './0003-sharing';
 import * as m0004 from './0004-design';
 import * as m0005 from './0005-review';
 import * as m0006 from './0006-exchange';
+import * as m0007 from './0007-job-recovery';
 
 export interface Migration {
 	name: string;
@@ -20,5 +21,6 @@ export const migrations: Migration[] = [
 	{ name: '0003-sharing', ...m0003 },
 	{ name: '0004-design', ...m0004 },
 	{ name: '0005-review', ...m0005 },
-	{ name: '0006-exchange', ...m0006 }
+	{ name: '0006-exchange', ...m0006 },
+	{ name: '0007-job-recovery', ...m0007 }
 ];
