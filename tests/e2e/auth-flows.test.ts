@@ -2,6 +2,7 @@
 // from the local catcher's inbox.
 import { expect, test, type Page } from '@playwright/test';
 import { artifact } from './artifacts';
+import { finishSignUp } from './editor-helpers';
 
 const inbox = process.env.MAIL_INBOX_URL;
 
@@ -38,6 +39,7 @@ test('sign up, sign out, sign in, a wrong password, then forget it and reset it 
 	await expect(page.getByLabel('Your name')).toHaveValue('Ines Varga');
 	await page.getByLabel('Password').fill('first password 123');
 	await page.getByRole('button', { name: 'Create account' }).click();
+	await finishSignUp(page, email);
 	await expect(page).toHaveURL(/\/workspaces$/);
 	await expect(header.getByText('Ines Varga')).toBeVisible();
 
