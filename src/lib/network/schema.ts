@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ELEMENT_LIMIT } from './limits';
 
 /**
  * The network JSON document (schema 1), shared by the analysis route, the editor and the solver.
@@ -54,7 +55,7 @@ export const elementSchema = z.object({
 export const networkDocumentSchema = z.object({
 	schema: z.literal(1),
 	title: z.string().max(200).optional(),
-	elements: z.array(elementSchema).max(5000),
+	elements: z.array(elementSchema).max(ELEMENT_LIMIT),
 	input: z.string().min(1),
 	output: z.object({
 		node: z.union([z.string().min(1), z.number().int()]),
