@@ -3,17 +3,19 @@ import type { ServerInit } from '@sveltejs/kit';
 import { building } from '$app/environment';
 import { themeHandle } from '$lib/server/theme';
 import { authHandle } from '$lib/server/auth/handle';
-import { startDesignRunnerAtBoot, stopDesignQueue } from '$lib/server/jobs/design-queue';
+import { startJobRunnerAtBoot, stopJobRunner } from '$lib/server/jobs/all-kinds';
+import { takesJobs } from '$lib/server/config';
 
 export const handle = sequence(authHandle, themeHandle);
 
-// Once per server process (SvelteKit guards against repeats): take tolerance runs from the
-// queue right away, so a job queued before a restart does not wait for a design request. Not
+// Once per server process (SvelteKit guards against repeats), unless POLEWISE_ROLE=web (jobs
+// then run in worker processes): take jobs from the queue right away, so a job queued before a
+// restart does not wait for a design request. Not
 // awaited, so a slow or absent database never holds up serving pages; `vite build` (which may
 // load this file to prerender) is left out.
 export const init: ServerInit = () => {
-	if (building) return;
-	void startDesignRunnerAtBoot();
-	// adapter-node emits this on SIGINT/SIGTERM: let a running chunk finish and release the job.
-	process.once('sveltekit:shutdown', () => void stopDesignQueue().catch(() => {}));
+	if (building || !takesJobs()) return;
+	void startJobRunnerAtBoot();
+	// adapter-node emits this on SIGINT/SIGTERM: hand a running job back to the queue.
+	process.once('sveltekit:shutdown', () => void stopJobRunner().catch(() => {}));
 };

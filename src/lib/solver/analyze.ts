@@ -18,6 +18,9 @@ import { checkedZeros } from './zero-check';
 import { expansion } from './expansion';
 import { evalPz, logSpace, pzForm, type PzForm } from './frequency-response';
 import { poleInfo } from './pole-info';
+import { denominatorForEstimates } from './pole-estimates';
+import { groupReactivePorts, withMembers } from './reactive-ports';
+import { resistanceFormulas } from './resistance-formulas';
 import { portMatrices } from './port-matrices';
 import { portModelFrom } from './port-model';
 import { sequentialTimeConstants } from './sequential';
@@ -33,24 +36,28 @@ import {
 import { validateNetwork } from './validate';
 import { analysisWarnings, pairPolesAndZeros } from './warnings';
 import { frequencyRange, numeratorScale } from './response-range';
-import type { Analysis, AnalyzeOptions, Warning } from './types';
+import type { Analysis, AnalyzeOptions, ResistanceFormula, Warning } from './types';
 import { SolverError } from './errors';
 
 const nullIfBad = (x: number) => (Number.isFinite(x) ? x : null);
+const withFormulas = <T>(list: T[], formulas: ResistanceFormula[]) =>
+	list.map((t, i) => ({ ...t, formula: formulas[i] }));
 
 /** Validate, then compute everything; see docs/network-format.md "Analysis result". */
 export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	const started = performance.now();
 	const net = validateNetwork(doc);
 	const extra: Warning[] = [];
-	const ocPorts = openCircuitPorts(net);
-	const oc = openCircuitTimeConstants(net, ocPorts);
+	// The time-constant views work on ports (node pairs); the poles on the elements themselves.
+	const { net: tcNet, ports } = groupReactivePorts(net);
+	const ocPorts = openCircuitPorts(tcNet);
+	const oc = openCircuitTimeConstants(tcNet, ocPorts);
 	// Larger RC networks: the diagonal of H⁻¹ by Cholesky (short-circuit-rc.ts). Otherwise the
 	// direct infinite-value configuration: with banded factorization (lu.ts) it costs less than
 	// inverting the whole m×m port matrix (K = −H⁻¹, 9× slower at m = 1000), exact by structure.
-	const viaRC = shortCircuitTimeConstantsRC(net, ocPorts);
-	const scPorts = viaRC ? null : shortCircuitPorts(net);
-	const sc = viaRC ?? shortCircuitTimeConstants(net, scPorts!);
+	const viaRC = shortCircuitTimeConstantsRC(tcNet, ocPorts);
+	const scPorts = viaRC ? null : shortCircuitPorts(tcNet);
+	const sc = viaRC ?? shortCircuitTimeConstants(tcNet, scPorts!);
 	for (const [ports, config] of [
 		[ocPorts, 'open-circuit (zero-value)'],
 		[scPorts, 'short-circuit (infinite-value)']
@@ -70,7 +77,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 				'the resistive network has no unique DC solution; its time constants are reported as unknown (null)'
 		});
 	}
-	const sequential = net.reactive.length ? sequentialTimeConstants(net, ocPorts) : [];
+	const sequential = net.reactive.length ? sequentialTimeConstants(tcNet, ocPorts) : [];
 
 	let roots: Root[] = [];
 	let zeroRoots: Root[] = [];
@@ -147,7 +154,12 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	const order = roots.map((_, i) => i).sort((i, j) => byMagnitude(roots[i], roots[j]));
 	const poleAtZero = roots.some((r) => r.re === 0 && r.im === 0);
 	const dcGain = poleAtZero || ocPorts.singular ? null : nullIfBad(ocPorts.h0);
-	const poles = poleInfo(net, roots, order, sequential, elementsOfPorts);
+	const b = denominatorForEstimates(
+		oc,
+		ocPorts,
+		order.map((i) => roots[i])
+	);
+	const poles = poleInfo(net, roots, order, sequential, elementsOfPorts, b);
 	const zeros: Analysis['zeros'] = zeroRoots
 		.slice()
 		.sort(byMagnitude)
@@ -217,7 +229,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		freq && options.impedanceCurve !== false ? sw.points.map((p) => impedance(p, vInput)) : [];
 	const exp =
 		net.reactive.length && options.expansion !== false
-			? expansion(net, ocPorts, roots, zeroRoots, numeratorScale(pz, roots, zeroRoots, dcGain))
+			? expansion(tcNet, ocPorts, roots, zeroRoots, numeratorScale(pz, roots, zeroRoots, dcGain))
 			: null;
 
 	const result: Omit<Analysis, 'warnings' | 'meta'> = {
@@ -227,8 +239,19 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		pairs,
 		dcGain,
 		highFrequencyGain: inf.value,
-		timeConstants: { openCircuit: oc, shortCircuit: sc, sequential },
-		portMatrices: portMatrices(net, ocPorts),
+		timeConstants: {
+			openCircuit: withFormulas(withMembers(net, ports, oc), resistanceFormulas(tcNet, 'open', oc)),
+			shortCircuit: withFormulas(
+				withMembers(net, ports, sc),
+				resistanceFormulas(tcNet, 'short', sc)
+			),
+			sequential: withMembers(net, ports, sequential).map(({ value: _, ...s }) => s)
+		},
+		portMatrices: portMatrices(
+			tcNet,
+			ocPorts,
+			ports.map((p) => p.members.map((k) => net.elements[k].id))
+		),
 		expansion: exp,
 		frequencyResponse,
 		bandwidth: bw,

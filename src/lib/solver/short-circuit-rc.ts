@@ -1,6 +1,6 @@
 import type { DcPorts } from './dc-ports';
 import { hasStructuralExtreme, SC_FROM_OC_ABOVE } from './time-constants';
-import type { ResolvedNetwork, TimeConstant } from './types';
+import type { ResolvedNetwork, PortReading } from './types';
 
 /**
  * Short-circuit time constants of an RC network straight from the zero-value port matrix.
@@ -22,7 +22,7 @@ const RECIPROCAL = new Set(['R', 'C', 'L', 'V', 'I']);
 export function shortCircuitTimeConstantsRC(
 	net: ResolvedNetwork,
 	oc: DcPorts
-): TimeConstant[] | null {
+): PortReading[] | null {
 	const m = oc.m;
 	if (m <= SC_FROM_OC_ABOVE || oc.singular || oc.infinite.some((x) => x)) return null;
 	if (oc.elements.some((k) => net.elements[k].type !== 'C')) return null;

@@ -3,7 +3,7 @@ import { luFactor, luSolve } from './lu';
 import { edgesOnLoops } from './loop-edges';
 import { branchNodes } from './topology';
 import { UnionFind } from './union-find';
-import type { ResolvedNetwork, TimeConstant } from './types';
+import type { ResolvedNetwork, PortReading } from './types';
 
 /** Zero-value configuration: every capacitor open, every inductor shorted; all are ports. */
 export function openCircuitPorts(net: ResolvedNetwork): DcPorts {
@@ -22,7 +22,7 @@ const finite = (x: number) => (Number.isFinite(x) ? x : null);
  * an inductor port reads the branch current per volt, which is −1/R seen. With d = C or −L,
  * τ = d·Hkk in both cases, and Σ τ is the trace of the time-constant matrix.
  */
-export function openCircuitTimeConstants(net: ResolvedNetwork, oc: DcPorts): TimeConstant[] {
+export function openCircuitTimeConstants(net: ResolvedNetwork, oc: DcPorts): PortReading[] {
 	return oc.elements.map((k, i) => {
 		const e = net.elements[k];
 		const hkk = oc.H[i * oc.m + i];
@@ -42,7 +42,7 @@ export function openCircuitTimeConstants(net: ResolvedNetwork, oc: DcPorts): Tim
  * Short-circuit (infinite-value) time constants: the capacitor port is now a voltage port
  * (reading −1/R), the inductor port a current port (reading R); τ = −d / Kkk in both cases.
  */
-export function shortCircuitTimeConstants(net: ResolvedNetwork, sc: DcPorts): TimeConstant[] {
+export function shortCircuitTimeConstants(net: ResolvedNetwork, sc: DcPorts): PortReading[] {
 	return sc.elements.map((k, i) => {
 		const e = net.elements[k];
 		const kkk = sc.H[i * sc.m + i];

@@ -46,26 +46,92 @@ export interface Singularity {
 	im: number;
 	/** |s| / 2π */
 	hz: number;
-	/** |s| / (−2 re); null for a pole or zero at the origin or on the jω axis. */
+	/** |s| / (−2 re) for a complex pair; null for a real root (Q belongs to a pair) and on the jω axis. */
 	q: number | null;
-	/** −re / |s|; null at the origin. */
+	/** −re / |s| for a complex pair; null for a real root. */
 	zeta: number | null;
+	/** |s| in rad/s for a complex pair (its undamped natural frequency); null for a real root. */
+	omega0: number | null;
 	/** −1 / re; null where re = 0. */
 	tau: number | null;
 }
 
+/**
+ * A quick estimate of one exact pole (docs/methods.md, "Estimates of each pole"):
+ * - `b1`: the dominant pole as −1/b1, b1 = Σ τ open;
+ * - `ratio`: the k-th pole as −b(k−1)/b(k), ratios of successive denominator coefficients;
+ * - `two-pole`: a root of 1 + b1·s + b2·s² (the denominator cut after s²);
+ * - `sequential`: −1/τ of the k-th port the largest-first sequence chose.
+ */
+export type EstimateMethod = 'b1' | 'ratio' | 'two-pole' | 'sequential';
+
+export interface PoleEstimate {
+	method: EstimateMethod;
+	/** What it is computed from, for people: "1/b1", "b1/b2", "1 + b1·s + b2·s²", "port Ctop". */
+	basis: string;
+	/** The port the sequential estimate names; null for the coefficient methods. */
+	element: string | null;
+	/** Estimated pole, rad/s (im ≠ 0 only for a two-pole estimate of a complex pair). */
+	re: number;
+	im: number;
+	hz: number;
+	/** −1/re for a real estimate, else null. */
+	tau: number | null;
+	/** |estimate − pole| / |pole|. */
+	relativeError: number;
+}
+
 export interface PoleInfo extends Singularity {
-	estimate: { element: string; tau: number | null; re: number | null; hz: number | null } | null;
-	/** |estimate − pole| / |pole| (real estimate against the complex pole). */
+	/** The headline estimate: the simplest within 2 % of the pole, else the closest; null when none exists. */
+	estimate: PoleEstimate | null;
+	/** Every estimate there is for this pole, headline first, then by error. */
+	estimates: PoleEstimate[];
+	/** The headline estimate's relative error (null without an estimate). */
 	relativeError: number | null;
 	owners: { element: string; share: number }[];
 	/** Index into `zeros` of a zero closer than 1 %, or null. */
 	cancelledBy: number | null;
 }
 
-export interface TimeConstant {
+/** One port's reading in a DC configuration, as the time-constant steps compute it. */
+export interface PortReading {
+	/** The port: a lone element's id, or its members' ids joined by " + " (docs/network-format.md). */
 	element: string;
 	resistance: number | null;
+	tau: number | null;
+}
+
+/**
+ * How the resistance a port sees is made up (resistance-formulas.ts): a series–parallel formula
+ * of element names and its value; or why there is none — no DC path (`open`, value null = ∞),
+ * shorted terminals (`short`, value 0), a bridge or a controlled source (`not-series-parallel`,
+ * value from the solver and the resistors that matter most); `not-computed` above 200 ports or
+ * 80 000 port × resistor pairs (value from the solver).
+ */
+export interface ResistanceFormula {
+	kind: 'series-parallel' | 'open' | 'short' | 'not-series-parallel' | 'not-computed';
+	/** "Rtop ∥ (Rsrc + Radc)"; null unless series–parallel. */
+	formula: string | null;
+	/** Ohms; null where infinite or unknown. */
+	value: number | null;
+	/** Why there is no formula; null when there is one. */
+	reason: string | null;
+	/** Not series–parallel: the resistors with the largest normalized sensitivity (∂R/∂r)(r/R), at most 3. */
+	influence: { element: string; sensitivity: number }[];
+}
+
+export interface TimeConstant extends PortReading {
+	/** Element ids of the port, document order. */
+	members: string[];
+	/** Total capacitance or inductance of the port (SI units). */
+	value: number;
+	/** The resistance seen, as a formula of element names (or why not). */
+	formula: ResistanceFormula;
+}
+
+export interface SequentialStep {
+	element: string;
+	members: string[];
 	tau: number | null;
 }
 
@@ -95,10 +161,12 @@ export interface Analysis {
 	timeConstants: {
 		openCircuit: TimeConstant[];
 		shortCircuit: TimeConstant[];
-		sequential: { element: string; tau: number | null }[];
+		sequential: SequentialStep[];
 	};
 	portMatrices: {
 		ports: string[];
+		/** Element ids of each port. */
+		members: string[][];
 		kinds: ('C' | 'L')[];
 		R: (number | null)[][];
 		C: number[][];

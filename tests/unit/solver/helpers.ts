@@ -1,6 +1,8 @@
 import { expect } from 'vitest';
 
-export { el, net, type El } from './build';
+import { el, net, type El } from './build';
+
+export { el, net, type El };
 
 export const rel = (a: number, b: number) => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
 
@@ -61,3 +63,17 @@ export function quadratic(a: number, b: number, c: number): { re: number; im: nu
 		{ re, im: -im }
 	];
 }
+
+/** The 10:1 probe of the closed-form tests: 9 MΩ ∥ 10 pF over 1 MΩ ∥ `input` (default 90 pF), from 50 Ω. */
+export const probe10x = (input: El[] = [el('Cin', 'C', ['b', 'gnd'], '90p')]) =>
+	net(
+		[
+			el('Vin', 'V', ['src', 'gnd'], 1),
+			el('Rsrc', 'R', ['src', 'a'], '50'),
+			el('Rt', 'R', ['a', 'b'], '9M'),
+			el('Ct', 'C', ['a', 'b'], '10p'),
+			el('Rin', 'R', ['b', 'gnd'], '1M'),
+			...input
+		],
+		'b'
+	);
