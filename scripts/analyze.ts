@@ -1,13 +1,32 @@
 /**
- * `npm run -s analyze -- FILE.json [--table] [--poles N] [--near S] [--full] [--dense|--sparse]`:
- * the solver from a terminal. Large networks (above the interactive size) answer with their N
- * dominant poles (default 10) and every open-circuit time constant; --full adds the responses.
+ * `npm run -s analyze -- FILE.json [--table] [--variant NAME | --variants]`: the solver from a
+ * terminal. A document with variants analyses as its base network unless one variant is named
+ * (`--variant "100:1 · 2 m cable"`) or all are asked for (`--variants`: JSON
+ * `{ variants: [{ name, options, analysis, error }] }`, or one table per variant after a
+ * side-by-side table of the key figures).
+ * Large networks (above the interactive size) answer with their N dominant poles (--poles N,
+ * default 10; --near S for the ones nearest a shift S rad/s) and every open-circuit time
+ * constant; --full adds the responses; --dense / --sparse force a back end.
  * stdout carries only the result (JSON, or the table with --table); every message goes to
  * stderr as one line. Exit 2 for input the user can fix (bad file, bad network), 1 for a fault.
  */
 import { readFileSync } from 'node:fs';
-import { analyze, formatEngineering, SolverError, type Analysis } from '../src/lib/solver/index';
+import {
+	analyze,
+	formatEngineering,
+	SolverError,
+	type Analysis,
+	type AnalyzeOptions
+} from '../src/lib/solver/index';
 import { INTERACTIVE_ELEMENT_LIMIT } from '../src/lib/network/limits';
+import {
+	findVariant,
+	listVariants,
+	resolveVariant,
+	VariantError,
+	type VariantInfo
+} from '../src/lib/network/variants';
+import { networkDocumentSchema, type NetworkDocument } from '../src/lib/network/schema';
 
 function fail(code: number, message: string): never {
 	process.stderr.write(message.replace(/\s+/g, ' ').trim() + '\n');
@@ -15,27 +34,48 @@ function fail(code: number, message: string): never {
 }
 
 const USAGE =
-	'usage: analyze FILE.json [--table] [--poles N] [--near RAD_PER_S] [--full] [--dense|--sparse]';
+	'usage: analyze FILE.json [--table] [--variant NAME | --variants] [--poles N] [--near RAD_PER_S] [--full] [--dense | --sparse]';
 const args = process.argv.slice(2);
-const flags = new Set(['--table', '--full', '--dense', '--sparse']);
-const valued = new Set(['--poles', '--near']);
-const files: string[] = [];
-const values = new Map<string, number>();
-for (let i = 0; i < args.length; i++) {
-	const a = args[i];
-	if (valued.has(a)) {
-		const v = Number(args[++i]);
-		if (args[i] === undefined || !Number.isFinite(v)) fail(2, `${a} needs a number (${USAGE})`);
-		if (a === '--poles' && !(Number.isInteger(v) && v >= 1 && v <= 500))
-			fail(2, '--poles takes a whole number from 1 to 500');
-		if (a === '--near' && v < 0) fail(2, '--near takes a shift ≥ 0 in rad/s');
-		values.set(a, v);
-	} else if (flags.has(a)) values.set(a, 1);
-	else if (a.startsWith('--')) fail(2, `unknown option ${a} (${USAGE})`);
-	else files.push(a);
+const table = args.includes('--table');
+const allVariants = args.includes('--variants');
+const variantAt = args.indexOf('--variant');
+const variantName = variantAt >= 0 ? args[variantAt + 1] : undefined;
+if (variantAt >= 0 && (variantName === undefined || variantName.startsWith('--')))
+	fail(2, `--variant needs the variant's name (${USAGE})`);
+if (variantAt >= 0 && allVariants) fail(2, `name one variant or ask for all, not both (${USAGE})`);
+// Options that take a number: --poles N (how many dominant poles), --near S (nearest which shift).
+const numbers = new Map<string, number>();
+const valueAt = new Set<number>(variantAt >= 0 ? [variantAt + 1] : []);
+for (const name of ['--poles', '--near']) {
+	const at = args.indexOf(name);
+	if (at < 0) continue;
+	const v = Number(args[at + 1]);
+	if (args[at + 1] === undefined || !Number.isFinite(v))
+		fail(2, `${name} needs a number (${USAGE})`);
+	if (name === '--poles' && !(Number.isInteger(v) && v >= 1 && v <= 500))
+		fail(2, '--poles takes a whole number from 1 to 500');
+	if (name === '--near' && v < 0) fail(2, '--near takes a shift ≥ 0 in rad/s');
+	numbers.set(name, v);
+	valueAt.add(at + 1);
 }
+const positional = args.filter((a, i) => !a.startsWith('--') && !valueAt.has(i));
+const files = positional;
+const known = [
+	'--table',
+	'--variant',
+	'--variants',
+	'--poles',
+	'--near',
+	'--full',
+	'--dense',
+	'--sparse'
+];
+const unknown = args.filter((a, i) => a.startsWith('--') && !valueAt.has(i) && !known.includes(a));
+if (unknown.length) fail(2, `unknown option ${unknown[0]} (${USAGE})`);
 if (files.length !== 1) fail(2, USAGE);
-const table = values.has('--table');
+if (args.includes('--dense') && args.includes('--sparse'))
+	fail(2, `--dense or --sparse, not both (${USAGE})`);
+
 let text: string;
 try {
 	text = readFileSync(files[0], 'utf8');
@@ -49,29 +89,131 @@ try {
 	fail(2, `${files[0]} is not valid JSON: ${(e as Error).message}`);
 }
 
-// A large network (the sparse back end) answers with its dominant poles and every open-circuit
-// time constant by default, within the time targets of docs/performance.md; --full adds the
-// frequency response and the step response.
-const count = (doc as { elements?: unknown[] })?.elements?.length ?? 0;
-const backend = values.has('--dense') ? 'dense' : values.has('--sparse') ? 'sparse' : 'auto';
-const large = backend === 'sparse' || (backend === 'auto' && count > INTERACTIVE_ELEMENT_LIMIT);
-const quick = large && !values.has('--full');
-let result: Analysis;
-try {
-	result = analyze(doc, {
+/**
+ * A large network (above the interactive size, or --sparse) answers with its dominant poles and
+ * every open-circuit time constant by default, within the time targets of docs/performance.md;
+ * --full adds the frequency response and the step response.
+ */
+function optionsFor(d: unknown): AnalyzeOptions {
+	const count = (d as { elements?: unknown[] })?.elements?.length ?? 0;
+	const backend = args.includes('--dense')
+		? 'dense'
+		: args.includes('--sparse')
+			? 'sparse'
+			: 'auto';
+	const large = backend === 'sparse' || (backend === 'auto' && count > INTERACTIVE_ELEMENT_LIMIT);
+	return {
 		backend,
-		dominant: { count: values.get('--poles'), near: values.get('--near') },
-		...(quick ? { frequency: false as const, step: false as const } : {})
-	});
-} catch (e) {
-	if (e instanceof SolverError) fail(2, `${files[0]}: ${e.message}`);
-	fail(1, `internal error: ${(e as Error)?.stack?.split('\n')[0] ?? String(e)}`);
+		dominant: { count: numbers.get('--poles'), near: numbers.get('--near') },
+		...(large && !args.includes('--full')
+			? { frequency: false as const, step: false as const }
+			: {})
+	};
 }
 
+function analyzeOrFail(d: unknown, where: string): Analysis {
+	try {
+		return analyze(d, optionsFor(d));
+	} catch (e) {
+		if (e instanceof SolverError) fail(2, `${where}: ${e.message}`);
+		fail(1, `internal error: ${(e as Error)?.stack?.split('\n')[0] ?? String(e)}`);
+	}
+}
+
+if (variantName !== undefined || allVariants) {
+	// The base document is checked whole first, so a broken variant block is named up front.
+	analyzeOrFail(doc, files[0]);
+	const parsed = networkDocumentSchema.parse(doc);
+	let chosen: VariantInfo[];
+	try {
+		chosen = allVariants ? listVariants(parsed) : [findVariant(parsed, variantName!)];
+	} catch (e) {
+		if (e instanceof VariantError) fail(2, `${files[0]}: ${e.message}`);
+		throw e;
+	}
+	if (allVariants && chosen.length === 0) fail(2, `${files[0]}: the network has no variants`);
+	const outcomes = chosen.map((v) => outcomeOf(parsed, v));
+	if (!allVariants) {
+		const [o] = outcomes;
+		if (!o.analysis) fail(2, `${files[0]}: variant "${o.name}": ${o.error!.error}`);
+		process.stdout.write(table ? renderTable(o.analysis) : JSON.stringify(o.analysis) + '\n');
+	} else if (!table) {
+		process.stdout.write(JSON.stringify({ variants: outcomes }) + '\n');
+	} else {
+		process.stdout.write(renderSideBySide(outcomes));
+		for (const o of outcomes)
+			process.stdout.write(
+				`\n=== ${o.name} ===\n` +
+					(o.analysis ? renderTable(o.analysis) : `refused: ${o.error!.error}\n`)
+			);
+	}
+	process.exit(0);
+}
+
+const result = analyzeOrFail(doc, files[0]);
 if (!table) {
 	process.stdout.write(JSON.stringify(result) + '\n');
 } else {
 	process.stdout.write(renderTable(result));
+}
+
+interface Outcome {
+	name: string;
+	options: string[];
+	analysis: Analysis | null;
+	error: { error: string; code: string; element?: string; node?: string } | null;
+}
+
+/** One variant's analysis; a variant the solver refuses keeps its error, the others go on. */
+function outcomeOf(parsed: NetworkDocument, v: VariantInfo): Outcome {
+	try {
+		return {
+			name: v.name,
+			options: v.options,
+			analysis: analyze(resolveVariant(parsed, v), optionsFor(parsed)),
+			error: null
+		};
+	} catch (e) {
+		if (e instanceof SolverError || e instanceof VariantError) {
+			const error =
+				e instanceof SolverError ? e.toJSON() : { error: e.message, code: e.code, ...e.where };
+			return { name: v.name, options: v.options, analysis: null, error };
+		}
+		throw e;
+	}
+}
+
+function renderSideBySide(outcomes: Outcome[]): string {
+	const f = (v: number | null | undefined, unit = '') =>
+		v === null || v === undefined ? '—' : formatEngineering(v, unit, 4);
+	const rows: string[][] = [
+		['variant', 'DC gain', 'bandwidth', 'rise', 'overshoot', 'settling', 'Zin DC', 'pole 1']
+	];
+	for (const o of outcomes) {
+		const a = o.analysis;
+		if (!a) {
+			rows.push([o.name, `refused: ${o.error!.error}`]);
+			continue;
+		}
+		rows.push([
+			o.name,
+			a.dcGain === null ? '—' : a.dcGain.toPrecision(6),
+			f(a.bandwidth, 'Hz'),
+			f(a.step?.riseTime, 's'),
+			a.step?.overshoot == null ? '—' : `${a.step.overshoot.toFixed(2)} %`,
+			f(a.step?.settlingTime, 's'),
+			a.inputImpedance?.dc ? f(a.inputImpedance.dc.re, 'Ω') : '∞',
+			a.poles[0] ? f(a.poles[0].hz, 'Hz') : '—'
+		]);
+	}
+	const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => [...(r[c] ?? '')].length)) + 2);
+	const pad = (s: string, n: number) => s + ' '.repeat(Math.max(0, n - [...s].length));
+	return (
+		[
+			'Variants side by side',
+			...rows.map((r) => '  ' + r.map((c, i) => pad(c, widths[i])).join(''))
+		].join('\n') + '\n'
+	);
 }
 
 function renderTable(a: Analysis): string {

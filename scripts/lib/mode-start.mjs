@@ -42,8 +42,11 @@ export async function main({ root, dev }) {
 
 	try {
 		const env = { DATABASE_URL: databaseUrl };
-		step('Migrating the database and seeding the demo workspace');
-		run(tsx(root), ['scripts/db.ts', 'setup'], { cwd: root, env: { ...process.env, ...env } });
+		// Demo accounts (with the passwords printed in the README) only ever go into the local
+		// cluster; a database named by DATABASE_URL is migrated and nothing more.
+		if (cluster) step('Migrating the database and seeding the demo workspace');
+		else step('Migrating the database given by DATABASE_URL (no demo data is added to it)');
+		run(tsx(root), ['scripts/db.ts', cluster ? 'setup' : 'migrate'], { cwd: root, env: { ...process.env, ...env } });
 
 		const mail = await startMailFake(root, config, children);
 		Object.assign(env, mail.env);
@@ -54,8 +57,8 @@ export async function main({ root, dev }) {
 			app = startChild(root, path.join(root, 'node_modules', '.bin', 'vite'), ['dev', '--host', config.appHost, '--port', String(config.appPort), '--strictPort'], env, { name: 'vite' });
 		} else {
 			ensureBuild(root);
-			// adapter-node refuses bodies over 512 KB by default; uploads may be 5 MB (docs/exchange.md).
-			app = startChild(root, process.execPath, ['build'], { ...env, HOST: config.appHost, PORT: String(config.appPort), ORIGIN: process.env.ORIGIN ?? origin, BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '8M' }, { name: 'app' });
+			// build/start.js checks the settings and sets the request-body limit itself.
+			app = startChild(root, process.execPath, ['build'], { ...env, HOST: config.appHost, PORT: String(config.appPort), ORIGIN: process.env.ORIGIN ?? origin }, { name: 'app' });
 		}
 		children.push(app);
 		console.log(`

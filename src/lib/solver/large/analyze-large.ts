@@ -4,6 +4,7 @@ import { impedanceFromReading } from '../input-impedance';
 import { poleEstimates } from '../pole-estimates';
 import { groupReactivePorts, withMembers } from '../reactive-ports';
 import { frequencyRange } from '../response-range';
+import { resistanceFormulas } from '../resistance-formulas';
 import { byMagnitude, singularity } from '../singularity';
 import { stepResponse } from '../step-response';
 import type {
@@ -186,6 +187,8 @@ export function analyzeLarge(
 		code: 'dominant_poles_only',
 		message: `large network: ${details.length} of ${total ?? 'an unknown number of'} poles were computed (the ${details.length} nearest ${shift === 0 ? 'the origin: the slowest' : `the shift ${shift.toPrecision(3)} rad/s`}); zeros, short-circuit time constants, port matrices and the expansion are not computed at this size`
 	});
+	// Series–parallel formulas: resistance-formulas.ts declines quickly above its own size limit.
+	const formulas = resistanceFormulas(tcNet, 'open', openReadings);
 	const result: Omit<Analysis, 'warnings' | 'meta'> = {
 		title: net.title,
 		poles,
@@ -194,7 +197,10 @@ export function analyzeLarge(
 		dcGain,
 		highFrequencyGain: null,
 		timeConstants: {
-			openCircuit: withMembers(net, ports, openReadings),
+			openCircuit: withMembers(net, ports, openReadings).map((t, i) => ({
+				...t,
+				formula: formulas[i]
+			})),
 			shortCircuit: [],
 			sequential: seqSteps,
 			elmore:
