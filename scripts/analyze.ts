@@ -1,22 +1,42 @@
 /**
- * `npm run -s analyze -- FILE.json [--table]`: the solver from a terminal.
+ * `npm run -s analyze -- FILE.json [--table] [--variant NAME | --variants]`: the solver from a
+ * terminal. A document with variants analyses as its base network unless one variant is named
+ * (`--variant "100:1 · 2 m cable"`) or all are asked for (`--variants`: JSON
+ * `{ variants: [{ name, options, analysis, error }] }`, or one table per variant after a
+ * side-by-side table of the key figures).
  * stdout carries only the result (JSON, or the table with --table); every message goes to
  * stderr as one line. Exit 2 for input the user can fix (bad file, bad network), 1 for a fault.
  */
 import { readFileSync } from 'node:fs';
 import { analyze, formatEngineering, SolverError, type Analysis } from '../src/lib/solver/index';
+import {
+	findVariant,
+	listVariants,
+	resolveVariant,
+	VariantError,
+	type VariantInfo
+} from '../src/lib/network/variants';
+import { networkDocumentSchema, type NetworkDocument } from '../src/lib/network/schema';
 
 function fail(code: number, message: string): never {
 	process.stderr.write(message.replace(/\s+/g, ' ').trim() + '\n');
 	process.exit(code);
 }
 
+const USAGE = 'usage: analyze FILE.json [--table] [--variant NAME | --variants]';
 const args = process.argv.slice(2);
 const table = args.includes('--table');
-const files = args.filter((a) => !a.startsWith('--'));
-const unknown = args.filter((a) => a.startsWith('--') && a !== '--table');
-if (unknown.length) fail(2, `unknown option ${unknown[0]} (usage: analyze FILE.json [--table])`);
-if (files.length !== 1) fail(2, 'usage: analyze FILE.json [--table]');
+const allVariants = args.includes('--variants');
+const variantAt = args.indexOf('--variant');
+const variantName = variantAt >= 0 ? args[variantAt + 1] : undefined;
+if (variantAt >= 0 && (variantName === undefined || variantName.startsWith('--')))
+	fail(2, `--variant needs the variant's name (${USAGE})`);
+if (variantAt >= 0 && allVariants) fail(2, `name one variant or ask for all, not both (${USAGE})`);
+const positional = args.filter((a, i) => !a.startsWith('--') && !(variantAt >= 0 && i === variantAt + 1));
+const files = positional;
+const unknown = args.filter((a) => a.startsWith('--') && !['--table', '--variant', '--variants'].includes(a));
+if (unknown.length) fail(2, `unknown option ${unknown[0]} (${USAGE})`);
+if (files.length !== 1) fail(2, USAGE);
 
 let text: string;
 try {
@@ -31,18 +51,96 @@ try {
 	fail(2, `${files[0]} is not valid JSON: ${(e as Error).message}`);
 }
 
-let result: Analysis;
-try {
-	result = analyze(doc);
-} catch (e) {
-	if (e instanceof SolverError) fail(2, `${files[0]}: ${e.message}`);
-	fail(1, `internal error: ${(e as Error)?.stack?.split('\n')[0] ?? String(e)}`);
+function analyzeOrFail(d: unknown, where: string): Analysis {
+	try {
+		return analyze(d);
+	} catch (e) {
+		if (e instanceof SolverError) fail(2, `${where}: ${e.message}`);
+		fail(1, `internal error: ${(e as Error)?.stack?.split('\n')[0] ?? String(e)}`);
+	}
 }
 
+if (variantName !== undefined || allVariants) {
+	// The base document is checked whole first, so a broken variant block is named up front.
+	analyzeOrFail(doc, files[0]);
+	const parsed = networkDocumentSchema.parse(doc);
+	let chosen: VariantInfo[];
+	try {
+		chosen = allVariants ? listVariants(parsed) : [findVariant(parsed, variantName!)];
+	} catch (e) {
+		if (e instanceof VariantError) fail(2, `${files[0]}: ${e.message}`);
+		throw e;
+	}
+	if (allVariants && chosen.length === 0) fail(2, `${files[0]}: the network has no variants`);
+	const outcomes = chosen.map((v) => outcomeOf(parsed, v));
+	if (!allVariants) {
+		const [o] = outcomes;
+		if (!o.analysis) fail(2, `${files[0]}: variant "${o.name}": ${o.error!.error}`);
+		process.stdout.write(table ? renderTable(o.analysis) : JSON.stringify(o.analysis) + '\n');
+	} else if (!table) {
+		process.stdout.write(JSON.stringify({ variants: outcomes }) + '\n');
+	} else {
+		process.stdout.write(renderSideBySide(outcomes));
+		for (const o of outcomes)
+			process.stdout.write(
+				`\n=== ${o.name} ===\n` + (o.analysis ? renderTable(o.analysis) : `refused: ${o.error!.error}\n`)
+			);
+	}
+	process.exit(0);
+}
+
+const result = analyzeOrFail(doc, files[0]);
 if (!table) {
 	process.stdout.write(JSON.stringify(result) + '\n');
 } else {
 	process.stdout.write(renderTable(result));
+}
+
+interface Outcome {
+	name: string;
+	options: string[];
+	analysis: Analysis | null;
+	error: { error: string; code: string; element?: string; node?: string } | null;
+}
+
+/** One variant's analysis; a variant the solver refuses keeps its error, the others go on. */
+function outcomeOf(parsed: NetworkDocument, v: VariantInfo): Outcome {
+	try {
+		return { name: v.name, options: v.options, analysis: analyze(resolveVariant(parsed, v)), error: null };
+	} catch (e) {
+		if (e instanceof SolverError || e instanceof VariantError) {
+			const error =
+				e instanceof SolverError ? e.toJSON() : { error: e.message, code: e.code, ...e.where };
+			return { name: v.name, options: v.options, analysis: null, error };
+		}
+		throw e;
+	}
+}
+
+function renderSideBySide(outcomes: Outcome[]): string {
+	const f = (v: number | null | undefined, unit = '') =>
+		v === null || v === undefined ? '—' : formatEngineering(v, unit, 4);
+	const rows: string[][] = [['variant', 'DC gain', 'bandwidth', 'rise', 'overshoot', 'settling', 'Zin DC', 'pole 1']];
+	for (const o of outcomes) {
+		const a = o.analysis;
+		if (!a) {
+			rows.push([o.name, `refused: ${o.error!.error}`]);
+			continue;
+		}
+		rows.push([
+			o.name,
+			a.dcGain === null ? '—' : a.dcGain.toPrecision(6),
+			f(a.bandwidth, 'Hz'),
+			f(a.step?.riseTime, 's'),
+			a.step?.overshoot == null ? '—' : `${a.step.overshoot.toFixed(2)} %`,
+			f(a.step?.settlingTime, 's'),
+			a.inputImpedance?.dc ? f(a.inputImpedance.dc.re, 'Ω') : '∞',
+			a.poles[0] ? f(a.poles[0].hz, 'Hz') : '—'
+		]);
+	}
+	const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => [...(r[c] ?? '')].length)) + 2);
+	const pad = (s: string, n: number) => s + ' '.repeat(Math.max(0, n - [...s].length));
+	return ['Variants side by side', ...rows.map((r) => '  ' + r.map((c, i) => pad(c, widths[i])).join(''))].join('\n') + '\n';
 }
 
 function renderTable(a: Analysis): string {

@@ -1,6 +1,7 @@
 // The whole identity path in a real browser against the built server, with the reset mail read
 // from the local catcher's inbox.
 import { expect, test, type Page } from '@playwright/test';
+import { finishSignUp } from './editor-helpers';
 
 const inbox = process.env.MAIL_INBOX_URL;
 
@@ -37,6 +38,7 @@ test('sign up, sign out, sign in, a wrong password, then forget it and reset it 
 	await expect(page.getByLabel('Your name')).toHaveValue('Ines Varga');
 	await page.getByLabel('Password').fill('first password 123');
 	await page.getByRole('button', { name: 'Create account' }).click();
+	await finishSignUp(page, email);
 	await expect(page).toHaveURL(/\/workspaces$/);
 	await expect(header.getByText('Ines Varga')).toBeVisible();
 

@@ -42,14 +42,17 @@ export function sameNetwork(a: NetworkDocument, b: NetworkDocument): boolean {
 }
 
 export function fromDocument(doc: NetworkDocument, layout?: unknown): Snapshot {
+	// Variants are kept by part name, so they belong to the document whichever way it is drawn.
+	const variants = doc.variants ?? null;
 	if (isSheetLayout(layout)) {
 		const restored: Snapshot = {
 			title: doc.title ?? '',
 			items: layout.items,
 			wires: layout.wires,
-			input: layout.input
+			input: layout.input,
+			variants
 		};
 		if (sameNetwork(buildDocument(restored).document, doc)) return restored;
 	}
-	return autoLayout(doc);
+	return { ...autoLayout(doc), variants };
 }

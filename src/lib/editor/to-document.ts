@@ -6,6 +6,7 @@ import { KINDS, isCircuit, hasValue } from './kinds';
 import { computeNets, GROUND_NET, type NetMap } from './nets';
 import type { Snapshot, SheetLayout } from './types';
 import { checkValue } from './values';
+import { listVariants } from '$lib/network/variants';
 
 export interface BuildProblem {
 	/** Internal item id, when one item is at fault. */
@@ -100,8 +101,16 @@ export function buildDocument(s: Snapshot): Built {
 		// An unfinished drawing is still saved (nothing is lost); the problem above keeps it from
 		// being analysed, and the placeholder keeps the document within the format's shape.
 		input: inputItem?.name ?? 'none',
-		output
+		output,
+		...(s.variants ? { variants: s.variants } : {})
 	};
+	if (s.variants) {
+		try {
+			listVariants(document);
+		} catch (e) {
+			problems.push({ message: `variants: ${(e as Error).message}` });
+		}
+	}
 	const layout: SheetLayout = {
 		format: 'polewise-canvas',
 		version: 1,

@@ -1,5 +1,6 @@
 import type { PartRole } from '$lib/network/schema';
 import type { ItemKind } from './kinds';
+import type { VariantSet } from '$lib/network/variant-schema';
 
 export type Rotation = 0 | 90 | 180 | 270;
 
@@ -44,6 +45,8 @@ export interface Snapshot {
 	wires: Wire[];
 	/** Item id of the input source, or null. */
 	input: string | null;
+	/** The sheet's variants (network-format.md), by element name; null or absent: none. */
+	variants?: VariantSet | null;
 }
 
 /** What is stored in a revision's `layout` column beside the network document. */

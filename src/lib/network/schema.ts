@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { variantSetSchema } from './variant-schema';
 
 /**
  * The network JSON document (schema 1), shared by the analysis route, the editor and the solver.
@@ -59,7 +60,9 @@ export const networkDocumentSchema = z.object({
 	output: z.object({
 		node: z.union([z.string().min(1), z.number().int()]),
 		reference: z.union([z.string().min(1), z.number().int()]).optional()
-	})
+	}),
+	/** Named override sets on this drawing (variant-schema.ts); absent: the drawing is the only variant. */
+	variants: variantSetSchema.optional()
 });
 
 export type NetworkElement = z.infer<typeof elementSchema>;

@@ -7,6 +7,7 @@ import { evalPz, logSpace, pzForm, unwrapDeg, type PzForm } from './frequency-re
 import { poleInfo } from './pole-info';
 import { denominatorForEstimates } from './pole-estimates';
 import { groupReactivePorts, withMembers } from './reactive-ports';
+import { resistanceFormulas } from './resistance-formulas';
 import { portMatrices } from './port-matrices';
 import { portModelFrom } from './port-model';
 import { sequentialTimeConstants } from './sequential';
@@ -22,11 +23,13 @@ import {
 import { validateNetwork } from './validate';
 import { analysisWarnings, pairPolesAndZeros } from './warnings';
 import { bandwidth, frequencyRange, numeratorScale } from './response-range';
-import type { Analysis, AnalyzeOptions, Warning } from './types';
+import type { Analysis, AnalyzeOptions, ResistanceFormula, Warning } from './types';
 import { SolverError } from './errors';
 
 const LN10 = Math.log(10);
 const nullIfBad = (x: number) => (Number.isFinite(x) ? x : null);
+const withFormulas = <T>(list: T[], formulas: ResistanceFormula[]) =>
+	list.map((t, i) => ({ ...t, formula: formulas[i] }));
 
 /** Validate, then compute everything; see docs/network-format.md "Analysis result". */
 export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
@@ -205,8 +208,11 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		dcGain,
 		highFrequencyGain: md && !improper ? nullIfBad(md.direct) : null,
 		timeConstants: {
-			openCircuit: withMembers(net, ports, oc),
-			shortCircuit: withMembers(net, ports, sc),
+			openCircuit: withFormulas(withMembers(net, ports, oc), resistanceFormulas(tcNet, 'open', oc)),
+			shortCircuit: withFormulas(
+				withMembers(net, ports, sc),
+				resistanceFormulas(tcNet, 'short', sc)
+			),
 			sequential: withMembers(net, ports, sequential).map(({ value: _, ...s }) => s)
 		},
 		portMatrices: portMatrices(

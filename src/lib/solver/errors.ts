@@ -16,7 +16,8 @@ export type SolverErrorCode =
 	| 'bad_nodes'
 	| 'source_loop'
 	| 'current_cutset'
-	| 'singular';
+	| 'singular'
+	| 'bad_variants';
 
 export class SolverError extends Error {
 	readonly code: SolverErrorCode;

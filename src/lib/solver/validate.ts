@@ -1,4 +1,5 @@
 import { networkDocumentSchema, type ElementType } from '../network/schema';
+import { baseNetwork, listVariants, VariantError } from '../network/variants';
 import { SolverError } from './errors';
 import { parseValue } from './parse-value';
 import { checkTopology } from './topology';
@@ -41,7 +42,15 @@ export function validateNetwork(doc: unknown): ResolvedNetwork {
 	preflight(doc);
 	const parsed = networkDocumentSchema.safeParse(doc);
 	if (!parsed.success) throw fromZod(doc, parsed.error.issues[0]);
-	const d = parsed.data;
+	// A document with variants is its base network here (a variant is resolved before it comes
+	// in); its variant block is still checked, so an import refuses a broken one.
+	try {
+		listVariants(parsed.data);
+	} catch (e) {
+		if (e instanceof VariantError) throw new SolverError('bad_variants', e.message, { element: e.where.element });
+		throw e;
+	}
+	const d = baseNetwork(parsed.data);
 	if (d.elements.length === 0)
 		throw new SolverError('empty_network', 'the network has no elements');
 

@@ -16,6 +16,11 @@ export interface ElementNodeData extends Record<string, unknown> {
 	readonly: boolean;
 	normalValue?: string;
 	valueError: boolean;
+	/** The picked variant sets another value ("6.2p"), and the option that sets it ("Range: 100:1"). */
+	variantValue?: string;
+	variantOption?: string;
+	/** Not in the picked variant's network (drawn faintly, with the word "out"). */
+	absent?: boolean;
 }
 
 export interface WireEdgeData extends Record<string, unknown> {
@@ -36,6 +41,9 @@ export function sameNodeData(a: ElementNodeData, b: ElementNodeData): boolean {
 		a.negWired === b.negWired &&
 		a.readonly === b.readonly &&
 		a.normalValue === b.normalValue &&
-		a.valueError === b.valueError
+		a.valueError === b.valueError &&
+		a.variantValue === b.variantValue &&
+		a.variantOption === b.variantOption &&
+		a.absent === b.absent
 	);
 }

@@ -34,9 +34,21 @@ export async function analyzeInPool(
 	task: AnalyzeTask,
 	timeoutMs = LIMITS.timeoutMs
 ): Promise<AnalyzeOutcome> {
+	return runInPool(task, undefined, timeoutMs) as Promise<AnalyzeOutcome>;
+}
+
+/** Several networks (a sheet's variants) as one task, one outcome each, under one time limit. */
+export async function analyzeManyInPool(
+	task: { documents: unknown[]; options?: AnalyzeTask['options'] },
+	timeoutMs = LIMITS.timeoutMs
+): Promise<AnalyzeOutcome[]> {
+	return runInPool(task, 'runMany', timeoutMs) as Promise<AnalyzeOutcome[]>;
+}
+
+async function runInPool(task: unknown, name: string | undefined, timeoutMs: number): Promise<unknown> {
 	const signal = AbortSignal.timeout(timeoutMs);
 	try {
-		return (await analysisPool().run(task, { signal })) as AnalyzeOutcome;
+		return await analysisPool().run(task, { signal, ...(name ? { name } : {}) });
 	} catch (error) {
 		if (signal.aborted) {
 			throw new ApiProblem(
