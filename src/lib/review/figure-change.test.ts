@@ -28,7 +28,8 @@ describe('figureChange', () => {
 		expect(figureChange(2.5, null)).toEqual({ kind: 'disappears' });
 		expect(figureChange(null, null)).toEqual({ kind: 'none' });
 	});
-	it('equal values are the same', () => {
+	it('equal values, and values equal but for round-off, are the same', () => {
 		expect(figureChange(3, 3)).toEqual({ kind: 'same' });
+		expect(figureChange(1, 1 + 4.996e-15)).toEqual({ kind: 'same' });
 	});
 });

@@ -12,6 +12,9 @@ export type FigureChange =
 	| { kind: 'disappears' }
 	| { kind: 'none' };
 
+/** Relative differences below this are the solver's round-off, not a change. */
+const ROUND_OFF = 1e-9;
+
 /**
  * Values whose magnitude is below `floor` are "at or near zero" (round-off of an exact zero):
  * 1e-9 for gains (the result panels' "≈ 0"), 1e-6 for a percentage, 0 for times and frequencies
@@ -25,7 +28,9 @@ export function figureChange(before: number | null, after: number | null, floor 
 	const nearZero = (v: number) => Math.abs(v) <= floor;
 	if (nearZero(before) && nearZero(after)) return { kind: 'same' };
 	const absolute = after - before;
-	if (absolute === 0) return { kind: 'same' };
+	// Round-off of an unchanged figure (1 → 1 + 5e-15) is no change, not "+5e-13 %".
+	if (Math.abs(absolute) <= ROUND_OFF * Math.max(Math.abs(before), Math.abs(after)))
+		return { kind: 'same' };
 	if (nearZero(before) || nearZero(after) || Math.sign(before) !== Math.sign(after))
 		return { kind: 'absolute', absolute };
 	return { kind: 'relative', pct: (absolute / Math.abs(before)) * 100, absolute };
