@@ -48,8 +48,18 @@ export class DrawingLink {
 	}
 
 	/**
+	 * The variant picked above the canvas (name and choice), read-only viewers included, or null
+	 * when the sheet has no variants or no editor is attached. The design aids run on it.
+	 */
+	get variant(): { name: string; choice: number[] } | null {
+		const v = this.#editor?.variant;
+		return v ? { name: v.info.name, choice: v.info.choice } : null;
+	}
+
+	/**
 	 * Write values (SI units, by element name) into the drawing as one undo step; autosave then
-	 * saves it like any edit. Returns the names that changed.
+	 * saves it like any edit. Returns the names that changed. With variants, a value the picked
+	 * variant sets through an option is written to that option; shared values to the drawing.
 	 */
 	setValues(values: Record<string, number>): string[] {
 		const editor = this.#editor;
