@@ -4,7 +4,7 @@
 // with their error message kept for the panel that asked, and the sheet's stored settings.
 import type { DesignSettings } from '$lib/network/design-schema';
 import type { NetworkDocument } from '$lib/network/schema';
-import type { DrawingLink, DrawingNow } from '$lib/editor/drawing-link.svelte';
+import type { DrawingLink, DrawingNow, OptionValue } from '$lib/editor/drawing-link.svelte';
 import { hasVariants, listVariants, resolveVariant, type VariantInfo } from '$lib/network/variants';
 
 /** What a design aid ran on: the canvas (based on a saved revision) or a saved revision, and on
@@ -106,6 +106,11 @@ export class DesignClient {
 	/** Write values into the drawing as one undo step (autosave saves it); the names changed. */
 	setValues(values: Record<string, number>): string[] {
 		return this.drawing ? this.#link!.setValues(values) : [];
+	}
+
+	/** Write one part's value into variant options (one undo step); false without a drawing. */
+	setOptionValues(element: string, values: OptionValue[]): boolean {
+		return this.drawing ? this.#link!.setOptionValues(element, values) : false;
 	}
 
 	/** Elements whose value a design aid may change, in document order. */
