@@ -31,8 +31,13 @@ export const RULES = {
 		},
 		windowSeconds: 60 * MINUTES
 	},
-	/** Requests with an unknown or revoked API token, per client address. */
-	badTokenAddress: { name: 'api-token:address', points: 30, windowSeconds: 15 * MINUTES }
+	/** Sign-ups for one e-mail address (each sends that address a mail, known or not). */
+	signUpAccount: { name: 'sign-up:account', points: 3, windowSeconds: 60 * MINUTES },
+	/** Requests with an unknown or revoked API token, per client address: short, because a
+	 * valid token is checked before any limit and so never suffers from it. */
+	badTokenAddress: { name: 'api-token:address', points: 30, windowSeconds: MINUTES },
+	/** Requests with one and the same unknown or revoked token, from anywhere (keyed by its hash). */
+	badToken: { name: 'api-token:token', points: 5, windowSeconds: MINUTES }
 } satisfies Record<string, RateRule>;
 
 export interface RateState {

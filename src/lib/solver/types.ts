@@ -101,11 +101,32 @@ export interface PortReading {
 	tau: number | null;
 }
 
+/**
+ * How the resistance a port sees is made up (resistance-formulas.ts): a series–parallel formula
+ * of element names and its value; or why there is none — no DC path (`open`, value null = ∞),
+ * shorted terminals (`short`, value 0), a bridge or a controlled source (`not-series-parallel`,
+ * value from the solver and the resistors that matter most); `not-computed` above 200 ports or
+ * 80 000 port × resistor pairs (value from the solver).
+ */
+export interface ResistanceFormula {
+	kind: 'series-parallel' | 'open' | 'short' | 'not-series-parallel' | 'not-computed';
+	/** "Rtop ∥ (Rsrc + Radc)"; null unless series–parallel. */
+	formula: string | null;
+	/** Ohms; null where infinite or unknown. */
+	value: number | null;
+	/** Why there is no formula; null when there is one. */
+	reason: string | null;
+	/** Not series–parallel: the resistors with the largest normalized sensitivity (∂R/∂r)(r/R), at most 3. */
+	influence: { element: string; sensitivity: number }[];
+}
+
 export interface TimeConstant extends PortReading {
 	/** Element ids of the port, document order. */
 	members: string[];
 	/** Total capacitance or inductance of the port (SI units). */
 	value: number;
+	/** The resistance seen, as a formula of element names (or why not). */
+	formula: ResistanceFormula;
 }
 
 export interface SequentialStep {

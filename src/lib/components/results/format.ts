@@ -54,3 +54,20 @@ export function estimateMethod(e: {
 			return `sequential, port ${e.element}`;
 	}
 }
+
+/** The resistance a port sees, as one line: "Rtop ∥ (Rsrc + Radc) = 900 kΩ", or why there is no formula. */
+export function formulaLine(f: {
+	kind: string;
+	formula: string | null;
+	value: number | null;
+	reason: string | null;
+	influence: { element: string; sensitivity: number }[];
+}): string {
+	if (f.kind === 'series-parallel') return `${f.formula} = ${eng(f.value, 'Ω')}`;
+	if (f.kind === 'open') return `∞ — ${f.reason}`;
+	if (f.kind === 'short') return `0 Ω — ${f.reason}`;
+	const most = f.influence.length
+		? `; matters most: ${f.influence.map((x) => `${x.element} (S = ${Number(x.sensitivity.toPrecision(2))})`).join(', ')}`
+		: '';
+	return `not series–parallel (${f.reason}): ${eng(f.value, 'Ω')} from the solver${most}`;
+}

@@ -43,4 +43,4 @@ export function publicOrigin(url: URL): string {
 	return config().origin ?? url.origin;
 }
 
-export { passwordResetMail, invitationMail, sheetSharedMail } from './templates';
+export { passwordResetMail, invitationMail, sheetSharedMail, signUpConfirmMail, signUpExistingMail } from './templates';
