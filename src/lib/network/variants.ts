@@ -162,6 +162,12 @@ export function overridesOf(doc: WithVariants, choice: number[]): Overrides {
 			out.present.add(id);
 		} else out.absent.add(id);
 	}
+	// In the drawing's order of parts: stored JSON (PostgreSQL's jsonb) does not keep key order.
+	const order = new Map(doc.elements.map((e, i) => [e.id, i]));
+	const byDrawing = (a: string, b: string) => (order.get(a) ?? 0) - (order.get(b) ?? 0);
+	out.values = new Map([...out.values].sort(([a], [b]) => byDrawing(a, b)));
+	out.absent = new Set([...out.absent].sort(byDrawing));
+	out.present = new Set([...out.present].sort(byDrawing));
 	return out;
 }
 
