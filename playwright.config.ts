@@ -13,6 +13,9 @@ export default defineConfig({
 	timeout: 60_000,
 	expect: { timeout: 10_000 },
 	reporter: [['list'], ['json']],
+	// `npm test` points this into the run's own temporary folder (removed afterwards); screenshots
+	// and files a test makes go there through testInfo.outputPath (tests/e2e/artifacts.ts).
+	outputDir: process.env.POLEWISE_TEST_OUTPUT ?? 'test-results',
 	use: {
 		baseURL: `http://127.0.0.1:${port}`,
 		trace: 'retain-on-failure',

@@ -1,12 +1,17 @@
 import { sequence } from '@sveltejs/kit/hooks';
-import type { ServerInit } from '@sveltejs/kit';
+import type { HandleServerError, ServerInit } from '@sveltejs/kit';
 import { building } from '$app/environment';
 import { themeHandle } from '$lib/server/theme';
 import { authHandle } from '$lib/server/auth/handle';
+import { faultHandle, handleFaultError } from '$lib/server/fault-handle';
 import { startJobRunnerAtBoot, stopJobRunner } from '$lib/server/jobs/all-kinds';
 import { takesJobs } from '$lib/server/config';
 
-export const handle = sequence(authHandle, themeHandle);
+// faultHandle first: it turns a database outage anywhere below (the session look-up included)
+// into one 503 answer with Retry-After (see $lib/server/fault-handle.ts).
+export const handle = sequence(faultHandle, authHandle, themeHandle);
+
+export const handleError: HandleServerError = handleFaultError;
 
 // Once per server process (SvelteKit guards against repeats), unless POLEWISE_ROLE=web (jobs
 // then run in worker processes): take jobs from the queue right away, so a job queued before a

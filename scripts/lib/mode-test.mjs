@@ -12,6 +12,7 @@ import { run, runAsync } from './run.mjs';
 import { step } from './log.mjs';
 import { stopChildren, tsx } from './services.mjs';
 import { startMailFake } from './mail.mjs';
+import { scratchEnv } from './scratch.mjs';
 
 function vitestCounts(file) {
 	if (!existsSync(file)) return { passed: 0, failed: 1 };
@@ -57,7 +58,7 @@ export async function main({ root, args }) {
 		const e2eUrl = cluster.ensureDatabase('polewise_e2e');
 		const mailPorts = { mailPort: await freePort(), mailWebPort: await freePort() };
 		const mail = await startMailFake(root, mailPorts, children, { quiet: true });
-		const env = { ...process.env, DATABASE_URL: cluster.url, ...mail.env, POLEWISE_TEST: '1' };
+		const env = { ...process.env, DATABASE_URL: cluster.url, ...mail.env, POLEWISE_TEST: '1', ...scratchEnv(scratch) };
 		step(`Test database on 127.0.0.1:${cluster.port} (throwaway, in ${scratch})`);
 
 		if (!only || only === 'unit' || only === 'integration') {

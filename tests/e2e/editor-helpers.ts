@@ -116,3 +116,15 @@ export async function poleHz(page: Page): Promise<number[]> {
 		els.map((e) => Number(e.getAttribute('data-hz')))
 	)) as number[];
 }
+
+/** A one-pole RC low-pass (1 kΩ, 10 nF) between "in" and "out": the editor tests' small sheet. */
+export const RC_LOW_PASS = {
+	schema: 1,
+	elements: [
+		{ id: 'Vin', type: 'V', nodes: ['in', 'gnd'], value: 1 },
+		{ id: 'R1', type: 'R', nodes: ['in', 'out'], value: '1k' },
+		{ id: 'C1', type: 'C', nodes: ['out', 'gnd'], value: '10n' }
+	],
+	input: 'Vin',
+	output: { node: 'out', reference: 'gnd' }
+};

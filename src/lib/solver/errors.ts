@@ -8,6 +8,7 @@ export type SolverErrorCode =
 	| 'bad_value'
 	| 'zero_value'
 	| 'non_finite'
+	| 'underflow'
 	| 'duplicate_id'
 	| 'unknown_type'
 	| 'unknown_control'

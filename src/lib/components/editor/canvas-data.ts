@@ -16,6 +16,8 @@ export interface ElementNodeData extends Record<string, unknown> {
 	readonly: boolean;
 	normalValue?: string;
 	valueError: boolean;
+	/** Accepted but suspicious (a negative R, C or L): said on the symbol. */
+	valueWarning?: string;
 	/** The picked variant sets another value ("6.2p"), and the option that sets it ("Range: 100:1"). */
 	variantValue?: string;
 	variantOption?: string;
@@ -42,6 +44,7 @@ export function sameNodeData(a: ElementNodeData, b: ElementNodeData): boolean {
 		a.readonly === b.readonly &&
 		a.normalValue === b.normalValue &&
 		a.valueError === b.valueError &&
+		a.valueWarning === b.valueWarning &&
 		a.variantValue === b.variantValue &&
 		a.variantOption === b.variantOption &&
 		a.absent === b.absent

@@ -22,9 +22,6 @@ export class ApiProblem extends Error {
 export const problem = (status: number, message: string, details: Record<string, unknown> = {}) =>
 	json({ error: message, ...details }, { status, headers: { 'cache-control': 'no-store' } });
 
-const pgCode = (e: unknown): string | undefined =>
-	(e as { parent?: { code?: string } } | null)?.parent?.code ?? (e as { code?: string } | null)?.code;
-
 function toResponse(e: unknown): Response {
 	if (e instanceof ApiProblem) return problem(e.status, e.message, e.details);
 	if (e instanceof AccessDenied) return problem(e.status, e.message);
@@ -33,11 +30,8 @@ function toResponse(e: unknown): Response {
 	}
 	if (e instanceof MembershipRuleError || e instanceof InvitationError || e instanceof SheetStateError) return problem(409, e.message);
 	if (isHttpError(e)) return problem(e.status, e.body.message);
-	// The net under the id checks (api/ids.ts): PostgreSQL's "invalid input syntax" (22P02) for
-	// a value a route forgot to check is the caller's mistake, not a server fault.
-	if (pgCode(e) === '22P02') {
-		return problem(400, 'A value in the request is not in the form its field needs (ids are UUIDs).', { code: 'bad_value' });
-	}
+	// Unknown errors go on to SvelteKit; hooks.server.ts answers a database outage (503) and
+	// PostgreSQL's refusal of a malformed value (400) for every route in one place (faults.ts).
 	throw e;
 }
 

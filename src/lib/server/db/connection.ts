@@ -17,7 +17,11 @@ export function db(): Sequelize {
 		dialect: 'postgres',
 		dialectModule: pg,
 		logging: false,
-		pool: { max: config().dbPoolMax, idle: 10_000 },
+		// Bounded waits, so a database that is down or unreachable (packets dropped, no refusal)
+		// turns into a 503 within seconds instead of requests hanging for minutes: 5 s to open
+		// a connection, 10 s to get one from a busy pool.
+		pool: { max: config().dbPoolMax, idle: 10_000, acquire: 10_000 },
+		dialectOptions: { connectionTimeoutMillis: 5_000 },
 		define: { underscored: true }
 	});
 	return instance;
