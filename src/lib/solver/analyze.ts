@@ -39,15 +39,27 @@ import { analysisWarnings, pairPolesAndZeros } from './warnings';
 import { frequencyRange, numeratorScale } from './response-range';
 import type { Analysis, AnalyzeOptions, ResistanceFormula, Warning } from './types';
 import { SolverError } from './errors';
+import { analyzeLarge } from './large/analyze-large';
 
 const nullIfBad = (x: number) => (Number.isFinite(x) ? x : null);
 const withFormulas = <T>(list: T[], formulas: ResistanceFormula[]) =>
 	list.map((t, i) => ({ ...t, formula: formulas[i] }));
 
+/**
+ * Above this many reactive elements the front door takes the sparse back end (large/): the
+ * dense one computes every pole and zero in O(m³), the sparse one the k dominant poles in
+ * about O(nnz of the factor) per iteration. Chosen by measurement (docs/performance.md,
+ * "Large networks"): where the dense full analysis leaves the interactive budget.
+ */
+export const SPARSE_ABOVE = 400;
+
 /** Validate, then compute everything; see docs/network-format.md "Analysis result". */
 export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	const started = performance.now();
 	const net = validateNetwork(doc);
+	const backend = options.backend ?? 'auto';
+	if (backend === 'sparse' || (backend === 'auto' && net.reactive.length > SPARSE_ABOVE))
+		return analyzeLarge(net, options, started);
 	const extra: Warning[] = [];
 	// The time-constant views work on ports (node pairs); the poles on the elements themselves.
 	const { net: tcNet, ports } = groupReactivePorts(net);
@@ -269,11 +281,13 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	return {
 		...result,
 		warnings: analysisWarnings(net, result, extra),
+		poleSet: { method: 'all', total: roots.length, computed: roots.length, shift: null },
 		meta: {
 			elements: net.elements.length,
 			nodes: net.nodeNames.length + 1,
 			reactive: net.reactive.length,
-			ms: performance.now() - started
+			ms: performance.now() - started,
+			backend: 'dense'
 		}
 	};
 }

@@ -91,6 +91,10 @@ export interface PoleInfo extends Singularity {
 	owners: { element: string; share: number }[];
 	/** Index into `zeros` of a zero closer than 1 %, or null. */
 	cancelledBy: number | null;
+	/** Sparse path: the residue of the transfer at this pole (rad/s units of the transfer). */
+	residue?: Complex | null;
+	/** Sparse path: normwise backward error ‖(G + pC)v‖ / ((‖G‖ + |p|‖C‖)‖v‖) of the pole's mode. */
+	backwardError?: number;
 }
 
 /** One port's reading in a DC configuration, as the time-constant steps compute it. */
@@ -185,6 +189,8 @@ export interface Analysis {
 		openCircuit: TimeConstant[];
 		shortCircuit: TimeConstant[];
 		sequential: SequentialStep[];
+		/** Elmore delay to the output of an RC tree (Elmore 1948); absent or null otherwise. */
+		elmore?: { node: string; delay: number } | null;
 	};
 	portMatrices: {
 		ports: string[];
@@ -221,7 +227,26 @@ export interface Analysis {
 		phaseDeg: (number | null)[];
 	} | null;
 	warnings: Warning[];
-	meta: { elements: number; nodes: number; reactive: number; ms: number };
+	/**
+	 * Which poles the answer holds: every one (the dense back end) or the k nearest a shift (the
+	 * sparse back end, docs/methods.md "Large networks"); `total` is the network's number of
+	 * finite poles by structure (null where controlled sources make it unknowable by structure).
+	 */
+	poleSet?: {
+		method: 'all' | 'lanczos' | 'arnoldi';
+		total: number | null;
+		computed: number;
+		/** The shift the computed poles are nearest to, rad/s (0: the slowest). */
+		shift: number | null;
+	};
+	meta: {
+		elements: number;
+		nodes: number;
+		reactive: number;
+		ms: number;
+		/** dense: every pole and zero; sparse: the large-network path (only k poles, no zeros). */
+		backend?: 'dense' | 'sparse';
+	};
 }
 
 export interface AnalyzeOptions {
@@ -233,4 +258,14 @@ export interface AnalyzeOptions {
 	impedanceCurve?: false;
 	/** A pole and a zero closer than this fraction of the pole's magnitude are a doublet (default 0.1). */
 	doubletRatio?: number;
+	/**
+	 * The back end: 'auto' (default) takes the sparse path above SPARSE_ABOVE reactive elements
+	 * (analyze.ts); 'dense' and 'sparse' force one (both answer the same questions on the
+	 * overlap, to 1e-9).
+	 */
+	backend?: 'auto' | 'dense' | 'sparse';
+	/** Sparse path: how many poles (default 10) nearest which real shift (default 0: the slowest). */
+	dominant?: { count?: number; near?: number };
+	/** Sparse path: called with the share done (0…1) and the stage, for progress bars. */
+	onProgress?: (done: number, stage: string) => void;
 }
