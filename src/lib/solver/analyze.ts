@@ -20,6 +20,7 @@ import { poleInfo } from './pole-info';
 import { denominatorForEstimates } from './pole-estimates';
 import { groupReactivePorts, withMembers } from './reactive-ports';
 import { resistanceFormulas } from './resistance-formulas';
+import { findDoublets } from './doublets';
 import { portMatrices } from './port-matrices';
 import { portModelFrom, type PortModel } from './port-model';
 import { sequentialTimeConstants } from './sequential';
@@ -37,15 +38,27 @@ import { analysisWarnings, pairPolesAndZeros } from './warnings';
 import { frequencyRange, numeratorScale } from './response-range';
 import type { Analysis, AnalyzeOptions, ResistanceFormula, Warning } from './types';
 import { SolverError } from './errors';
+import { analyzeLarge } from './large/analyze-large';
 
 const nullIfBad = (x: number) => (Number.isFinite(x) ? x : null);
 const withFormulas = <T>(list: T[], formulas: ResistanceFormula[]) =>
 	list.map((t, i) => ({ ...t, formula: formulas[i] }));
 
+/**
+ * Above this many reactive elements the front door takes the sparse back end (large/): the
+ * dense one computes every pole and zero in O(m³), the sparse one the k dominant poles in
+ * about O(nnz of the factor) per iteration. Chosen by measurement (docs/performance.md,
+ * "Large networks"): where the dense full analysis leaves the interactive budget.
+ */
+export const SPARSE_ABOVE = 400;
+
 /** Validate, then compute everything; see docs/network-format.md "Analysis result". */
 export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	const started = performance.now();
 	const net = validateNetwork(doc);
+	const backend = options.backend ?? 'auto';
+	if (backend === 'sparse' || (backend === 'auto' && net.reactive.length > SPARSE_ABOVE))
+		return analyzeLarge(net, options, started);
 	const extra: Warning[] = [];
 	// The time-constant views work on ports (node pairs); the poles on the elements themselves.
 	const { net: tcNet, ports } = groupReactivePorts(net);
@@ -168,6 +181,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		.sort(byMagnitude)
 		.map((r) => ({ ...singularity(r.re, r.im), cancels: null }));
 	const pairs = pairPolesAndZeros(poles, zeros);
+	const doublets = findDoublets(net, poles, zeros, dcGain, { oc, sc }, options.doubletRatio);
 
 	const range = frequencyRange(poles, zeros, options.frequency || undefined);
 	const freq =
@@ -235,6 +249,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		poles,
 		zeros,
 		pairs,
+		doublets,
 		dcGain,
 		highFrequencyGain: inf.value,
 		timeConstants: {
@@ -264,11 +279,13 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	return {
 		...result,
 		warnings: analysisWarnings(net, result, extra),
+		poleSet: { method: 'all', total: roots.length, computed: roots.length, shift: null },
 		meta: {
 			elements: net.elements.length,
 			nodes: net.nodeNames.length + 1,
 			reactive: net.reactive.length,
-			ms: performance.now() - started
+			ms: performance.now() - started,
+			backend: 'dense'
 		}
 	};
 }
