@@ -19,8 +19,8 @@ import type { Analysis, Warning } from './types';
  * or the step response is not published: null, with a `step_untrusted` warning saying why.
  */
 const MODEL_AGREE = 1e-8;
-/** Most work (samples × cost of one) spent following a ringing response: about 0.1 s. */
-const WORK = 3e7;
+/** Most work (samples × cost of one) spent following a ringing response: a few tens of ms. */
+const WORK = 4e6;
 
 export interface StepInputs {
 	md: Modal;
