@@ -76,7 +76,7 @@ describe('jobs whose worker is gone', () => {
 		expect(seen.state === 'queued' ? seen.attempt : seen.attempt - 1).toBe(1);
 		expect(seen).toMatchObject({ maxAttempts: 3 });
 		expect(seen.recovery).toBe(
-			'attempt 1 stopped (its process ended) at 120 of 300; restarted from the beginning by another worker'
+			'attempt 1 stopped (its process ended) at 120 of 300; restarted from the beginning'
 		);
 		await startJobRunner();
 		const end = await until(ana, id, ['done', 'failed']);

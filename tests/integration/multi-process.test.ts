@@ -256,7 +256,7 @@ describe('several processes behind nginx on one database', () => {
 		);
 		expect(Date.now() - killedAt).toBeLessThan(60_000);
 		expect(taken.recovery).toMatch(
-			/^attempt 1 stopped \(its process ended\) at \d+ of 4000; restarted from the beginning by another worker$/
+			/^attempt 1 stopped \(its process ended\) at [\d,]+ of 4,000; restarted from the beginning$/
 		);
 		const done = await waitFor(
 			'the job to finish',

@@ -225,7 +225,7 @@ export async function settleOrphan(
 	}
 	const n = await update(
 		`UPDATE ${t} SET state = 'queued', worker_id = NULL, queue_id = NULL, heartbeat_at = now(),
-			recovery = 'attempt ' || attempt || ' stopped (' || :how || ') at ' || done || ' of ' || total || '; restarted from the beginning by another worker' ${where}`,
+			recovery = 'attempt ' || attempt || ' stopped (' || :how || ') at ' || to_char(done, 'FM999,999,990') || ' of ' || to_char(total, 'FM999,999,990') || '; restarted from the beginning' ${where}`,
 		replacements
 	);
 	return n ? 'requeued' : null;

@@ -126,7 +126,7 @@ async function runOne(kind: JobKind, id: string): Promise<void> {
 					id,
 					WORKER_ID,
 					attempt,
-					`attempt ${attempt} was handed back by a worker that was stopping; restarted from the beginning by another worker`
+					`attempt ${attempt} was handed back by a worker that was stopping; restarted from the beginning`
 				)
 			)
 				await enqueueJob(kind, id).catch(() => undefined); // the sweep re-sends it otherwise
