@@ -45,8 +45,8 @@ async function admin(sql: string) {
 	}
 }
 
-function start(name: string, unit: string, instance = '') {
-	const p = startUnit(name, unit, instance, shared);
+function start(name: string, unit: string, instance = '', extra: Record<string, string> = {}) {
+	const p = startUnit(name, unit, instance, { ...shared, ...extra });
 	procs.push(p);
 	return p;
 }
@@ -83,17 +83,36 @@ afterAll(async () => {
 }, 60_000);
 
 describe('several processes behind nginx on one database', () => {
-	it('two migrators started together: one applies, the other waits and finds nothing to do; both exit 0', async () => {
+	it('a process refuses to start on a bad setting (exit 78, naming it) and on a schema older than its code (exit 1, naming the migrations)', async () => {
+		const bad = start('web-bad', 'polewise-web@.service', String(webPorts[0]), {
+			DB_POOL_MAX: 'lots'
+		});
+		expect(await bad.exited).toBe(78);
+		expect(bad.output()).toContain('DB_POOL_MAX must be a whole number from 1 to 1000, not "lots"');
+		const early = start('web-early', 'polewise-web@.service', String(webPorts[0]), {
+			POLEWISE_SCHEMA_WAIT_SECONDS: '0'
+		});
+		expect(await early.exited).toBe(1);
+		expect(early.output()).toMatch(
+			/refusing to start: the database schema is older than this code: \d+ migration\(s\) not applied \(0001-accounts-and-sheets, .*\)\. Run the migrate command first: node build\/migrate\.js/
+		);
+	}, 60_000);
+
+	it('a web process started before the migration waits for it; two migrators started together: one applies, the other waits and finds nothing to do; both exit 0', async () => {
+		const web1 = start('web-1', 'polewise-web@.service', String(webPorts[0]));
+		await waitFor('web-1 to say it waits for the schema', async () =>
+			/waiting up to 60 s: the database schema is older than this code/.test(web1.output())
+		);
 		const a = start('migrate-a', 'polewise-migrate.service');
 		const b = start('migrate-b', 'polewise-migrate.service');
 		expect(await Promise.all([a.exited, b.exited])).toEqual([0, 0]);
 		const said = [a.output(), b.output()];
 		expect(said.filter((s) => /applied 0001-accounts-and-sheets/.test(s))).toHaveLength(1);
 		expect(said.filter((s) => /nothing to do; the schema is at/.test(s))).toHaveLength(1);
-	}, 60_000);
+		await waitFor('web-1 to serve once migrated', healthy(webPorts[0]));
+	}, 90_000);
 
 	it('web and worker processes start from their units; nginx answers for both web processes', async () => {
-		start('web-1', 'polewise-web@.service', String(webPorts[0]));
 		start('web-2', 'polewise-web@.service', String(webPorts[1]));
 		start('worker-a', 'polewise-worker@.service', 'a');
 		nginx = startNginx(Number(new URL(origin).port), webPorts);
