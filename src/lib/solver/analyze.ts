@@ -21,6 +21,7 @@ import { poleInfo } from './pole-info';
 import { denominatorForEstimates } from './pole-estimates';
 import { groupReactivePorts, withMembers } from './reactive-ports';
 import { resistanceFormulas } from './resistance-formulas';
+import { findDoublets } from './doublets';
 import { portMatrices } from './port-matrices';
 import { portModelFrom } from './port-model';
 import { sequentialTimeConstants } from './sequential';
@@ -177,6 +178,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		.sort(byMagnitude)
 		.map((r) => ({ ...singularity(r.re, r.im), cancels: null }));
 	const pairs = pairPolesAndZeros(poles, zeros);
+	const doublets = findDoublets(net, poles, zeros, dcGain, { oc, sc }, options.doubletRatio);
 
 	const range = frequencyRange(poles, zeros, options.frequency || undefined);
 	const freq =
@@ -249,6 +251,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		poles,
 		zeros,
 		pairs,
+		doublets,
 		dcGain,
 		highFrequencyGain: inf.value,
 		timeConstants: {
