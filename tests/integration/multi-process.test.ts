@@ -255,9 +255,13 @@ describe('several processes behind nginx on one database', () => {
 		});
 		expect(started.status).toBe(202);
 		const id = started.body.job.id;
-		await waitFor(
-			'the job to run on worker a',
-			async () => (await job(id)).state === 'running',
+		// Killed part-way, once some chunks of runs are done (and saved).
+		const before = await waitFor(
+			'the job to be part-way on worker a',
+			async () => {
+				const j = await job(id);
+				return j.state === 'running' && j.done >= 500 ? j.done : null;
+			},
 			60_000
 		);
 		const a = procs.find((p) => p.name === 'worker-a')!;
@@ -275,16 +279,20 @@ describe('several processes behind nginx on one database', () => {
 		);
 		expect(Date.now() - killedAt).toBeLessThan(60_000);
 		expect(taken.recovery).toMatch(
-			/^attempt 1 stopped \(its process ended\) at [\d,]+ of 4,000; restarted from the beginning$/
+			/^attempt 1 stopped \(its process ended\) at [\d,]+ of 4,000; resumes where it stopped$/
 		);
+		const seen: number[] = [taken.done];
 		const done = await waitFor(
 			'the job to finish',
 			async () => {
 				const j = await job(id);
+				seen.push(j.done);
 				return ['done', 'failed', 'cancelled'].includes(j.state) ? j : null;
 			},
 			120_000
 		);
+		// It resumed after the saved runs: its progress never went back below where it was killed.
+		expect(Math.min(...seen)).toBeGreaterThanOrEqual(before);
 		expect(done).toMatchObject({ state: 'done', done: 4000, attempt: 2 });
 		expect(done.result.runs).toBe(4000);
 	}, 240_000);
