@@ -4,12 +4,14 @@ import { building } from '$app/environment';
 import { themeHandle } from '$lib/server/theme';
 import { authHandle } from '$lib/server/auth/handle';
 import { faultHandle, handleFaultError } from '$lib/server/fault-handle';
+import { securityHeadersHandle } from '$lib/server/security-headers';
 import { startJobRunnerAtBoot, stopJobRunner } from '$lib/server/jobs/all-kinds';
 import { takesJobs } from '$lib/server/config';
 
-// faultHandle first: it turns a database outage anywhere below (the session look-up included)
+// securityHeadersHandle outermost, so every answer carries the headers, fault answers too;
+// faultHandle next: it turns a database outage anywhere below (the session look-up included)
 // into one 503 answer with Retry-After (see $lib/server/fault-handle.ts).
-export const handle = sequence(faultHandle, authHandle, themeHandle);
+export const handle = sequence(securityHeadersHandle, faultHandle, authHandle, themeHandle);
 
 export const handleError: HandleServerError = handleFaultError;
 
