@@ -21,6 +21,15 @@ export interface DrawingNow {
 export class DrawingLink {
 	#editor = $state.raw<EditorState | null>(null);
 	#save = $state.raw<Autosave | null>(null);
+	/**
+	 * A result panel asking the design aids to solve for one element's value (a doublet's
+	 * closing change → "flat response"); `nonce` makes a repeated request for the same element count.
+	 */
+	solveRequest = $state.raw<{ element: string; nonce: number } | null>(null);
+
+	requestSolve(element: string): void {
+		this.solveRequest = { element, nonce: (this.solveRequest?.nonce ?? 0) + 1 };
+	}
 
 	/** Returns the detach function (call it when the editor goes away). */
 	attach(editor: EditorState, save: Autosave): () => void {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ELEMENT_LIMIT } from './limits';
 import { variantSetSchema } from './variant-schema';
 
 /**
@@ -55,7 +56,7 @@ export const elementSchema = z.object({
 export const networkDocumentSchema = z.object({
 	schema: z.literal(1),
 	title: z.string().max(200).optional(),
-	elements: z.array(elementSchema).max(5000),
+	elements: z.array(elementSchema).max(ELEMENT_LIMIT),
 	input: z.string().min(1),
 	output: z.object({
 		node: z.union([z.string().min(1), z.number().int()]),

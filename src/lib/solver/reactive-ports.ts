@@ -89,11 +89,13 @@ function grouped(net: ResolvedNetwork, g: number[], ids: Set<string>): ReactiveP
 	return { id, kind: first.type as 'C' | 'L', members: g, value, nodes };
 }
 
-const pairKey = (a: number, b: number) => (a < b ? `${a},${b}` : `${b},${a}`);
+/** One number per unordered node pair (ground is −1; node counts stay far below 2²⁶). */
+const pairKey = (a: number, b: number) =>
+	a < b ? (a + 1) * 67108864 + b + 1 : (b + 1) * 67108864 + a + 1;
 
 /** Capacitors on the same unordered node pair; a set whose capacitances cancel stays apart. */
 function parallelCapacitors(net: ResolvedNetwork): number[][] {
-	const byPair = new Map<string, number[]>();
+	const byPair = new Map<number, number[]>();
 	for (const k of net.reactive) {
 		const e = net.elements[k];
 		if (e.type !== 'C') continue;

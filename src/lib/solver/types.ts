@@ -91,6 +91,10 @@ export interface PoleInfo extends Singularity {
 	owners: { element: string; share: number }[];
 	/** Index into `zeros` of a zero closer than 1 %, or null. */
 	cancelledBy: number | null;
+	/** Sparse path: the residue of the transfer at this pole (rad/s units of the transfer). */
+	residue?: Complex | null;
+	/** Sparse path: normwise backward error ‖(G + pC)v‖ / ((‖G‖ + |p|‖C‖)‖v‖) of the pole's mode. */
+	backwardError?: number;
 }
 
 /** One port's reading in a DC configuration, as the time-constant steps compute it. */
@@ -118,6 +122,27 @@ export interface ResistanceFormula {
 	reason: string | null;
 	/** Not series–parallel: the resistors with the largest normalized sensitivity (∂R/∂r)(r/R), at most 3. */
 	influence: { element: string; sensitivity: number }[];
+}
+
+/**
+ * A pole and a zero closer than the doublet ratio (doublets.ts). The step response then carries
+ * a slow tail: y(t) ≈ final·(1 + tail·e^(−t/tailTau)) after the fast part (tail > 0: it overshoots
+ * and sags back; < 0: it undershoots and creeps up).
+ */
+export interface Doublet {
+	/** Indices into `poles` and `zeros` (a complex pair is listed once, by its upper member). */
+	pole: number;
+	zero: number;
+	/** (z − p)/p for real roots, |z − p|/|p| for complex ones. */
+	separation: number;
+	/** The doublet pole's share of the final value in the step response; null for complex pairs or without a finite DC gain. */
+	tail: number | null;
+	/** −1/Re p, s. */
+	tailTau: number | null;
+	/** Single-element changes that make pole and zero coincide, the suggested one first (at most 3). */
+	closing: { element: string; from: number; to: number; change: number }[];
+	/** Why `closing` is empty, when it is. */
+	closingNote: string | null;
 }
 
 export interface TimeConstant extends PortReading {
@@ -156,12 +181,16 @@ export interface Analysis {
 	poles: PoleInfo[];
 	zeros: (Singularity & { cancels: number | null })[];
 	pairs: { pole: number; zero: number; distance: number }[];
+	/** Pole–zero doublets closer than the doublet ratio (default 10 %). */
+	doublets: Doublet[];
 	dcGain: number | null;
 	highFrequencyGain: number | null;
 	timeConstants: {
 		openCircuit: TimeConstant[];
 		shortCircuit: TimeConstant[];
 		sequential: SequentialStep[];
+		/** Elmore delay to the output of an RC tree (Elmore 1948); absent or null otherwise. */
+		elmore?: { node: string; delay: number } | null;
 	};
 	portMatrices: {
 		ports: string[];
@@ -198,7 +227,26 @@ export interface Analysis {
 		phaseDeg: (number | null)[];
 	} | null;
 	warnings: Warning[];
-	meta: { elements: number; nodes: number; reactive: number; ms: number };
+	/**
+	 * Which poles the answer holds: every one (the dense back end) or the k nearest a shift (the
+	 * sparse back end, docs/methods.md "Large networks"); `total` is the network's number of
+	 * finite poles by structure (null where controlled sources make it unknowable by structure).
+	 */
+	poleSet?: {
+		method: 'all' | 'lanczos' | 'arnoldi';
+		total: number | null;
+		computed: number;
+		/** The shift the computed poles are nearest to, rad/s (0: the slowest). */
+		shift: number | null;
+	};
+	meta: {
+		elements: number;
+		nodes: number;
+		reactive: number;
+		ms: number;
+		/** dense: every pole and zero; sparse: the large-network path (only k poles, no zeros). */
+		backend?: 'dense' | 'sparse';
+	};
 }
 
 export interface AnalyzeOptions {
@@ -208,4 +256,16 @@ export interface AnalyzeOptions {
 	expansion?: false;
 	/** false: skip the input-impedance curve (the DC value is still computed; arrays empty). */
 	impedanceCurve?: false;
+	/** A pole and a zero closer than this fraction of the pole's magnitude are a doublet (default 0.1). */
+	doubletRatio?: number;
+	/**
+	 * The back end: 'auto' (default) takes the sparse path above SPARSE_ABOVE reactive elements
+	 * (analyze.ts); 'dense' and 'sparse' force one (both answer the same questions on the
+	 * overlap, to 1e-9).
+	 */
+	backend?: 'auto' | 'dense' | 'sparse';
+	/** Sparse path: how many poles (default 10) nearest which real shift (default 0: the slowest). */
+	dominant?: { count?: number; near?: number };
+	/** Sparse path: called with the share done (0…1) and the stage, for progress bars. */
+	onProgress?: (done: number, stage: string) => void;
 }

@@ -1,35 +1,8 @@
 import { expect } from 'vitest';
 
-export type El = {
-	id: string;
-	type: string;
-	nodes: (string | number)[];
-	value?: string | number;
-	control?: string;
-};
+import { el, net, type El } from './build';
 
-export function net(elements: El[], output: string, input = 'Vin', reference?: string) {
-	return {
-		schema: 1 as const,
-		elements,
-		input,
-		output: reference ? { node: output, reference } : { node: output }
-	};
-}
-
-export const el = (
-	id: string,
-	type: string,
-	nodes: (string | number)[],
-	value?: string | number,
-	control?: string
-): El => ({
-	id,
-	type,
-	nodes,
-	...(value !== undefined ? { value } : {}),
-	...(control ? { control } : {})
-});
+export { el, net, type El };
 
 export const rel = (a: number, b: number) => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
 

@@ -17,15 +17,6 @@ const lockHeld = (t: string) => `EXISTS (
 		AND l.classid = ${JOB_LOCK_NAMESPACE}
 		AND l.objid = hashtext(${t}.id::text || '/' || ${t}.attempt)::oid)`;
 
-/** A job row's lock key (second key), the same expression as in `lockHeld`. */
-export async function jobLockKey(id: string, attempt: number): Promise<number> {
-	const [row] = await db().query<{ key: number }>(`SELECT hashtext(:k) AS key`, {
-		replacements: { k: `${id}/${attempt}` },
-		type: QueryTypes.SELECT
-	});
-	return row.key;
-}
-
 function table(name: string): string {
 	if (!/^[a-z_]+$/.test(name)) throw new Error(`not a job table name: ${name}`);
 	return name;
@@ -39,24 +30,33 @@ async function update(sql: string, replacements: Record<string, unknown>): Promi
 	return count;
 }
 
+/** The attempt a queued job would start as now, or null when it is not queued. */
+export async function nextAttempt(jobTable: string, id: string): Promise<number | null> {
+	const rows = await db().query<{ attempt: number }>(
+		`SELECT attempt FROM ${table(jobTable)} WHERE id = :id AND state = 'queued' AND NOT cancel_requested`,
+		{ replacements: { id }, type: QueryTypes.SELECT }
+	);
+	return rows[0] ? rows[0].attempt + 1 : null;
+}
+
 /**
- * Take a queued job for this worker: the next attempt, unless it was cancelled meanwhile or has
- * used all its attempts. Null when the job is not (or no longer) queued: another worker has it.
+ * Take a queued job for this worker as the given attempt (its lock already held, so nobody can
+ * see it running without a live worker). False when it is no longer queued at that attempt:
+ * cancelled meanwhile, or another worker took it.
  */
 export async function claimJob(
 	jobTable: string,
 	id: string,
-	workerId: string
-): Promise<{ attempt: number } | null> {
-	const t = table(jobTable);
-	const rows = await db().query<{ attempt: number }>(
-		`UPDATE ${t} SET state = 'running', attempt = attempt + 1, worker_id = :workerId,
+	workerId: string,
+	attempt: number
+): Promise<boolean> {
+	const n = await update(
+		`UPDATE ${table(jobTable)} SET state = 'running', attempt = :attempt, worker_id = :workerId,
 			heartbeat_at = now(), started_at = coalesce(started_at, now()), done = 0
-		WHERE id = :id AND state = 'queued' AND NOT cancel_requested
-		RETURNING attempt`,
-		{ replacements: { id, workerId }, type: QueryTypes.SELECT }
+		WHERE id = :id AND state = 'queued' AND attempt = :attempt - 1 AND NOT cancel_requested`,
+		{ id, workerId, attempt }
 	);
-	return rows[0] ?? null;
+	return n === 1;
 }
 
 export type Beat = 'ok' | 'cancel' | 'lost';
@@ -171,9 +171,9 @@ export interface Orphan {
 
 /**
  * Running jobs nobody is working on: the worker's lock is gone (its process ended: PostgreSQL
- * drops the lock with the connection) and the heartbeat is older than a few seconds (the gap
- * between claiming and locking), or the heartbeat is older than `staleSeconds` (a hung worker,
- * or a machine that vanished without closing its connection).
+ * drops the lock with the connection; a worker takes the lock before it claims), or the
+ * heartbeat is older than `staleSeconds` (a hung worker, or a machine that vanished without
+ * closing its connection).
  */
 export async function findOrphans(
 	jobTable: string,
@@ -188,7 +188,7 @@ export async function findOrphans(
 		WHERE state = 'running' ${onlyId ? 'AND id = :onlyId' : ''}
 			AND (heartbeat_at IS NULL
 				OR heartbeat_at < now() - make_interval(secs => :stale)
-				OR (heartbeat_at < now() - interval '3 seconds' AND NOT ${lockHeld(t)}))`,
+				OR NOT ${lockHeld(t)})`,
 		{ replacements: { stale: staleSeconds, onlyId: onlyId ?? null }, type: QueryTypes.SELECT }
 	);
 }

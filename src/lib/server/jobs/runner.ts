@@ -75,10 +75,11 @@ export async function enqueueJob(kind: JobKind, id: string): Promise<string> {
 }
 
 async function runOne(kind: JobKind, id: string): Promise<void> {
-	const claim = await rows.claimJob(kind.table, id, WORKER_ID);
-	if (!claim) return; // cancelled meanwhile, or another worker has it
-	const { attempt } = claim;
-	const release = await holdJobLock(id, attempt).catch(() => async () => undefined);
+	const attempt = await rows.nextAttempt(kind.table, id);
+	if (attempt === null) return; // cancelled meanwhile, or another worker has it
+	// Lock first, then claim: a running row always has its live worker's lock.
+	const release = await holdJobLock(id, attempt);
+	if (!(await rows.claimJob(kind.table, id, WORKER_ID, attempt))) return void (await release());
 	const controller = new AbortController();
 	let why: JobStopped['why'] | null = null;
 	const stop = (reason: JobStopped['why']) => {

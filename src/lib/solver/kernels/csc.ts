@@ -116,14 +116,35 @@ export function transpose(a: Csc): Csc {
 
 /** y = A·x (y is overwritten). */
 export function multiply(a: Csc, x: Float64Array, y: Float64Array): Float64Array {
+	return multiplyValues(a, a.values, x, y);
+}
+
+/** y = A·x for other values on A's pattern (G and C share one pattern; see sparse-mna.ts). */
+export function multiplyValues(
+	a: Csc,
+	values: Float64Array,
+	x: Float64Array,
+	y: Float64Array
+): Float64Array {
 	y.fill(0);
-	const { n, colPtr, rowIdx, values } = a;
+	const { n, colPtr, rowIdx } = a;
 	for (let j = 0; j < n; j++) {
 		const xj = x[j];
 		if (xj === 0) continue;
 		for (let p = colPtr[j]; p < colPtr[j + 1]; p++) y[rowIdx[p]] += values[p] * xj;
 	}
 	return y;
+}
+
+/** Largest column sum of |values| on A's pattern (the 1-norm), for backward errors. */
+export function norm1(a: Csc, values: Float64Array = a.values): number {
+	let best = 0;
+	for (let j = 0; j < a.n; j++) {
+		let s = 0;
+		for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) s += Math.abs(values[p]);
+		if (s > best) best = s;
+	}
+	return best;
 }
 
 /** Entry (i, j), by binary search in column j (0 when absent). */

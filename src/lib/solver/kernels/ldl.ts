@@ -232,3 +232,42 @@ export function ldlSolve(
 
 /** Number of stored entries of L (off-diagonal), for reports and memory estimates. */
 export const ldlFill = (f: Ldl) => f.lx.length;
+
+/**
+ * The two halves of A⁻¹ = Pᵀ·L⁻ᵀ·D^-½ · D^-½·L⁻¹·P for a positive definite A, so that
+ * R⁻¹·M·R⁻ᵀ (A = R·Rᵀ, R = Pᵀ·L·D^½) can be applied as a symmetric operator — the
+ * shift-and-invert form of a symmetric definite pencil (lanczos.ts). `half` works in the
+ * permuted numbering: forward takes an original-numbered vector to it, backward returns.
+ */
+export function ldlHalfForward(f: Ldl, b: Float64Array, out: Float64Array): Float64Array {
+	const { n, order, colPtr, rowIdx } = f.symbolic;
+	const { lx, d } = f;
+	for (let i = 0; i < n; i++) out[i] = b[order[i]];
+	for (let j = 0; j < n; j++) {
+		const yj = out[j];
+		if (yj !== 0) for (let p = colPtr[j]; p < colPtr[j + 1]; p++) out[rowIdx[p]] -= lx[p] * yj;
+	}
+	for (let j = 0; j < n; j++) out[j] /= Math.sqrt(d[j]);
+	return out;
+}
+
+export function ldlHalfBackward(f: Ldl, w: Float64Array, out: Float64Array): Float64Array {
+	const { n, order, colPtr, rowIdx } = f.symbolic;
+	const { lx, d } = f;
+	const y = halfWork(f, n);
+	for (let j = 0; j < n; j++) y[j] = w[j] / Math.sqrt(d[j]);
+	for (let j = n - 1; j >= 0; j--) {
+		let s = y[j];
+		for (let p = colPtr[j]; p < colPtr[j + 1]; p++) s -= lx[p] * y[rowIdx[p]];
+		y[j] = s;
+	}
+	for (let i = 0; i < n; i++) out[order[i]] = y[i];
+	return out;
+}
+
+const halfWorks = new WeakMap<Ldl, Float64Array>();
+function halfWork(f: Ldl, n: number): Float64Array {
+	let w = halfWorks.get(f);
+	if (!w) halfWorks.set(f, (w = new Float64Array(n)));
+	return w;
+}

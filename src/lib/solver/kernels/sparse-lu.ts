@@ -349,3 +349,50 @@ export function luSolveSparseComplex(f: SparseLu, br: Float64Array, bi: Float64A
 
 /** Entries stored in L and U (a fill measure). */
 export const luFill = (f: SparseLu) => f.li.length + f.ui.length;
+
+/** Solves Aᵀ·x = b (transpose, not conjugate) in place with complex factors: left vectors. */
+export function luSolveSparseComplexTransposed(
+	f: SparseLu,
+	br: Float64Array,
+	bi: Float64Array
+): void {
+	const { n, pinv, q, lp, li, lre, up, ui, ure } = f;
+	const lim = f.lim ?? new Float64Array(lre.length);
+	const uim = f.uim ?? new Float64Array(ure.length);
+	const yr = new Float64Array(n);
+	const yi = new Float64Array(n);
+	for (let k = 0; k < n; k++) {
+		yr[k] = br[q[k]];
+		yi[k] = bi[q[k]];
+	}
+	for (let j = 0; j < n; j++) {
+		const end = up[j + 1] - 1;
+		let sr = yr[j];
+		let si = yi[j];
+		for (let p = up[j]; p < end; p++) {
+			const r = ui[p];
+			sr -= ure[p] * yr[r] - uim[p] * yi[r];
+			si -= ure[p] * yi[r] + uim[p] * yr[r];
+		}
+		const dr = ure[end];
+		const di = uim[end];
+		const d2 = dr * dr + di * di;
+		yr[j] = (sr * dr + si * di) / d2;
+		yi[j] = (si * dr - sr * di) / d2;
+	}
+	for (let j = n - 1; j >= 0; j--) {
+		let sr = yr[j];
+		let si = yi[j];
+		for (let p = lp[j] + 1; p < lp[j + 1]; p++) {
+			const r = li[p];
+			sr -= lre[p] * yr[r] - lim[p] * yi[r];
+			si -= lre[p] * yi[r] + lim[p] * yr[r];
+		}
+		yr[j] = sr;
+		yi[j] = si;
+	}
+	for (let i = 0; i < n; i++) {
+		br[i] = yr[pinv[i]];
+		bi[i] = yi[pinv[i]];
+	}
+}
