@@ -1,13 +1,15 @@
 // "Too large for an interactive analysis" — one decision, used by every route that runs the
-// solver (analysis, stored revisions, exports, the report, comparisons, design aids), so the
-// documented limits and what completes agree. The cost of an analysis grows with the number of
-// capacitors and inductors (its eigenproblem is about that size; measured in docs/performance.md:
-// 500 in ~4 s, 1000 in ~18 s on the shared 2-core machine under load), far less with resistors
-// (3000 elements with 95 capacitors: 1.5 s). The limits are settings (config: ANALYSIS_MAX_*),
-// and this function is the one place to change what "too large" means — e.g. to send a large
-// network to the job queue instead of refusing it.
+// solver in a request (analysis, stored revisions, exports, the report, comparisons, design
+// aids), so the documented limits and what completes agree. Two bounds: the element count
+// (INTERACTIVE_ELEMENT_LIMIT in network/limits.ts, shared with the editor and the job queue) and
+// the number of capacitors and inductors, which sets the cost far more than resistors do
+// (measured in docs/performance.md: a 3000-element resistor grid with 95 capacitors 1.5 s; an
+// RC mesh with 1500 capacitors 47 s on the loaded 2-core machine). The second is a setting
+// (ANALYSIS_MAX_REACTIVE). Background jobs (no caller) are not held to these: a large network's
+// place is the job queue. This is the one place to change what "too large" means.
 import { ApiProblem } from './api/respond';
 import { config } from './config';
+import { INTERACTIVE_ELEMENT_LIMIT } from '../network/limits';
 
 export interface NetworkSize {
 	elements: number;
@@ -27,8 +29,7 @@ export function sizeOf(document: unknown): NetworkSize {
 }
 
 export function interactiveLimits() {
-	const c = config();
-	return { elements: c.analysisMaxElements, reactive: c.analysisMaxReactive };
+	return { elements: INTERACTIVE_ELEMENT_LIMIT, reactive: config().analysisMaxReactive };
 }
 
 /** Null when the network may be analysed within a request; else why not, with the limit. */

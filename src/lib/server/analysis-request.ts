@@ -6,13 +6,12 @@ import type { AnalyzeOptions } from '../solver';
 import { ApiProblem } from './api/respond';
 import { config } from './config';
 import { requireInteractive } from './analysis-limits';
+import { INTERACTIVE_ELEMENT_LIMIT } from '../network/limits';
 
 export const LIMITS = {
 	bodyBytes: 1_000_000,
-	/** Elements (and capacitors and inductors) per analysis: see analysis-limits.ts. */
-	get elements() {
-		return config().analysisMaxElements;
-	},
+	/** Elements per analysis in a request (network/limits.ts; see analysis-limits.ts). */
+	elements: INTERACTIVE_ELEMENT_LIMIT,
 	get timeoutMs() {
 		return config().analysisTimeoutMs;
 	},

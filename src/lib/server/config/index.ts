@@ -37,9 +37,8 @@ export interface Config {
 	mailFrom: string;
 	analysisThreads: number;
 	analysisTimeoutMs: number;
-	/** The largest network one request may analyse (elements), and the most capacitors and
-	 * inductors (their count sets the cost); beyond either the answer is 413 (analysis-limits.ts). */
-	analysisMaxElements: number;
+	/** The most capacitors and inductors one request may analyse (their count sets the cost; the
+	 * element limit is network/limits.ts's, shared with the editor); beyond, 413 (analysis-limits.ts). */
 	analysisMaxReactive: number;
 	/** Admission control (jobs/admission.ts): analyses waiting per process, analyses one caller
 	 * may have running or waiting, and the longest wait before a waiting one is shed (503). */
@@ -125,7 +124,6 @@ const schema = z.object({
 		.optional(),
 	ANALYSIS_THREADS: whole(1, 256).optional(),
 	ANALYSIS_TIMEOUT_MS: whole(100, 3_600_000).optional(),
-	ANALYSIS_MAX_ELEMENTS: whole(2, 10_000_000).optional(),
 	ANALYSIS_MAX_REACTIVE: whole(1, 10_000_000).optional(),
 	ANALYSIS_QUEUE: whole(0, 100_000).optional(),
 	ANALYSIS_PER_CALLER: whole(1, 100_000).optional(),
@@ -195,8 +193,7 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
 		mailFrom: e.MAIL_FROM ?? 'Polewise <no-reply@polewise.invalid>',
 		analysisThreads: e.ANALYSIS_THREADS ?? Math.max(1, os.availableParallelism() - 1),
 		analysisTimeoutMs: e.ANALYSIS_TIMEOUT_MS ?? 15_000,
-		analysisMaxElements: e.ANALYSIS_MAX_ELEMENTS ?? 3000,
-		analysisMaxReactive: e.ANALYSIS_MAX_REACTIVE ?? 600,
+		analysisMaxReactive: e.ANALYSIS_MAX_REACTIVE ?? 1000,
 		analysisQueue: e.ANALYSIS_QUEUE ?? 16,
 		analysisPerCaller: e.ANALYSIS_PER_CALLER ?? 3,
 		analysisQueueWaitMs: e.ANALYSIS_QUEUE_WAIT_MS ?? 10_000,

@@ -33,7 +33,12 @@ export function designPool(): Piscina {
  * runs from the job queue have no caller: they wait their turn and are never shed. */
 export const designAdmission = new Admission('design runs', () => {
 	const c = config();
-	return { concurrency: c.designThreads, maxQueue: c.analysisQueue, perCaller: c.analysisPerCaller, maxWaitMs: c.analysisQueueWaitMs };
+	return {
+		concurrency: c.designThreads,
+		maxQueue: c.analysisQueue,
+		perCaller: c.analysisPerCaller,
+		maxWaitMs: c.analysisQueueWaitMs
+	};
 });
 
 /** One design task: too-large networks refused (413), admitted by turn, then run under a time
@@ -43,21 +48,28 @@ export const designAdmission = new Admission('design runs', () => {
 export async function runDesign(
 	task: DesignTask,
 	timeoutMs = config().designTimeoutMs,
-	stop?: AbortSignal
+	stop?: AbortSignal,
+	/** Objects moved to the worker (e.g. a progress MessagePort). */
+	transferList?: Transferable[]
 ): Promise<unknown> {
-	requireInteractive((task as { document?: unknown }).document);
 	const caller = currentCaller();
+	// Within a request, the interactive size limit; a background job (no caller) is where a
+	// large network belongs, so it is not held to it.
+	if (caller) requireInteractive((task as { document?: unknown }).document);
 	let outcome: DesignOutcome;
 	try {
 		outcome = await designAdmission.run(
 			caller?.key ?? null,
-			() => runTimed(task, timeoutMs, stop),
+			() => runTimed(task, timeoutMs, stop, transferList),
 			stop ?? caller?.signal
 		);
 	} catch (e) {
 		if (stop?.aborted) throw stop.reason;
 		if (e instanceof Shed)
-			throw new ApiProblem(e.status, e.message, { code: e.code, retryAfterSeconds: e.retryAfterSeconds });
+			throw new ApiProblem(e.status, e.message, {
+				code: e.code,
+				retryAfterSeconds: e.retryAfterSeconds
+			});
 		throw e;
 	}
 	if (!outcome.ok) {
@@ -67,14 +79,22 @@ export async function runDesign(
 	return outcome.value;
 }
 
-async function runTimed(task: DesignTask, timeoutMs: number, stop?: AbortSignal): Promise<DesignOutcome> {
+async function runTimed(
+	task: DesignTask,
+	timeoutMs: number,
+	stop?: AbortSignal,
+	transferList?: Transferable[]
+): Promise<DesignOutcome> {
 	// A replaced thread's start-up does not count either (see analysis-pool.ts).
 	await designPool().run(null, { name: 'ready' });
 	// The clock starts here, when a thread is free: waiting in line never counts.
 	const timeout = AbortSignal.timeout(timeoutMs);
 	const signal = stop ? AbortSignal.any([timeout, stop]) : timeout;
 	try {
-		return (await designPool().run(task, { signal })) as DesignOutcome;
+		return (await designPool().run(task, {
+			signal,
+			...(transferList ? { transferList: transferList as never } : {})
+		})) as DesignOutcome;
 	} catch (error) {
 		if (stop?.aborted) throw stop.reason;
 		if (signal.aborted)
@@ -84,10 +104,14 @@ async function runTimed(task: DesignTask, timeoutMs: number, stop?: AbortSignal)
 				{ code: 'timeout' }
 			);
 		if (error instanceof Error && /queue is at limit/i.test(error.message)) {
-			throw new ApiProblem(503, 'the server is busy with other design runs; try again in a moment', {
-				code: 'busy',
-				retryAfterSeconds: designAdmission.retryAfterSeconds()
-			});
+			throw new ApiProblem(
+				503,
+				'the server is busy with other design runs; try again in a moment',
+				{
+					code: 'busy',
+					retryAfterSeconds: designAdmission.retryAfterSeconds()
+				}
+			);
 		}
 		throw error;
 	}
