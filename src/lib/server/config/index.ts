@@ -195,7 +195,7 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
 		analysisTimeoutMs: e.ANALYSIS_TIMEOUT_MS ?? 15_000,
 		analysisMaxReactive: e.ANALYSIS_MAX_REACTIVE ?? 1000,
 		analysisQueue: e.ANALYSIS_QUEUE ?? 16,
-		analysisPerCaller: e.ANALYSIS_PER_CALLER ?? 3,
+		analysisPerCaller: e.ANALYSIS_PER_CALLER ?? 4,
 		analysisQueueWaitMs: e.ANALYSIS_QUEUE_WAIT_MS ?? 10_000,
 		designThreads: e.DESIGN_THREADS ?? 1,
 		designTimeoutMs: e.DESIGN_TIMEOUT_MS ?? 30_000,
