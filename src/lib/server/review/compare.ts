@@ -8,6 +8,7 @@ import { readRevision } from '../sharing/sheet-actions';
 import { outputSignature, sameValue, wiring } from './wiring';
 import type { Actor } from '../access';
 import { figureChange, zeroFloor, type FigureChange } from '../../review/figure-change';
+import { compareVariants } from './variant-compare';
 
 export interface FieldChange {
 	field: 'type' | 'value' | 'nodes' | 'control';
@@ -102,7 +103,7 @@ export interface Figure {
 export const gainUnit = (doc: NetworkDocument) =>
 	doc.elements.find((e) => e.id === doc.input)?.type === 'I' ? 'V/A' : 'V/V';
 
-function figures(a: Analysis | null, b: Analysis | null, gain: string): Figure[] {
+export function figureChanges(a: Analysis | null, b: Analysis | null, gain = 'V/V'): Figure[] {
 	const rows: [string, string, string, (x: Analysis) => number | null][] = [
 		['dcGain', 'DC gain', gain, (x) => x.dcGain],
 		['highFrequencyGain', 'Gain at high frequency', gain, (x) => x.highFrequencyGain],
@@ -140,6 +141,8 @@ export async function compareRevisions(actor: Actor, sheetId: string, from: numb
 		elements: diffElements(da, db),
 		poles: xa && xb ? matchSingularities(xa.poles, xb.poles) : [],
 		zeros: xa && xb ? matchSingularities(xa.zeros, xb.zeros) : [],
-		figures: figures(xa, xb, gainUnit(db))
+		figures: figureChanges(xa, xb, gainUnit(db)),
+		// A sheet with variants: the same, variant by variant (null without variants).
+		variants: await compareVariants(da, db)
 	};
 }
