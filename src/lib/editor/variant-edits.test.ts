@@ -19,10 +19,16 @@ import type { NetworkDocument } from '$lib/network/schema';
 describe('variant edits', () => {
 	it('builds a group, values, in/out per option, and tidies empty parts away', () => {
 		let v = addGroup(null, 'Range');
-		expect(v).toEqual({ groups: [{ name: 'Range', options: [{ name: 'as drawn' }, { name: 'option 2' }] }] });
+		expect(v).toEqual({
+			groups: [{ name: 'Range', options: [{ name: 'as drawn' }, { name: 'option 2' }] }]
+		});
 		v = setOptionValue(v, 0, 1, 'R1', ' 9.9M ');
 		v = setInOption(v, 0, 1, 'C9', false);
-		expect(v!.groups[0].options[1]).toEqual({ name: 'option 2', values: { R1: '9.9M' }, absent: ['C9'] });
+		expect(v!.groups[0].options[1]).toEqual({
+			name: 'option 2',
+			values: { R1: '9.9M' },
+			absent: ['C9']
+		});
 		expect(inOption(v, 0, 1, 'C9')).toBe(false);
 		expect(inOption(v, 0, 0, 'C9')).toBe(true);
 		// A part out of the base, put in by one option only.
@@ -47,7 +53,9 @@ describe('variant edits', () => {
 		v = renameElement(v, 'R1', 'Rtop');
 		expect(v!.groups[0].options[1].values).toEqual({ Rtop: '2k' });
 		v = dropElements(v, new Set(['Rtop', 'C1']));
-		expect(v).toEqual({ groups: [{ name: 'Range', options: [{ name: 'as drawn' }, { name: 'option 2' }] }] });
+		expect(v).toEqual({
+			groups: [{ name: 'Range', options: [{ name: 'as drawn' }, { name: 'option 2' }] }]
+		});
 		v = addOption(v, 0);
 		expect(v!.groups[0].options.map((o) => o.name)).toEqual(['as drawn', 'option 2', 'option 3']);
 		v = removeOption(removeOption(removeOption(v, 0, 2), 0, 1), 0, 0);
@@ -74,7 +82,14 @@ describe('the editor with variants', () => {
 		],
 		input: 'V1',
 		output: { node: 'out' },
-		variants: { groups: [{ name: 'Range', options: [{ name: '10:1' }, { name: '100:1', values: { R1: '9.9M', C1: '6.2p' } }] }] }
+		variants: {
+			groups: [
+				{
+					name: 'Range',
+					options: [{ name: '10:1' }, { name: '100:1', values: { R1: '9.9M', C1: '6.2p' } }]
+				}
+			]
+		}
 	};
 
 	it('keeps the variants through opening, building and undo', () => {
