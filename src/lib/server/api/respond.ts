@@ -20,7 +20,17 @@ export class ApiProblem extends Error {
 }
 
 export const problem = (status: number, message: string, details: Record<string, unknown> = {}) =>
-	json({ error: message, ...details }, { status, headers: { 'cache-control': 'no-store' } });
+	json(
+		{ error: message, ...details },
+		{
+			status,
+			headers: {
+				'cache-control': 'no-store',
+				// A busy server (503) or a caller over its share (429) says when to come back.
+				...(typeof details.retryAfterSeconds === 'number' ? { 'retry-after': String(details.retryAfterSeconds) } : {})
+			}
+		}
+	);
 
 function toResponse(e: unknown): Response {
 	if (e instanceof ApiProblem) return problem(e.status, e.message, e.details);
