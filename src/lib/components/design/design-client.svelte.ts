@@ -155,6 +155,31 @@ export class DesignClient {
 		return { ...(await this.call<T>('POST', path, { ...body, document })), source };
 	}
 
+	/**
+	 * The same request on every variant's own network, one after another (the design worker runs
+	 * one task at a time); each variant keeps its answer or its error.
+	 */
+	async forEveryVariant<T>(
+		path: string,
+		body: object | ((document: NetworkDocument) => object)
+	): Promise<{ name: string; value: T | null; error: string | null }[]> {
+		const d = this.drawing;
+		if (d?.problem)
+			throw { message: `The drawing cannot be analysed yet: ${d.problem}` } satisfies CallError;
+		const doc = d ? d.document : await this.refresh();
+		const out: { name: string; value: T | null; error: string | null }[] = [];
+		for (const v of hasVariants(doc) ? listVariants(doc) : []) {
+			try {
+				const document = resolveVariant(doc, v) as NetworkDocument;
+				const extra = typeof body === 'function' ? body(document) : body;
+				out.push({ name: v.name, value: await this.call<T>('POST', path, { ...extra, document }), error: null });
+			} catch (e) {
+				out.push({ name: v.name, value: null, error: messageOf(e) });
+			}
+		}
+		return out;
+	}
+
 	/** POST with the whole document, every variant included (for checks across the variants). */
 	async withFullDocument<T>(path: string, body: object): Promise<T & { source: DesignSource }> {
 		const d = this.drawing;
