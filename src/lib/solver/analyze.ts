@@ -189,8 +189,8 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 			? null
 			: logSpace(range.fMin, range.fMax, options.frequency?.points ?? 200);
 	// Every analysis sweeps the network equations over frequencies spanning all poles and zeros:
-	// the response grid when there is one, else a coarser grid for the checks alone.
-	const grid = freq ?? logSpace(range.fMin, range.fMax, 100);
+	// the response grid when there is one, else 60 points (ten a decade or more) for the checks.
+	const grid = freq ?? logSpace(range.fMin, range.fMax, 60);
 	const vInput = net.elements[net.input].type === 'V';
 	const sw = sweep(sys!, grid, true, vInput);
 	let frequencyResponse: Analysis['frequencyResponse'] = null;

@@ -3,6 +3,10 @@
 import { analyze, SolverError } from '../../solver';
 import type { AnalyzeOptions } from '../../solver';
 import { twoPort, TwoPortError, type TwoPortRequest, type TwoPortResult } from '../../exchange/two-port';
+import { yieldToServerThread } from './thread-priority';
+
+// Pages and saves first: this thread computes at a lower priority than the server's.
+yieldToServerThread();
 
 export interface AnalyzeTask {
 	document: unknown;
