@@ -28,6 +28,7 @@ import { sequentialTimeConstants } from './sequential';
 import { shortCircuitTimeConstantsRC } from './short-circuit-rc';
 import { shiftedModel } from './shift';
 import { stepResponse } from './step-response';
+import { withLogSamples } from './step-log-samples';
 import {
 	openCircuitPorts,
 	openCircuitTimeConstants,
@@ -222,6 +223,9 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 			fast > 0 ? 1 / fast : tEnd,
 			options.step?.points ?? 200
 		);
+		// Poles over more than two decades: add log-spaced samples for a log time axis.
+		const slowest = Math.min(...poles.map((p) => Math.hypot(p.re, p.im)).filter((x) => x > 0));
+		step = withLogSamples(step, md, fast > 0 ? 1 / fast : tEnd, fast / slowest);
 		if (pz && freq) {
 			// The residues rest on eigenvectors; check them against the pole–zero form once.
 			const w = 2 * Math.PI * Math.sqrt(range.fMin * range.fMax);
