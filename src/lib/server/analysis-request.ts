@@ -3,12 +3,15 @@
 import { z } from 'zod';
 import { networkDocumentSchema } from '../network/schema';
 import type { AnalyzeOptions } from '../solver';
-import { ApiProblem } from './api/respond';
+import { ApiProblem } from './api/problem';
 import { config } from './config';
+import { requireInteractive } from './analysis-limits';
+import { INTERACTIVE_ELEMENT_LIMIT } from '../network/limits';
 
 export const LIMITS = {
 	bodyBytes: 1_000_000,
-	elements: 3000,
+	/** Elements per analysis in a request (network/limits.ts; see analysis-limits.ts). */
+	elements: INTERACTIVE_ELEMENT_LIMIT,
 	get timeoutMs() {
 		return config().analysisTimeoutMs;
 	},
@@ -31,10 +34,8 @@ function describeIssue(document: unknown, issue: z.core.$ZodIssue) {
 }
 
 export function checkDocument(document: unknown) {
-	const count = (document as { elements?: unknown[] })?.elements?.length;
-	if (typeof count === 'number' && count > LIMITS.elements) {
-		throw new ApiProblem(413, `the network has ${count} elements; the limit is ${LIMITS.elements}`);
-	}
+	// Too large for a request: refused before the shape check reads every element.
+	requireInteractive(document);
 	const parsed = networkDocumentSchema.safeParse(document);
 	if (!parsed.success) {
 		const { error, ...extra } = describeIssue(document, parsed.error.issues[0]);

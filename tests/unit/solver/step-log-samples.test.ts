@@ -7,12 +7,14 @@ import { el, probe10x, quadratic } from './helpers';
 describe('log-spaced step samples (10:1 probe, poles 1768 Hz and 353.7 MHz: 5.3 decades)', () => {
 	const a = analyze(probe10x(), { step: { points: 101 } });
 	const s = a.step!;
-	test('t starts at 0, ascends, and has samples well before the 10 % point', () => {
-		expect(s.t[0]).toBe(0);
-		for (let i = 1; i < s.t.length; i++) expect(s.t[i]).toBeGreaterThan(s.t[i - 1]);
-		expect(s.t.length).toBeGreaterThan(101 + 100);
+	test('t keeps the requested 101 even samples; logSpaced ascends from a hundredth of the fastest time constant to the end, 24 a decade', () => {
+		expect(s.t).toHaveLength(101);
+		const l = s.logSpaced!;
+		for (let i = 1; i < l.t.length; i++) expect(l.t[i]).toBeGreaterThan(l.t[i - 1]);
 		const fastest = Math.max(...a.poles.map((p) => Math.hypot(p.re, p.im)));
-		expect(s.t[1]).toBeLessThanOrEqual(1.0001 / fastest / 100);
+		expect(l.t[0]).toBeCloseTo(1 / fastest / 100, 20);
+		expect(l.t[l.t.length - 1]).toBeCloseTo(s.t[100], 15);
+		expect(l.t.length).toBeGreaterThanOrEqual(Math.log10(s.t[100] * fastest * 100) * 24);
 	});
 	test('every sample equals the two-pole, one-zero step by partial fractions (closed form, 1e-9 of the final value)', () => {
 		const [Rs, Rt, Ct, Rin, Cin] = [50, 9e6, 10e-12, 1e6, 90e-12];
@@ -31,9 +33,12 @@ describe('log-spaced step samples (10:1 probe, poles 1768 Hz and 353.7 MHz: 5.3 
 				((1 - p2 / z) / (1 - p2 / p1)) * Math.exp(p2 * t));
 		let worst = 0;
 		s.t.forEach((t, i) => (worst = Math.max(worst, Math.abs(s.y[i] - y(t)) / h0)));
+		s.logSpaced!.t.forEach(
+			(t, i) => (worst = Math.max(worst, Math.abs(s.logSpaced!.y[i] - y(t)) / h0))
+		);
 		expect(worst).toBeLessThan(1e-9);
 	});
-	test('a single pole (no span) keeps the plain linear list', () => {
+	test('a single pole (no span) has no log-spaced samples', () => {
 		const b = analyze(
 			{
 				schema: 1,
@@ -48,5 +53,6 @@ describe('log-spaced step samples (10:1 probe, poles 1768 Hz and 353.7 MHz: 5.3 
 			{ step: { points: 101 } }
 		);
 		expect(b.step!.t).toHaveLength(101);
+		expect(b.step!.logSpaced).toBeUndefined();
 	});
 });
