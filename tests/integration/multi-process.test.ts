@@ -189,6 +189,17 @@ describe('several processes behind nginx on one database', () => {
 		});
 		expect(stale.status).toBe(409);
 		expect(stale.body.latest.number).toBe(3);
+		// Twenty saves on the same base at once, spread over both processes: exactly one wins.
+		const race = await Promise.all(
+			Array.from({ length: 20 }, () =>
+				user.json('PUT', `/api/sheets/${sheetId}/revisions`, {
+					baseRevision: 3,
+					document: digitizerDivider
+				})
+			)
+		);
+		expect(race.map((r) => r.status).sort()).toEqual([201, ...Array(19).fill(409)]);
+		expect(new Set(race.map((r) => r.upstream)).size).toBe(2);
 	}, 60_000);
 
 	it('a live update published by one web process reaches a stream held by the other, through the proxy', async () => {
@@ -202,7 +213,7 @@ describe('several processes behind nginx on one database', () => {
 		let text = '';
 		const arrived = (async () => {
 			const decoder = new TextDecoder();
-			while (!/"kind":"revision"[^\n]*"number":4/.test(text)) {
+			while (!/"kind":"revision"[^\n]*"number":5/.test(text)) {
 				const { value, done } = await reader.read();
 				if (done) break;
 				text += decoder.decode(value, { stream: true });
@@ -213,7 +224,7 @@ describe('several processes behind nginx on one database', () => {
 		// unless something came in between).
 		if (user.last !== streamOn) await user.request('GET', '/api/health');
 		const save = await user.json('PUT', `/api/sheets/${sheetId}/revisions`, {
-			baseRevision: 3,
+			baseRevision: 4,
 			document: digitizerDivider
 		});
 		expect(save.status).toBe(201);
@@ -222,7 +233,7 @@ describe('several processes behind nginx on one database', () => {
 		const timeout = new Promise<string>((_, reject) =>
 			setTimeout(() => reject(new Error(`no revision event within 15 s; got: ${text}`)), 15_000)
 		);
-		expect(await Promise.race([arrived, timeout])).toMatch(/"kind":"revision"[^\n]*"number":4/);
+		expect(await Promise.race([arrived, timeout])).toMatch(/"kind":"revision"[^\n]*"number":5/);
 		await reader.cancel();
 	}, 30_000);
 

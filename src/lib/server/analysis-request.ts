@@ -3,7 +3,7 @@
 import { z } from 'zod';
 import { networkDocumentSchema } from '../network/schema';
 import type { AnalyzeOptions } from '../solver';
-import { ApiProblem } from './api/respond';
+import { ApiProblem } from './api/problem';
 import { config } from './config';
 import { requireInteractive } from './analysis-limits';
 import { INTERACTIVE_ELEMENT_LIMIT } from '../network/limits';

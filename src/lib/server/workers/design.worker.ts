@@ -22,6 +22,10 @@ import type { CrossSpec, SpecLimits } from '../../network/design-schema';
 import type { NetworkDocument } from '../../network/schema';
 import { VariantError } from '../../network/variants';
 import { judgeVariants } from '../../design/variant-spec';
+import { yieldToServerThread } from './thread-priority';
+
+// Pages and saves first: this thread computes at a lower priority than the server's.
+yieldToServerThread();
 
 export type DesignTask =
 	| { kind: 'sweep'; document: unknown; request: SweepRequest }
