@@ -2,13 +2,15 @@
 // (naming the element at fault) and the response options, each problem an ApiProblem.
 import { z } from 'zod';
 import { networkDocumentSchema } from '../network/schema';
+import { ELEMENT_LIMIT, INTERACTIVE_ELEMENT_LIMIT } from '../network/limits';
 import type { AnalyzeOptions } from '../solver';
 import { ApiProblem } from './api/respond';
 import { config } from './config';
 
 export const LIMITS = {
 	bodyBytes: 1_000_000,
-	elements: 3000,
+	/** In a request; larger networks are queued (POST /api/analyze/jobs; network/limits.ts). */
+	elements: INTERACTIVE_ELEMENT_LIMIT,
 	get timeoutMs() {
 		return config().analysisTimeoutMs;
 	},
@@ -33,7 +35,11 @@ function describeIssue(document: unknown, issue: z.core.$ZodIssue) {
 export function checkDocument(document: unknown) {
 	const count = (document as { elements?: unknown[] })?.elements?.length;
 	if (typeof count === 'number' && count > LIMITS.elements) {
-		throw new ApiProblem(413, `the network has ${count} elements; the limit is ${LIMITS.elements}`);
+		throw new ApiProblem(
+			413,
+			`the network has ${count} elements; the limit for an analysis in a request is ${LIMITS.elements}: save it as a sheet and queue it with POST /api/analyze/jobs (up to ${ELEMENT_LIMIT} elements)`,
+			{ code: 'too_large_for_request', limit: LIMITS.elements }
+		);
 	}
 	const parsed = networkDocumentSchema.safeParse(document);
 	if (!parsed.success) {

@@ -30,14 +30,19 @@ export function designPool(): Piscina {
 export async function runDesign(
 	task: DesignTask,
 	timeoutMs = config().designTimeoutMs,
-	stop?: AbortSignal
+	stop?: AbortSignal,
+	/** Objects moved to the worker (a progress MessagePort). */
+	transferList?: Transferable[]
 ): Promise<unknown> {
 	const timeout = AbortSignal.timeout(timeoutMs);
 	// `stop`: a background job that must end (cancelled, taken over) ends its chunk at once.
 	const signal = stop ? AbortSignal.any([timeout, stop]) : timeout;
 	let outcome: DesignOutcome;
 	try {
-		outcome = (await designPool().run(task, { signal })) as DesignOutcome;
+		outcome = (await designPool().run(task, {
+			signal,
+			...(transferList ? { transferList: transferList as never } : {})
+		})) as DesignOutcome;
 	} catch (error) {
 		if (stop?.aborted) throw stop.reason;
 		if (signal.aborted)
