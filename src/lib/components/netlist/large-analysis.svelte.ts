@@ -58,6 +58,26 @@ export class LargeAnalysis {
 		}
 	}
 
+	/**
+	 * Pick up this revision's latest queued analysis (the page was reloaded, or opened by
+	 * someone else while it runs): follow it if it is still going, show it if it is done.
+	 */
+	async resume() {
+		try {
+			const res = await fetch(`/api/design/sheets/${this.sheetId}/jobs`);
+			if (!res.ok) return;
+			const { jobs } = (await res.json()) as {
+				jobs: { id: string; kind: string; revision: number; state: JobState }[];
+			};
+			const mine = jobs.find((j) => j.kind === 'large-analysis' && j.revision === this.revision);
+			if (!mine || mine.state === 'failed' || mine.state === 'cancelled' || this.jobId) return;
+			this.startedAt = null;
+			this.#take(await this.#call(`/api/design/jobs/${mine.id}`));
+		} catch {
+			// Nothing to resume is the same as nothing found.
+		}
+	}
+
 	async cancel() {
 		if (!this.jobId) return;
 		try {
