@@ -120,7 +120,7 @@ export function findVariant(doc: WithVariants, name: string): VariantInfo {
 
 /** What one variant does to each part: the value it sets (and which option set it), or absence. */
 export interface Overrides {
-	values: Map<string, { value: number | string; option: string }>;
+	values: Map<string, { value: number | string; option: string; group: number }>;
 	absent: Set<string>;
 	/** Parts this variant's options put in although the base leaves them out. */
 	present: Set<string>;
@@ -142,7 +142,7 @@ export function overridesOf(doc: WithVariants, choice: number[]): Overrides {
 					`"${earlier.option}" and "${label}" both set the value of ${id}; set it in one group only`,
 					{ element: id }
 				);
-			out.values.set(id, { value, option: label });
+			out.values.set(id, { value, option: label, group: k });
 		}
 		const mark = (id: string, present: boolean) => {
 			const earlier = said.get(id);
@@ -162,6 +162,12 @@ export function overridesOf(doc: WithVariants, choice: number[]): Overrides {
 			out.present.add(id);
 		} else out.absent.add(id);
 	}
+	// In the drawing's order of parts: stored JSON (PostgreSQL's jsonb) does not keep key order.
+	const order = new Map(doc.elements.map((e, i) => [e.id, i]));
+	const byDrawing = (a: string, b: string) => (order.get(a) ?? 0) - (order.get(b) ?? 0);
+	out.values = new Map([...out.values].sort(([a], [b]) => byDrawing(a, b)));
+	out.absent = new Set([...out.absent].sort(byDrawing));
+	out.present = new Set([...out.present].sort(byDrawing));
 	return out;
 }
 

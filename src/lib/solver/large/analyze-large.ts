@@ -203,6 +203,7 @@ export function analyzeLarge(
 		poles,
 		zeros: [],
 		pairs: [],
+		doublets: [], // no zeros at this size, so no doublets
 		dcGain,
 		highFrequencyGain: null,
 		timeConstants: {
