@@ -17,6 +17,7 @@ import { reportData } from '../../src/lib/server/exchange/report-data';
 import { closeAnalysisPool } from '../../src/lib/server/jobs/analysis-pool';
 import { closeDesignPool } from '../../src/lib/server/jobs/design-pool';
 import * as variantSpec from '../../src/routes/api/design/variant-spec/+server';
+import * as revisionAnalysis from '../../src/routes/api/sheets/[id=uuid]/revisions/[n=revision]/analysis/+server';
 import type { NetworkDocument } from '../../src/lib/network/schema';
 
 useDatabase();
@@ -30,7 +31,12 @@ const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 async function world() {
 	const ana = await person('Ana');
 	const ws = await createWorkspace(ana.id, 'Range bench');
-	const { sheet } = await createSheet({ userId: ana.id, workspaceId: ws.id, name: 'Divider', document: digitizerDividerRanges });
+	const { sheet } = await createSheet({
+		userId: ana.id,
+		workspaceId: ws.id,
+		name: 'Divider',
+		document: digitizerDividerRanges
+	});
 	await saveDesignSettings(sheet.id, ana.id, dividerSettings);
 	return { ana, sheet, actor: { kind: 'user' as const, id: ana.id } };
 }
@@ -38,8 +44,12 @@ async function world() {
 /** Revision 2: each position's top capacitor at its closed-form compensation (1.2 m cable). */
 function compensated(): NetworkDocument {
 	const doc = structuredClone(digitizerDividerRanges) as unknown as NetworkDocument;
-	const shunt = (rsh: number | null, csh: number) => ({ r: 1 / (1e-6 + (rsh ? 1 / rsh : 0)), c: csh + 42e-12 + 18e-12 });
-	const ctop = (rtop: number, rsh: number | null, csh: number) => (shunt(rsh, csh).r * shunt(rsh, csh).c) / rtop;
+	const shunt = (rsh: number | null, csh: number) => ({
+		r: 1 / (1e-6 + (rsh ? 1 / rsh : 0)),
+		c: csh + 42e-12 + 18e-12
+	});
+	const ctop = (rtop: number, rsh: number | null, csh: number) =>
+		(shunt(rsh, csh).r * shunt(rsh, csh).c) / rtop;
 	doc.elements.find((e) => e.id === 'Ctop')!.value = ctop(9e6, null, 0);
 	doc.variants!.groups[0].options[1].values!.Ctop = ctop(9.9e6, 111.1e3, 540e-12);
 	doc.variants!.groups[0].options[2].values!.Ctop = ctop(9.99e6, 10.1e3, 5940e-12);
@@ -49,7 +59,11 @@ function compensated(): NetworkDocument {
 describe('variants through review', () => {
 	it('POST /api/design/variant-spec judges every variant and the specs across them', async () => {
 		const { ana } = await world();
-		const r = await call(variantSpec.POST, { user: ana, method: 'POST', body: { document: compensated(), ...dividerSettings } });
+		const r = await call(variantSpec.POST, {
+			user: ana,
+			method: 'POST',
+			body: { document: compensated(), ...dividerSettings }
+		});
 		expect(r.status).toBe(200);
 		expect(r.body.variants).toHaveLength(6);
 		// 10 MΩ everywhere (9M + 1M, 9.9M + 100k, 9.99M + 10k), steps 1 : 10 : 100 from the resistors.
@@ -61,14 +75,28 @@ describe('variants through review', () => {
 			['1.2 m cable', true],
 			['2 m cable', true]
 		]);
-		const bad = await call(variantSpec.POST, { user: ana, method: 'POST', body: { document: compensated(), across: [{ kind: 'ratio', figure: 'dcGain', group: 'Range', ratios: { '10:1': 1 }, tolerance: 0.1 }] } });
+		const bad = await call(variantSpec.POST, {
+			user: ana,
+			method: 'POST',
+			body: {
+				document: compensated(),
+				across: [
+					{ kind: 'ratio', figure: 'dcGain', group: 'Range', ratios: { '10:1': 1 }, tolerance: 0.1 }
+				]
+			}
+		});
 		expect(bad.status).toBe(400);
 		expect(bad.body.error).toMatch(/at least two options/);
 	});
 
 	it('a stored revision is judged per variant: the seeded positions fail the input-capacitance spec, the compensated ones pass', async () => {
 		const { ana, sheet, actor } = await world();
-		await saveRevision(ana.id, sheet.id, { document: compensated(), message: 'compensated per position' }, 1);
+		await saveRevision(
+			ana.id,
+			sheet.id,
+			{ document: compensated(), message: 'compensated per position' },
+			1
+		);
 		const spec = await compareSpec(actor, sheet.id, 1, 2);
 		const cinBefore = spec.variantsBefore!.across[2];
 		const cinAfter = spec.variantsAfter!.across[2];
@@ -122,6 +150,27 @@ describe('variants through review', () => {
 		const sh = 1 / (1e-6 + 1 / 10.1e3);
 		expect(rel(v.analysis!.dcGain!, sh / (50 + 9.99e6 + sh))).toBeLessThan(1e-9);
 		expect(report.variants!.spec!.across).toHaveLength(3);
+	});
+
+	it('a stored revision analyses as its base, one variant or all of them', async () => {
+		const { ana, sheet } = await world();
+		const get = (query: string) =>
+			call(revisionAnalysis.GET, {
+				user: ana,
+				params: { id: sheet.id, n: '1' },
+				path: `/api/sheets/${sheet.id}/revisions/1/analysis${query}`
+			});
+		// Closed form (divider): the base is 10:1, 1M against 9M plus the 50 Ω source.
+		const base = await get('');
+		expect(base.status).toBe(200);
+		expect(rel(base.body.analysis.dcGain, 1e6 / (50 + 9e6 + 1e6))).toBeLessThan(1e-9);
+		const one = await get(`?variant=${encodeURIComponent('100:1 · 2 m cable')}`);
+		expect(one.body.variant).toBe('100:1 · 2 m cable');
+		const sh = 1 / (1e-6 + 1 / 111.1e3);
+		expect(rel(one.body.analysis.dcGain, sh / (50 + 9.9e6 + sh))).toBeLessThan(1e-9);
+		const all = await get('?variants=all');
+		expect(all.body.variants).toHaveLength(6);
+		expect((await get('?variant=nope')).status).toBe(422);
 	});
 
 	it('changing only an override changes the network a sign-off covered', async () => {

@@ -72,11 +72,18 @@ export function figureOf(m: Metrics | null, f: CrossFigure): number | null {
 }
 
 const show = (v: number | null, f: CrossFigure) =>
-	v === null ? 'not defined' : f === 'dcGain' || f === 'attenuation' ? String(Number(v.toPrecision(6))) : formatEngineering(v, UNIT[f], 4);
+	v === null
+		? 'not defined'
+		: f === 'dcGain' || f === 'attenuation'
+			? String(Number(v.toPrecision(6)))
+			: formatEngineering(v, UNIT[f], 4);
 const percent = (x: number) => `${Number((x * 100).toPrecision(3))} %`;
 
 export function crossLabel(c: CrossSpec, capacitanceAt = DEFAULT_CAPACITANCE_AT): string {
-	const fig = c.figure === 'inputCapacitance' ? `${LABEL[c.figure]} at ${formatEngineering(capacitanceAt, 'Hz')}` : LABEL[c.figure];
+	const fig =
+		c.figure === 'inputCapacitance'
+			? `${LABEL[c.figure]} at ${formatEngineering(capacitanceAt, 'Hz')}`
+			: LABEL[c.figure];
 	if (c.kind === 'equal')
 		return `${fig} equal ${c.group ? `across ${c.group}` : 'in every variant'}, within ${percent(c.tolerance)}`;
 	const steps = Object.entries(c.ratios).sort((a, b) => a[1] - b[1]);
@@ -84,7 +91,10 @@ export function crossLabel(c: CrossSpec, capacitanceAt = DEFAULT_CAPACITANCE_AT)
 }
 
 /** Variants grouped by the options of every group but `g` (g = -1: one set of all). */
-function setsOf(variants: VariantJudged[], g: number): { within: string; members: VariantJudged[] }[] {
+function setsOf(
+	variants: VariantJudged[],
+	g: number
+): { within: string; members: VariantJudged[] }[] {
 	const out = new Map<string, VariantJudged[]>();
 	for (const v of variants) {
 		const key = g < 0 ? '' : v.options.filter((_, i) => i !== g).join(' · ');
@@ -104,23 +114,55 @@ export function checkAcross(
 		const label = crossLabel(c, capacitanceAt);
 		const g = c.group === undefined ? -1 : groups.findIndex((x) => x.name === c.group);
 		if (c.group !== undefined && g < 0)
-			return { label, pass: false, sets: [{ within: '—', members: [], detail: `the sheet has no variant group “${c.group}”`, pass: false }] };
+			return {
+				label,
+				pass: false,
+				sets: [
+					{
+						within: '—',
+						members: [],
+						detail: `the sheet has no variant group “${c.group}”`,
+						pass: false
+					}
+				]
+			};
 		const sets = setsOf(variants, g).flatMap(({ within, members }) => {
-			const inSpec = c.kind === 'ratio' ? members.filter((m) => c.ratios[m.options[g]] !== undefined) : members;
+			const inSpec =
+				c.kind === 'ratio' ? members.filter((m) => c.ratios[m.options[g]] !== undefined) : members;
 			if (inSpec.length < 2) return [];
 			const list = inSpec.map((m) => {
 				const value = figureOf(m.figures, c.figure);
-				return { variant: m.name, option: g >= 0 ? m.options[g] : m.name, value, shown: m.error ? `not analysed (${m.error})` : show(value, c.figure) };
+				return {
+					variant: m.name,
+					option: g >= 0 ? m.options[g] : m.name,
+					value,
+					shown: m.error ? `not analysed (${m.error})` : show(value, c.figure)
+				};
 			});
 			const missing = list.find((m) => m.value === null);
 			const members_ = list.map(({ variant, value, shown }) => ({ variant, value, shown }));
-			if (missing) return [{ within, members: members_, detail: `${missing.variant} has no ${LABEL[c.figure].toLowerCase()}`, pass: false }];
+			if (missing)
+				return [
+					{
+						within,
+						members: members_,
+						detail: `${missing.variant} has no ${LABEL[c.figure].toLowerCase()}`,
+						pass: false
+					}
+				];
 			const values = list.map((m) => m.value!);
 			if (c.kind === 'equal') {
 				const lo = Math.min(...values.map(Math.abs));
 				const spread = (Math.max(...values) - Math.min(...values)) / (lo || 1);
 				const pass = spread <= c.tolerance;
-				return [{ within, members: members_, detail: `spread ${percent(spread)}, allowed ${percent(c.tolerance)}`, pass }];
+				return [
+					{
+						within,
+						members: members_,
+						detail: `spread ${percent(spread)}, allowed ${percent(c.tolerance)}`,
+						pass
+					}
+				];
 			}
 			// Ratios relative to the option with the smallest stated ratio.
 			const ref = list.reduce((a, b) => (c.ratios[b.option] < c.ratios[a.option] ? b : a));
@@ -133,16 +175,23 @@ export function checkAcross(
 				})
 				.reduce((a, b) => (b.off > a.off ? b : a));
 			const pass = worst.off <= c.tolerance;
-			return [{
-				within,
-				members: members_,
-				detail: `${worst.m.option} : ${ref.option} is ${Number(worst.got.toPrecision(5))} against ${Number(worst.want.toPrecision(5))} (off by ${percent(worst.off)}, allowed ${percent(c.tolerance)})`,
-				pass
-			}];
+			return [
+				{
+					within,
+					members: members_,
+					detail: `${worst.m.option} : ${ref.option} is ${Number(worst.got.toPrecision(5))} against ${Number(worst.want.toPrecision(5))} (off by ${percent(worst.off)}, allowed ${percent(c.tolerance)})`,
+					pass
+				}
+			];
 		});
 		if (sets.length === 0)
-			return { label, pass: false, sets: [{ within: '—', members: [], detail: 'fewer than two variants to compare', pass: false }] };
+			return {
+				label,
+				pass: false,
+				sets: [
+					{ within: '—', members: [], detail: 'fewer than two variants to compare', pass: false }
+				]
+			};
 		return { label, sets, pass: sets.every((s) => s.pass) };
 	});
 }
-

@@ -14,18 +14,36 @@ import { checkAcross, type VariantJudged, type VariantSpecOutcome } from './cros
 export * from './cross-spec';
 
 /** Evaluate every variant of the document and judge the limits and the cross-variant specs. */
-export function judgeVariants(doc: NetworkDocument, spec: SpecLimits, across: CrossSpec[]): VariantSpecOutcome {
+export function judgeVariants(
+	doc: NetworkDocument,
+	spec: SpecLimits,
+	across: CrossSpec[]
+): VariantSpecOutcome {
 	const list: VariantInfo[] = listVariants(doc);
-	const needsInput = across.some((c) => c.figure === 'inputCapacitance' || c.figure === 'inputResistance');
+	const needsInput = across.some(
+		(c) => c.figure === 'inputCapacitance' || c.figure === 'inputResistance'
+	);
 	const at = spec.inputCapacitanceAt ?? DEFAULT_CAPACITANCE_AT;
 	const opts = { ...optionsFor(spec), ...(needsInput ? { inputAt: at } : {}) };
 	const variants: VariantJudged[] = list.map((v) => {
 		try {
 			const m = metricsOf(evaluateWith(openVariants(resolveVariant(doc, v)), {}, opts));
-			return { name: v.name, options: v.options, figures: m, spec: checkSpec(spec, m), error: null };
+			return {
+				name: v.name,
+				options: v.options,
+				figures: m,
+				spec: checkSpec(spec, m),
+				error: null
+			};
 		} catch (e) {
 			if (e instanceof SolverError || (e as Error).name === 'VariantError')
-				return { name: v.name, options: v.options, figures: null, spec: null, error: (e as Error).message };
+				return {
+					name: v.name,
+					options: v.options,
+					figures: null,
+					spec: null,
+					error: (e as Error).message
+				};
 			throw e;
 		}
 	});

@@ -9,7 +9,12 @@
 // may not disagree about the same part (both set its value, or one puts it in and one takes it
 // out): which should win is the designer's decision, so it is an error naming both.
 import type { NetworkDocument, NetworkElement } from './schema';
-import { VARIANT_JOIN, VARIANT_LIMITS, type VariantOption, type VariantSet } from './variant-schema';
+import {
+	VARIANT_JOIN,
+	VARIANT_LIMITS,
+	type VariantOption,
+	type VariantSet
+} from './variant-schema';
 
 export interface VariantInfo {
 	/** The option names joined with " · " — the variant's name in tables, legends and the API. */
@@ -49,8 +54,7 @@ function checkReferences(doc: WithVariants): void {
 	for (const id of baseAbsent) known(id, 'variants.absent');
 	const groupNames = new Set<string>();
 	for (const g of v.groups) {
-		if (groupNames.has(g.name))
-			throw new VariantError(`two variant groups are called "${g.name}"`);
+		if (groupNames.has(g.name)) throw new VariantError(`two variant groups are called "${g.name}"`);
 		groupNames.add(g.name);
 		const optionNames = new Set<string>();
 		for (const o of g.options) {
@@ -128,7 +132,11 @@ export interface Overrides {
 
 export function overridesOf(doc: WithVariants, choice: number[]): Overrides {
 	const v = doc.variants;
-	const out: Overrides = { values: new Map(), absent: new Set(v?.absent ?? []), present: new Set() };
+	const out: Overrides = {
+		values: new Map(),
+		absent: new Set(v?.absent ?? []),
+		present: new Set()
+	};
 	if (!v) return out;
 	const said = new Map<string, { present: boolean; option: string }>();
 	v.groups.forEach((g, k) => {
@@ -188,7 +196,11 @@ export function resolveVariant<D extends WithVariants>(
 /** The base network: the drawing minus the parts absent in the base; no overrides. */
 export function baseNetwork<D extends WithVariants>(doc: D): Omit<D, 'variants'> {
 	if (!doc.variants) return doc;
-	return apply(doc, { values: new Map(), absent: new Set(doc.variants.absent ?? []), present: new Set() });
+	return apply(doc, {
+		values: new Map(),
+		absent: new Set(doc.variants.absent ?? []),
+		present: new Set()
+	});
 }
 
 function apply<D extends WithVariants>(doc: D, o: Overrides): Omit<D, 'variants'> {

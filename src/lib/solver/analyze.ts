@@ -129,6 +129,12 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		const top = Math.max(0, ...roots.map((r) => Math.hypot(r.re, r.im))) || s0;
 		inf = atInfinity(sys, top);
 		const expected = inf.degree === null ? null : Math.max(0, roots.length - inf.degree);
+		if (inf.degree === null && inf.value === null)
+			extra.push({
+				code: 'high_frequency_unknown',
+				message:
+					'the behaviour at infinite frequency could not be read from the network equations: H(∞) and the number of finite zeros are unknown'
+			});
 		const atOrigin = zerosAtOrigin(sys, roots);
 		let zpm = pm;
 		// With every port mode finite and no finite zero expected, the zero eigenproblem would

@@ -17,13 +17,18 @@ import type { Doublet, PortReading, ResolvedNetwork, Singularity } from './types
  * Real doublets only get a closing change (a complex pair needs two values to meet its zero).
  */
 export const DEFAULT_DOUBLET_RATIO = 0.1;
-/** Doublets that get a closing change, slowest tails first; each costs a few eigen-solves. */
-const CLOSE_AT_MOST = 4;
+/**
+ * Doublets that get a closing change, largest tails first; each costs some twenty pole-and-zero
+ * solves, so only those within the default ratio get one (the editor asks for doublets up to
+ * 50 % apart and filters by its own setting).
+ */
+const CLOSE_AT_MOST = 2;
+const CLOSE_WITHIN = DEFAULT_DOUBLET_RATIO;
 const CANDIDATES = 3;
 const ADJUSTABLE = new Set(['R', 'C', 'L']);
 /** Each probe is a full pole and zero solve: above these sizes closing changes are not computed. */
 export const CLOSING_MAX_REACTIVE = 40;
-const SCAN_AT_MOST = 24;
+const SCAN_AT_MOST = 16;
 
 export function findDoublets(
 	net: ResolvedNetwork,
@@ -50,7 +55,7 @@ export function findDoublets(
 	// Close the largest tails first (they are what the designer trims).
 	const order = out
 		.map((d, i) => i)
-		.filter((i) => out[i].tail !== null)
+		.filter((i) => out[i].tail !== null && Math.abs(out[i].separation) < CLOSE_WITHIN)
 		.sort((i, j) => Math.abs(out[j].tail!) - Math.abs(out[i].tail!));
 	if (net.reactive.length > CLOSING_MAX_REACTIVE) {
 		for (const i of order)

@@ -4,6 +4,7 @@ import type { PortModel } from './port-model';
 import { stateModel, stateTransfer } from './state-model';
 import { figuresOnGrid, metricsGrid, stepEvaluator, stepResponse } from './step-response';
 import { stateStepper } from './step-state';
+import { withLogSamples } from './step-log-samples';
 import type { Analysis, Warning } from './types';
 
 /**
@@ -94,7 +95,9 @@ export function trustedStep(x: StepInputs): { step: Analysis['step']; warning: W
 			return untrusted(
 				`its pole–residue form differs from the network equations by ${modalDiff.toPrecision(2)} (relative)`
 			);
-		const curve = stepResponse(md, null, x.tEnd, x.tFast, x.points);
+		// Poles over more than two decades: log-spaced samples too, for a log time axis
+		// (step-log-samples.ts; the same trusted pole–residue form).
+		const curve = withLogSamples(stepResponse(md, null, x.tEnd, x.tFast, x.points), md, x.tFast);
 		if (!figuresWanted) return { step: { ...curve, final: x.final }, warning: null };
 		if (samples * Math.max(1, md.poles.length) > WORK)
 			return { step: { ...curve, final: x.final }, warning: tooLong };

@@ -219,6 +219,8 @@ export interface Analysis {
 		overshoot: number | null;
 		settlingTime: number | null;
 		final: number | null;
+		/** When the poles span more than two decades: samples evenly spaced in log t, for a log time axis. */
+		logSpaced?: { t: number[]; y: number[] };
 	} | null;
 	inputImpedance: {
 		dc: Complex | null;

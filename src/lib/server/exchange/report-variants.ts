@@ -23,10 +23,14 @@ export async function reportVariants(document: unknown, sheetId?: string) {
 	try {
 		list = listVariants(doc);
 	} catch (e) {
-		if (e instanceof VariantError) return { list: [] as ReportVariant[], spec: null, error: e.message };
+		if (e instanceof VariantError)
+			return { list: [] as ReportVariant[], spec: null, error: e.message };
 		throw e;
 	}
-	const outcomes = await analyzeVariants(doc, list, { frequency: { points: 300 }, step: { points: 400 } });
+	const outcomes = await analyzeVariants(doc, list, {
+		frequency: { points: 300 },
+		step: { points: 400 }
+	});
 	const words = (choice: number[]) => {
 		try {
 			const o = overridesOf(doc, choice);
@@ -48,7 +52,12 @@ export async function reportVariants(document: unknown, sheetId?: string) {
 	let spec: VariantSpecOutcome | null = null;
 	if (sheetId) {
 		const settings = await getDesignSettings(sheetId);
-		const judged = await runDesign({ kind: 'variant-spec', document: doc, spec: settings.spec, across: settings.across ?? [] }).catch(() => null);
+		const judged = await runDesign({
+			kind: 'variant-spec',
+			document: doc,
+			spec: settings.spec,
+			across: settings.across ?? []
+		}).catch(() => null);
 		spec = (judged as VariantSpecOutcome | null) ?? null;
 	}
 	return { list: rows, spec, error: null as string | null };

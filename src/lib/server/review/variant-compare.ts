@@ -5,9 +5,21 @@
 // name (their option names), so renaming an option reads as one variant removed, one added.
 import type { NetworkDocument } from '../../network/schema';
 import type { Analysis } from '../../solver';
-import { hasVariants, listVariants, resolveVariant, type VariantInfo } from '../../network/variants';
+import {
+	hasVariants,
+	listVariants,
+	resolveVariant,
+	type VariantInfo
+} from '../../network/variants';
 import { analyzeVariants } from '../variant-analysis';
-import { diffElements, figureChanges, matchSingularities, type ElementDiff, type Figure, type Movement } from './compare';
+import {
+	diffElements,
+	figureChanges,
+	matchSingularities,
+	type ElementDiff,
+	type Figure,
+	type Movement
+} from './compare';
 
 export interface VariantComparison {
 	name: string;
@@ -31,21 +43,34 @@ function variantsOf(doc: NetworkDocument): VariantInfo[] {
 }
 
 /** Null when neither revision has variants (the plain comparison says everything). */
-export async function compareVariants(a: NetworkDocument, b: NetworkDocument): Promise<VariantComparison[] | null> {
+export async function compareVariants(
+	a: NetworkDocument,
+	b: NetworkDocument
+): Promise<VariantComparison[] | null> {
 	const [va, vb] = [variantsOf(a), variantsOf(b)];
 	if (va.length === 0 && vb.length === 0) return null;
-	const [oa, ob] = await Promise.all([analyzeVariants(a, va, OPTIONS), analyzeVariants(b, vb, OPTIONS)]);
-	const byName = (list: VariantInfo[], outs: typeof oa) => new Map(list.map((v, i) => [v.name, { info: v, out: outs[i] }]));
+	const [oa, ob] = await Promise.all([
+		analyzeVariants(a, va, OPTIONS),
+		analyzeVariants(b, vb, OPTIONS)
+	]);
+	const byName = (list: VariantInfo[], outs: typeof oa) =>
+		new Map(list.map((v, i) => [v.name, { info: v, out: outs[i] }]));
 	const [ma, mb] = [byName(va, oa), byName(vb, ob)];
 	const names = [...new Set([...va.map((v) => v.name), ...vb.map((v) => v.name)])];
 	return names.map((name) => {
 		const [x, y] = [ma.get(name), mb.get(name)];
-		const [xa, ya] = [x?.out.analysis as Analysis | null | undefined, y?.out.analysis as Analysis | null | undefined];
+		const [xa, ya] = [
+			x?.out.analysis as Analysis | null | undefined,
+			y?.out.analysis as Analysis | null | undefined
+		];
 		const both = !!x && !!y;
 		let elements: ElementDiff | null = null;
 		if (both) {
 			try {
-				elements = diffElements(resolveVariant(a, x.info) as NetworkDocument, resolveVariant(b, y.info) as NetworkDocument);
+				elements = diffElements(
+					resolveVariant(a, x.info) as NetworkDocument,
+					resolveVariant(b, y.info) as NetworkDocument
+				);
 			} catch {
 				elements = null;
 			}
