@@ -41,6 +41,12 @@ export const designAdmission = new Admission('design runs', () => {
 	};
 });
 
+/** Refuse now, before a (up to 2 MB) body is read, when the run would be refused anyway. */
+export function shedDesignEarly(): void {
+	const refused = designAdmission.refusal(currentCaller()?.key ?? null);
+	if (refused) throw refused;
+}
+
 /** One design task: too-large networks refused (413), admitted by turn, then run under a time
  * limit that counts running time only; a refusal by the solver or the design aids is 422.
  * `stop`: a background job that must end (cancelled, taken over) leaves the line or ends its
