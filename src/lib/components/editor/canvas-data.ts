@@ -30,6 +30,10 @@ export interface ElementNodeData extends Record<string, unknown> {
 export interface WireEdgeData extends Record<string, unknown> {
 	fault: boolean;
 	net: string;
+	/** This wire carries its net's name tag (one wire per net; others show it on hover). */
+	nameTag: boolean;
+	/** The names are switched on in the toolbar (else the tag shows on hover only). */
+	showNames: boolean;
 }
 
 export function sameNodeData(a: ElementNodeData, b: ElementNodeData): boolean {

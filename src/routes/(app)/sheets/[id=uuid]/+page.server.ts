@@ -5,7 +5,7 @@ import { listRevisions } from '$lib/server/db/sheets';
 import { formAction } from '$lib/server/sharing/form-action';
 import { answerSpec } from '$lib/server/review/spec-compare';
 import { requestContext } from '$lib/server/sharing/context';
-import { readRevision, renameSheetAs, restoreRevisionAs, trashSheetAs, duplicateSheetAs } from '$lib/server/sharing/sheet-actions';
+import { checkpointsOf, nameRevisionAs, readRevision, renameSheetAs, restoreRevisionAs, trashSheetAs, duplicateSheetAs } from '$lib/server/sharing/sheet-actions';
 import { cancelGuestInvitation, changeGrant, endShareLink, newShareLink, sharingOf, shareWithEmail, unshare } from '$lib/server/sharing/share-actions';
 import * as schema from './schema';
 import type { Actions, PageServerLoad } from './$types';
@@ -20,7 +20,7 @@ export const load: PageServerLoad = async ({ params, url, locals }) => {
 	try {
 		const { sheet, workspace, revision, role, can, target } = await readRevision(actor, params.id, number);
 		const viewingOld = revision.number !== sheet.latestRevision;
-		const [history, sharing] = await Promise.all([listRevisions(sheet.id), can('share') ? sharingOf(actor, sheet.id) : null]);
+		const [history, checkpoints, sharing] = await Promise.all([listRevisions(sheet.id), checkpointsOf(sheet.id), can('share') ? sharingOf(actor, sheet.id) : null]);
 		return {
 			sheet,
 			revision,
@@ -29,6 +29,7 @@ export const load: PageServerLoad = async ({ params, url, locals }) => {
 			viewingOld,
 			workspace: { id: workspace.id, name: workspace.name, member: target.workspaceRole !== null },
 			history,
+			checkpoints,
 			sharing,
 			may: { rename: can('rename'), restore: can('save'), trash: can('trash'), duplicate: can('duplicate'), comment: can('comment') },
 			// Streamed (not awaited): the review answer's spec verdicts follow the page in.
@@ -50,6 +51,11 @@ export const actions: Actions = {
 		formAction(event, 'history', schema.restoreSchema, async ({ number }, actor) => {
 			const revision = await restoreRevisionAs(actor, event.params.id, number);
 			redirect(303, `/sheets/${event.params.id}?restored=${number}&as=${revision.number}`);
+		}),
+	nameRevision: (event) =>
+		formAction(event, 'history', schema.nameRevisionSchema, async ({ number, name, message }, actor) => {
+			await nameRevisionAs(actor, event.params.id, number, name || null, message || null);
+			return { message: name ? `Revision ${number} is now “${name}”.` : `Revision ${number} has no name now.` };
 		}),
 	trash: (event) =>
 		formAction(event, 'sheet', schema.emptySchema, async (_d, actor) => {
