@@ -12,7 +12,10 @@ declare global {
 			/** How the request was authenticated. */
 			auth: 'session' | 'token' | null;
 		}
-		// interface PageData {}
+		interface PageData {
+			/** Extra skip links a page offers first in the tab order (the layout draws them). */
+			skipLinks?: { href: string; label: string }[];
+		}
 		// interface PageState {}
 		// interface Platform {}
 	}
