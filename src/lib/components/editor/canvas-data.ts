@@ -16,6 +16,10 @@ export interface ElementNodeData extends Record<string, unknown> {
 	readonly: boolean;
 	normalValue?: string;
 	valueError: boolean;
+	/** Each terminal in words, for its accessible name ("R1 terminal 2, on tip with C1"). */
+	terminalNames: Record<string, string>;
+	/** The terminal a keyboard wire starts from, when it is on this item. */
+	pendingTerminal: string | null;
 }
 
 export interface WireEdgeData extends Record<string, unknown> {
@@ -36,6 +40,8 @@ export function sameNodeData(a: ElementNodeData, b: ElementNodeData): boolean {
 		a.negWired === b.negWired &&
 		a.readonly === b.readonly &&
 		a.normalValue === b.normalValue &&
-		a.valueError === b.valueError
+		a.valueError === b.valueError &&
+		a.pendingTerminal === b.pendingTerminal &&
+		Object.entries(a.terminalNames).every(([k, v]) => b.terminalNames[k] === v)
 	);
 }

@@ -31,6 +31,12 @@ export const load: PageServerLoad = async ({ params, url, locals }) => {
 			history,
 			sharing,
 			may: { rename: can('rename'), restore: can('save'), trash: can('trash'), duplicate: can('duplicate'), comment: can('comment') },
+			// Past the long canvas, straight to what a reader came for (drawn by the root layout).
+			skipLinks: [
+				{ href: '#results', label: 'Skip to the results' },
+				{ href: '#review-panel', label: 'Skip to the review' },
+				...(can('comment') ? [{ href: '#new-comment', label: 'Skip to a new comment' }] : [{ href: '#comments', label: 'Skip to the comments' }])
+			],
 			// Streamed (not awaited): the review answer's spec verdicts follow the page in.
 			reviewSpec: answerSpec(actor, sheet.id).catch(() => null)
 		};
