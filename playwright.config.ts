@@ -13,6 +13,9 @@ export default defineConfig({
 	timeout: 60_000,
 	expect: { timeout: 10_000 },
 	reporter: [['list'], ['json']],
+	// `npm test` points this into the run's own temporary folder (removed afterwards); screenshots
+	// and files a test makes go there through testInfo.outputPath (tests/e2e/artifacts.ts).
+	outputDir: process.env.POLEWISE_TEST_OUTPUT ?? 'test-results',
 	use: {
 		baseURL: `http://127.0.0.1:${port}`,
 		trace: 'retain-on-failure',
@@ -24,6 +27,6 @@ export default defineConfig({
 		url: `http://127.0.0.1:${port}/api/health`,
 		reuseExistingServer: false,
 		timeout: 60_000,
-		env: { ...(process.env as Record<string, string>), HOST: '127.0.0.1', PORT: String(port), ORIGIN: `http://127.0.0.1:${port}`, BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '8M' }
+		env: { ...(process.env as Record<string, string>), HOST: '127.0.0.1', PORT: String(port), ORIGIN: `http://127.0.0.1:${port}` }
 	}
 });

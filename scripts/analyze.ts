@@ -1,22 +1,80 @@
 /**
- * `npm run -s analyze -- FILE.json [--table]`: the solver from a terminal.
+ * `npm run -s analyze -- FILE.json [--table] [--variant NAME | --variants]`: the solver from a
+ * terminal. A document with variants analyses as its base network unless one variant is named
+ * (`--variant "100:1 · 2 m cable"`) or all are asked for (`--variants`: JSON
+ * `{ variants: [{ name, options, analysis, error }] }`, or one table per variant after a
+ * side-by-side table of the key figures).
+ * Large networks (above the interactive size) answer with their N dominant poles (--poles N,
+ * default 10; --near S for the ones nearest a shift S rad/s) and every open-circuit time
+ * constant; --full adds the responses; --dense / --sparse force a back end.
  * stdout carries only the result (JSON, or the table with --table); every message goes to
  * stderr as one line. Exit 2 for input the user can fix (bad file, bad network), 1 for a fault.
  */
 import { readFileSync } from 'node:fs';
-import { analyze, formatEngineering, SolverError, type Analysis } from '../src/lib/solver/index';
+import {
+	analyze,
+	formatEngineering,
+	SolverError,
+	type Analysis,
+	type AnalyzeOptions
+} from '../src/lib/solver/index';
+import { INTERACTIVE_ELEMENT_LIMIT } from '../src/lib/network/limits';
+import {
+	findVariant,
+	listVariants,
+	resolveVariant,
+	VariantError,
+	type VariantInfo
+} from '../src/lib/network/variants';
+import { networkDocumentSchema, type NetworkDocument } from '../src/lib/network/schema';
 
 function fail(code: number, message: string): never {
 	process.stderr.write(message.replace(/\s+/g, ' ').trim() + '\n');
 	process.exit(code);
 }
 
+const USAGE =
+	'usage: analyze FILE.json [--table] [--variant NAME | --variants] [--poles N] [--near RAD_PER_S] [--full] [--dense | --sparse]';
 const args = process.argv.slice(2);
 const table = args.includes('--table');
-const files = args.filter((a) => !a.startsWith('--'));
-const unknown = args.filter((a) => a.startsWith('--') && a !== '--table');
-if (unknown.length) fail(2, `unknown option ${unknown[0]} (usage: analyze FILE.json [--table])`);
-if (files.length !== 1) fail(2, 'usage: analyze FILE.json [--table]');
+const allVariants = args.includes('--variants');
+const variantAt = args.indexOf('--variant');
+const variantName = variantAt >= 0 ? args[variantAt + 1] : undefined;
+if (variantAt >= 0 && (variantName === undefined || variantName.startsWith('--')))
+	fail(2, `--variant needs the variant's name (${USAGE})`);
+if (variantAt >= 0 && allVariants) fail(2, `name one variant or ask for all, not both (${USAGE})`);
+// Options that take a number: --poles N (how many dominant poles), --near S (nearest which shift).
+const numbers = new Map<string, number>();
+const valueAt = new Set<number>(variantAt >= 0 ? [variantAt + 1] : []);
+for (const name of ['--poles', '--near']) {
+	const at = args.indexOf(name);
+	if (at < 0) continue;
+	const v = Number(args[at + 1]);
+	if (args[at + 1] === undefined || !Number.isFinite(v))
+		fail(2, `${name} needs a number (${USAGE})`);
+	if (name === '--poles' && !(Number.isInteger(v) && v >= 1 && v <= 500))
+		fail(2, '--poles takes a whole number from 1 to 500');
+	if (name === '--near' && v < 0) fail(2, '--near takes a shift ≥ 0 in rad/s');
+	numbers.set(name, v);
+	valueAt.add(at + 1);
+}
+const positional = args.filter((a, i) => !a.startsWith('--') && !valueAt.has(i));
+const files = positional;
+const known = [
+	'--table',
+	'--variant',
+	'--variants',
+	'--poles',
+	'--near',
+	'--full',
+	'--dense',
+	'--sparse'
+];
+const unknown = args.filter((a, i) => a.startsWith('--') && !valueAt.has(i) && !known.includes(a));
+if (unknown.length) fail(2, `unknown option ${unknown[0]} (${USAGE})`);
+if (files.length !== 1) fail(2, USAGE);
+if (args.includes('--dense') && args.includes('--sparse'))
+	fail(2, `--dense or --sparse, not both (${USAGE})`);
 
 let text: string;
 try {
@@ -31,18 +89,131 @@ try {
 	fail(2, `${files[0]} is not valid JSON: ${(e as Error).message}`);
 }
 
-let result: Analysis;
-try {
-	result = analyze(doc);
-} catch (e) {
-	if (e instanceof SolverError) fail(2, `${files[0]}: ${e.message}`);
-	fail(1, `internal error: ${(e as Error)?.stack?.split('\n')[0] ?? String(e)}`);
+/**
+ * A large network (above the interactive size, or --sparse) answers with its dominant poles and
+ * every open-circuit time constant by default, within the time targets of docs/performance.md;
+ * --full adds the frequency response and the step response.
+ */
+function optionsFor(d: unknown): AnalyzeOptions {
+	const count = (d as { elements?: unknown[] })?.elements?.length ?? 0;
+	const backend = args.includes('--dense')
+		? 'dense'
+		: args.includes('--sparse')
+			? 'sparse'
+			: 'auto';
+	const large = backend === 'sparse' || (backend === 'auto' && count > INTERACTIVE_ELEMENT_LIMIT);
+	return {
+		backend,
+		dominant: { count: numbers.get('--poles'), near: numbers.get('--near') },
+		...(large && !args.includes('--full')
+			? { frequency: false as const, step: false as const }
+			: {})
+	};
 }
 
+function analyzeOrFail(d: unknown, where: string): Analysis {
+	try {
+		return analyze(d, optionsFor(d));
+	} catch (e) {
+		if (e instanceof SolverError) fail(2, `${where}: ${e.message}`);
+		fail(1, `internal error: ${(e as Error)?.stack?.split('\n')[0] ?? String(e)}`);
+	}
+}
+
+if (variantName !== undefined || allVariants) {
+	// The base document is checked whole first, so a broken variant block is named up front.
+	analyzeOrFail(doc, files[0]);
+	const parsed = networkDocumentSchema.parse(doc);
+	let chosen: VariantInfo[];
+	try {
+		chosen = allVariants ? listVariants(parsed) : [findVariant(parsed, variantName!)];
+	} catch (e) {
+		if (e instanceof VariantError) fail(2, `${files[0]}: ${e.message}`);
+		throw e;
+	}
+	if (allVariants && chosen.length === 0) fail(2, `${files[0]}: the network has no variants`);
+	const outcomes = chosen.map((v) => outcomeOf(parsed, v));
+	if (!allVariants) {
+		const [o] = outcomes;
+		if (!o.analysis) fail(2, `${files[0]}: variant "${o.name}": ${o.error!.error}`);
+		process.stdout.write(table ? renderTable(o.analysis) : JSON.stringify(o.analysis) + '\n');
+	} else if (!table) {
+		process.stdout.write(JSON.stringify({ variants: outcomes }) + '\n');
+	} else {
+		process.stdout.write(renderSideBySide(outcomes));
+		for (const o of outcomes)
+			process.stdout.write(
+				`\n=== ${o.name} ===\n` +
+					(o.analysis ? renderTable(o.analysis) : `refused: ${o.error!.error}\n`)
+			);
+	}
+	process.exit(0);
+}
+
+const result = analyzeOrFail(doc, files[0]);
 if (!table) {
 	process.stdout.write(JSON.stringify(result) + '\n');
 } else {
 	process.stdout.write(renderTable(result));
+}
+
+interface Outcome {
+	name: string;
+	options: string[];
+	analysis: Analysis | null;
+	error: { error: string; code: string; element?: string; node?: string } | null;
+}
+
+/** One variant's analysis; a variant the solver refuses keeps its error, the others go on. */
+function outcomeOf(parsed: NetworkDocument, v: VariantInfo): Outcome {
+	try {
+		return {
+			name: v.name,
+			options: v.options,
+			analysis: analyze(resolveVariant(parsed, v), optionsFor(parsed)),
+			error: null
+		};
+	} catch (e) {
+		if (e instanceof SolverError || e instanceof VariantError) {
+			const error =
+				e instanceof SolverError ? e.toJSON() : { error: e.message, code: e.code, ...e.where };
+			return { name: v.name, options: v.options, analysis: null, error };
+		}
+		throw e;
+	}
+}
+
+function renderSideBySide(outcomes: Outcome[]): string {
+	const f = (v: number | null | undefined, unit = '') =>
+		v === null || v === undefined ? '—' : formatEngineering(v, unit, 4);
+	const rows: string[][] = [
+		['variant', 'DC gain', 'bandwidth', 'rise', 'overshoot', 'settling', 'Zin DC', 'pole 1']
+	];
+	for (const o of outcomes) {
+		const a = o.analysis;
+		if (!a) {
+			rows.push([o.name, `refused: ${o.error!.error}`]);
+			continue;
+		}
+		rows.push([
+			o.name,
+			a.dcGain === null ? '—' : a.dcGain.toPrecision(6),
+			f(a.bandwidth, 'Hz'),
+			f(a.step?.riseTime, 's'),
+			a.step?.overshoot == null ? '—' : `${a.step.overshoot.toFixed(2)} %`,
+			f(a.step?.settlingTime, 's'),
+			a.inputImpedance?.dc ? f(a.inputImpedance.dc.re, 'Ω') : '∞',
+			a.poles[0] ? f(a.poles[0].hz, 'Hz') : '—'
+		]);
+	}
+	const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => [...(r[c] ?? '')].length)) + 2);
+	const pad = (s: string, n: number) => s + ' '.repeat(Math.max(0, n - [...s].length));
+	return (
+		[
+			'Variants side by side',
+			...rows.map((r) => '  ' + r.map((c, i) => pad(c, widths[i])).join(''))
+		].join('\n') + '\n'
+	);
 }
 
 function renderTable(a: Analysis): string {
@@ -56,15 +227,20 @@ function renderTable(a: Analysis): string {
 			String(i + 1),
 			f(p.re) + im,
 			f(p.hz, 'Hz'),
-			p.q === null ? '—' : p.q.toPrecision(4),
+			p.q === null ? (p.im === 0 ? 'real' : '—') : p.q.toPrecision(4),
 			f(p.tau, 's'),
-			p.estimate?.hz == null ? '—' : `${f(p.estimate.hz, 'Hz')} (${p.estimate.element})`,
+			p.estimate ? `${f(p.estimate.hz, 'Hz')} (${p.estimate.basis})` : '—',
 			p.relativeError === null ? '—' : `${(p.relativeError * 100).toPrecision(3)} %`,
 			p.owners[0] ? `${p.owners[0].element} ${(p.owners[0].share * 100).toFixed(0)} %` : '—'
 		]);
 	});
 	const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => [...r[c]].length)) + 2);
-	const lines = [a.title ? `${a.title}\n` : '', 'Poles'];
+	const set = a.poleSet;
+	const head =
+		set && set.method !== 'all'
+			? `Poles: the ${set.computed} nearest ${set.shift ? `${f(set.shift)} rad/s` : 'the origin (slowest)'} of ${set.total ?? 'an unknown number'} (${set.method})`
+			: 'Poles';
+	const lines = [a.title ? `${a.title}\n` : '', head];
 	for (const r of rows) lines.push('  ' + r.map((c, i) => pad(c, widths[i])).join(''));
 	if (a.zeros.length) {
 		lines.push('', 'Zeros');
@@ -75,9 +251,10 @@ function renderTable(a: Analysis): string {
 	}
 	lines.push('', 'Time constants          R (open)      τ open       R (short)     τ short');
 	a.timeConstants.openCircuit.forEach((o, i) => {
+		// The sparse back end does not compute short-circuit readings (a warning says so).
 		const s = a.timeConstants.shortCircuit[i];
 		lines.push(
-			`  ${pad(o.element, 20)}  ${pad(f(o.resistance, 'Ω'), 12)}  ${pad(f(o.tau, 's'), 11)}  ${pad(f(s.resistance, 'Ω'), 12)}  ${f(s.tau, 's')}`
+			`  ${pad(o.element, 20)}  ${pad(f(o.resistance, 'Ω'), 12)}  ${pad(f(o.tau, 's'), 11)}  ${s ? `${pad(f(s.resistance, 'Ω'), 12)}  ${f(s.tau, 's')}` : '—'}`
 		);
 	});
 	lines.push(
@@ -85,6 +262,8 @@ function renderTable(a: Analysis): string {
 		'Sequential (dominant first): ' +
 			a.timeConstants.sequential.map((s) => `${s.element} ${f(s.tau, 's')}`).join(', ')
 	);
+	const elmore = a.timeConstants.elmore;
+	if (elmore) lines.push('', `Elmore delay to ${elmore.node}: ${f(elmore.delay, 's')}`);
 	lines.push(
 		'',
 		`DC gain         ${a.dcGain === null ? '∞ (pole at 0)' : a.dcGain.toPrecision(6)}`

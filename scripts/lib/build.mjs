@@ -3,7 +3,7 @@ import path from 'node:path';
 import { run } from './run.mjs';
 import { step } from './log.mjs';
 
-const INPUTS = ['src', 'static', 'package-lock.json', 'svelte.config.js', 'vite.config.ts', 'tailwind.config.ts', 'postcss.config.js', 'scripts/build-workers.mjs'];
+const INPUTS = ['src', 'static', 'package-lock.json', 'svelte.config.js', 'vite.config.ts', 'tailwind.config.ts', 'postcss.config.js', 'scripts/build-workers.mjs', 'scripts/build-entries.mjs'];
 
 function newestMtime(target) {
 	if (!existsSync(target)) return 0;
@@ -61,7 +61,7 @@ function buildIfStale(root, { force = false } = {}) {
 	const stamp = path.join(root, 'build', '.inputs-stamp.json');
 	const inputs = Math.max(...INPUTS.map((p) => newestMtime(path.join(root, p))));
 	const built = existsSync(stamp) ? JSON.parse(readFileSync(stamp, 'utf8')).inputs : -1;
-	const complete = ['handler.js', 'workers'].every((f) => existsSync(path.join(root, 'build', f)));
+	const complete = ['handler.js', 'workers', 'start.js', 'migrate.js', 'package.json'].every((f) => existsSync(path.join(root, 'build', f)));
 	if (!force && built >= inputs && complete) return;
 	step('Building the app (vite build + workers)');
 	run('npm', ['run', '-s', 'build'], { cwd: root });

@@ -1,4 +1,11 @@
-// Settings read from the environment, with defaults that need none. Documented in README.md.
+// The bootstrap's settings (ports of the local services), with defaults that need none.
+// Documented in README.md. The app's own settings are checked by src/lib/server/config; the
+// listen address and port defaults come from the same file, so `npm start` and `node build`
+// agree.
+import { readFileSync } from 'node:fs';
+
+const DEFAULTS = JSON.parse(readFileSync(new URL('../../src/lib/server/config/defaults.json', import.meta.url), 'utf8'));
+
 export function readConfig(env = process.env) {
 	const int = (name, fallback) => {
 		const raw = env[name];
@@ -10,8 +17,8 @@ export function readConfig(env = process.env) {
 		return value;
 	};
 	return {
-		appPort: int('PORT', 3000),
-		appHost: env.HOST || '127.0.0.1',
+		appPort: int('PORT', DEFAULTS.port),
+		appHost: env.HOST || DEFAULTS.host,
 		dbPort: int('POLEWISE_DB_PORT', 54329),
 		mailPort: int('POLEWISE_MAIL_PORT', 54325),
 		mailWebPort: int('POLEWISE_MAIL_WEB_PORT', 54326),

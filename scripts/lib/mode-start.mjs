@@ -6,7 +6,8 @@ import { ensureBuild } from './build.mjs';
 import { isPortFree } from './ports.mjs';
 import { run } from './run.mjs';
 import { SetupError, step } from './log.mjs';
-import { exited, startChild, stopChildren, tsx } from './services.mjs';
+import { startChild, stopChildren, tsx } from './services.mjs';
+import { supervise } from './supervise.mjs';
 import { startMailFake } from './mail.mjs';
 
 export async function main({ root, dev }) {
@@ -26,7 +27,9 @@ export async function main({ root, dev }) {
 		databaseUrl = cluster.url;
 	}
 	const children = [];
+	let app = null;
 	const shutdown = () => {
+		if (app) void app.stop();
 		stopChildren(children);
 		cluster?.stop();
 	};
@@ -42,29 +45,33 @@ export async function main({ root, dev }) {
 
 	try {
 		const env = { DATABASE_URL: databaseUrl };
-		step('Migrating the database and seeding the demo workspace');
-		run(tsx(root), ['scripts/db.ts', 'setup'], { cwd: root, env: { ...process.env, ...env } });
+		// Demo accounts (with the passwords printed in the README) only ever go into the local
+		// cluster; a database named by DATABASE_URL is migrated and nothing more.
+		if (cluster) step('Migrating the database and seeding the demo workspace');
+		else step('Migrating the database given by DATABASE_URL (no demo data is added to it)');
+		run(tsx(root), ['scripts/db.ts', cluster ? 'setup' : 'migrate'], { cwd: root, env: { ...process.env, ...env } });
 
 		const mail = await startMailFake(root, config, children);
 		Object.assign(env, mail.env);
 
 		const origin = `http://${config.appHost === '0.0.0.0' ? '127.0.0.1' : config.appHost}:${config.appPort}`;
-		let app;
-		if (dev) {
-			app = startChild(root, path.join(root, 'node_modules', '.bin', 'vite'), ['dev', '--host', config.appHost, '--port', String(config.appPort), '--strictPort'], env, { name: 'vite' });
-		} else {
-			ensureBuild(root);
-			// adapter-node refuses bodies over 512 KB by default; uploads may be 5 MB (docs/exchange.md).
-			app = startChild(root, process.execPath, ['build'], { ...env, HOST: config.appHost, PORT: String(config.appPort), ORIGIN: process.env.ORIGIN ?? origin, BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '8M' }, { name: 'app' });
-		}
-		children.push(app);
+		if (!dev) ensureBuild(root);
+		// A dying app process is started again (supervise.mjs); the database stays up.
+		app = supervise({
+			name: dev ? 'dev server' : 'app',
+			start: dev
+				? () => startChild(root, path.join(root, 'node_modules', '.bin', 'vite'), ['dev', '--host', config.appHost, '--port', String(config.appPort), '--strictPort'], env, { name: 'vite' })
+				: // build/start.js checks the settings and sets the request-body limit itself.
+					() => startChild(root, process.execPath, ['build'], { ...env, HOST: config.appHost, PORT: String(config.appPort), ORIGIN: process.env.ORIGIN ?? origin }, { name: 'app' })
+		});
 		console.log(`
   Polewise is running at  ${origin}
   Demo sign-in:           demo@polewise.test  /  polewise-demo
   Caught e-mail:          ${mail.inboxUrl ?? 'sent through ' + (process.env.SMTP_URL ?? 'SMTP')}
   Stop with Ctrl-C (the app and its database stop together; data is kept in .data/).
+  If the app process dies it is restarted; the database stays up.
 `);
-		const code = await exited(app);
+		const code = await app.done;
 		shutdown();
 		process.exit(code);
 	} catch (error) {

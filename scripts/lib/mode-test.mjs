@@ -7,11 +7,13 @@ import path from 'node:path';
 import { startCluster } from './postgres.mjs';
 import { snapshotBuild } from './build.mjs';
 import { ensureBrowserTools } from './browser.mjs';
+import { ensureNginx } from './nginx.mjs';
 import { freePort } from './ports.mjs';
 import { run, runAsync } from './run.mjs';
 import { step } from './log.mjs';
 import { stopChildren, tsx } from './services.mjs';
 import { startMailFake } from './mail.mjs';
+import { scratchEnv } from './scratch.mjs';
 
 function vitestCounts(file) {
 	if (!existsSync(file)) return { passed: 0, failed: 1 };
@@ -57,21 +59,29 @@ export async function main({ root, args }) {
 		const e2eUrl = cluster.ensureDatabase('polewise_e2e');
 		const mailPorts = { mailPort: await freePort(), mailWebPort: await freePort() };
 		const mail = await startMailFake(root, mailPorts, children, { quiet: true });
-		const env = { ...process.env, DATABASE_URL: cluster.url, ...mail.env, POLEWISE_TEST: '1' };
+		const env = { ...process.env, DATABASE_URL: cluster.url, ...mail.env, POLEWISE_TEST: '1', ...scratchEnv(scratch) };
 		step(`Test database on 127.0.0.1:${cluster.port} (throwaway, in ${scratch})`);
+
+		// The built app, for the multi-process integration test and the browser tests: a private
+		// copy, since other runs on this checkout may rebuild build/ meanwhile.
+		let serveDir = null;
+		const served = () => {
+			if (!serveDir) scratchBuilds.push((serveDir = snapshotBuild(root)));
+			return serveDir;
+		};
 
 		if (!only || only === 'unit' || only === 'integration') {
 			const projects = only ? ['--project', only] : ['--project', 'unit', '--project', 'integration'];
 			const report = path.join(scratch, 'vitest.json');
+			const extra = only === 'unit' ? {} : { POLEWISE_SERVE_DIR: served(), POLEWISE_NGINX: ensureNginx() };
 			step('Unit and integration tests (Vitest)');
-			await runAsync(path.join(root, 'node_modules/.bin/vitest'), ['run', ...projects, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`], { cwd: root, env });
+			await runAsync(path.join(root, 'node_modules/.bin/vitest'), ['run', ...projects, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`], { cwd: root, env: { ...env, ...extra } });
 			add(vitestCounts(report));
 		}
 
 		if (!only || only === 'e2e' || only === 'bench-e2e') {
 			ensureBrowserTools();
-			const serveDir = snapshotBuild(root);
-			scratchBuilds.push(serveDir);
+			const serveDir = served();
 			run(tsx(root), ['scripts/db.ts', 'setup'], { cwd: root, env: { ...env, DATABASE_URL: e2eUrl }, stdio: 'ignore' });
 			const report = path.join(scratch, 'playwright.json');
 			step('Browser tests (Playwright on Debian’s Chromium)');

@@ -19,8 +19,3 @@ export function stopChildren(children) {
 		if (child.exitCode === null && child.signalCode === null) child.kill('SIGTERM');
 	}
 }
-
-/** Resolve when the child exits; with its exit code. */
-export function exited(child) {
-	return new Promise((resolve) => child.once('exit', (code) => resolve(code ?? 1)));
-}

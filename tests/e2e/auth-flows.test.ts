@@ -1,6 +1,8 @@
 // The whole identity path in a real browser against the built server, with the reset mail read
 // from the local catcher's inbox.
 import { expect, test, type Page } from '@playwright/test';
+import { artifact } from './artifacts';
+import { finishSignUp } from './editor-helpers';
 
 const inbox = process.env.MAIL_INBOX_URL;
 
@@ -37,6 +39,7 @@ test('sign up, sign out, sign in, a wrong password, then forget it and reset it 
 	await expect(page.getByLabel('Your name')).toHaveValue('Ines Varga');
 	await page.getByLabel('Password').fill('first password 123');
 	await page.getByRole('button', { name: 'Create account' }).click();
+	await finishSignUp(page, email);
 	await expect(page).toHaveURL(/\/workspaces$/);
 	await expect(header.getByText('Ines Varga')).toBeVisible();
 
@@ -89,7 +92,7 @@ test('an API token works on an API route once created and stops when revoked', a
 	const token = (await page.getByTestId('new-token').textContent())!.trim();
 	expect(token).toMatch(/^pw_[a-z2-7]{32}$/);
 	await expect(page.getByLabel('New token name')).toHaveValue('');
-	await page.screenshot({ path: '/tmp/polewise-account.png', fullPage: true });
+	await page.screenshot({ path: artifact('polewise-account.png'), fullPage: true });
 
 	// Playwright's request context has no cookies of the page: only the token authenticates.
 	const probe = () => request.get('/api/workspaces', { headers: { authorization: `Bearer ${token}` } });
@@ -111,9 +114,9 @@ test('the sign-in page in light and dark', async ({ page }) => {
 	await page.goto('/sign-in?next=/account');
 	await page.getByRole('button', { name: 'Sign in' }).click();
 	await expect(page.getByText('Enter your e-mail address.')).toBeVisible();
-	await page.screenshot({ path: '/tmp/polewise-sign-in-light.png' });
+	await page.screenshot({ path: artifact('polewise-sign-in-light.png') });
 	await page.getByRole('button', { name: 'Switch to dark theme' }).click();
-	await page.screenshot({ path: '/tmp/polewise-sign-in-dark.png' });
+	await page.screenshot({ path: artifact('polewise-sign-in-dark.png') });
 	await page.setViewportSize({ width: 390, height: 800 });
-	await page.screenshot({ path: '/tmp/polewise-sign-in-phone.png' });
+	await page.screenshot({ path: artifact('polewise-sign-in-phone.png') });
 });

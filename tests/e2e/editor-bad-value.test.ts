@@ -1,17 +1,8 @@
 // A wrong value shows an inline error and the analysis is not run with it; fixing it resumes.
 import { expect, test } from '@playwright/test';
-import { analysis, newSheet, node, openSheet, signUpFresh } from './editor-helpers';
+import { analysis, newSheet, node, openSheet, signUpFresh, RC_LOW_PASS } from './editor-helpers';
 
-const RC = {
-	schema: 1,
-	elements: [
-		{ id: 'Vin', type: 'V', nodes: ['in', 'gnd'], value: 1 },
-		{ id: 'R1', type: 'R', nodes: ['in', 'out'], value: '1k' },
-		{ id: 'C1', type: 'C', nodes: ['out', 'gnd'], value: '10n' }
-	],
-	input: 'Vin',
-	output: { node: 'out', reference: 'gnd' }
-};
+const RC = RC_LOW_PASS;
 
 test('10pp is refused inline and never reaches the analysis', async ({ page }) => {
 	test.setTimeout(60_000);

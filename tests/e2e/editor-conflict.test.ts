@@ -1,18 +1,17 @@
 // Two browser contexts edit the same sheet: the second save loses the race, the banner says what
 // the other person changed, and saving on top keeps both revisions.
 import { expect, test } from '@playwright/test';
-import { newSheet, node, openSheet, setValue, signIn, signUpFresh } from './editor-helpers';
+import {
+	newSheet,
+	node,
+	openSheet,
+	setValue,
+	signIn,
+	signUpFresh,
+	RC_LOW_PASS
+} from './editor-helpers';
 
-const RC = {
-	schema: 1,
-	elements: [
-		{ id: 'Vin', type: 'V', nodes: ['in', 'gnd'], value: 1 },
-		{ id: 'R1', type: 'R', nodes: ['in', 'out'], value: '1k' },
-		{ id: 'C1', type: 'C', nodes: ['out', 'gnd'], value: '10n' }
-	],
-	input: 'Vin',
-	output: { node: 'out', reference: 'gnd' }
-};
+const RC = RC_LOW_PASS;
 
 test('a stale save shows the conflict banner; saving mine on top loses nothing', async ({
 	browser

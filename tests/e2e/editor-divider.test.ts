@@ -1,6 +1,7 @@
 // Acceptance: the 10:1 divider is drawn from an empty sheet with the mouse, its values typed,
 // input and output marked, and the pole table read back against the closed form.
 import { expect, test } from '@playwright/test';
+import { artifact } from './artifacts';
 import {
 	analysis,
 	dropPart,
@@ -70,7 +71,7 @@ test('draw the 10:1 divider from an empty sheet and read its exact poles', async
 		[t('R3', 'b'), gnd],
 		[t('C2', 'b'), gnd]
 	];
-	await page.screenshot({ path: 'test-results/editor-divider-placed.png' });
+	await page.screenshot({ path: artifact('editor-divider-placed.png') });
 	for (const [k, [from, to]] of wires.entries()) {
 		await wire(page, from, to);
 		await expect(page.locator('.svelte-flow__edge'), `wire ${k + 1}`).toHaveCount(k + 1);

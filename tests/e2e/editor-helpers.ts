@@ -13,8 +13,29 @@ export async function signUpFresh(
 	await page.getByLabel('E-mail address').fill(email);
 	await page.getByLabel('Password').fill(password);
 	await page.getByRole('button', { name: 'Create account' }).click();
+	await finishSignUp(page, email);
 	await expect(page).toHaveURL(/\/workspaces/);
 	return { email, password };
+}
+
+/**
+ * After the sign-up form: the page says to check the inbox; the link from the local mail
+ * catcher finishes the account (signed in, then on to where sign-up started).
+ */
+export async function finishSignUp(page: Page, email: string): Promise<void> {
+	await expect(page.getByRole('status')).toContainText('Check your inbox');
+	const inbox = process.env.MAIL_INBOX_URL;
+	if (!inbox) throw new Error('MAIL_INBOX_URL is not set: run through `npm test`');
+	let link: string | undefined;
+	for (let i = 0; i < 100 && !link; i++) {
+		const messages = (await (await fetch(`${inbox}/api/messages?to=${encodeURIComponent(email)}`)).json()) as { text: string }[];
+		link = messages.map((m) => /https?:\/\/\S+\/sign-up\/[a-z2-7]{52}/.exec(m.text)?.[0]).find(Boolean);
+		if (!link) await new Promise((r) => setTimeout(r, 100));
+	}
+	if (!link) throw new Error(`no sign-up mail for ${email}`);
+	await page.goto(link);
+	await page.getByRole('button', { name: 'Create my account' }).click();
+	await expect(page).not.toHaveURL(/\/sign-up\//);
 }
 
 export async function signIn(page: Page, email: string, password: string) {
@@ -95,3 +116,15 @@ export async function poleHz(page: Page): Promise<number[]> {
 		els.map((e) => Number(e.getAttribute('data-hz')))
 	)) as number[];
 }
+
+/** A one-pole RC low-pass (1 kΩ, 10 nF) between "in" and "out": the editor tests' small sheet. */
+export const RC_LOW_PASS = {
+	schema: 1,
+	elements: [
+		{ id: 'Vin', type: 'V', nodes: ['in', 'gnd'], value: 1 },
+		{ id: 'R1', type: 'R', nodes: ['in', 'out'], value: '1k' },
+		{ id: 'C1', type: 'C', nodes: ['out', 'gnd'], value: '10n' }
+	],
+	input: 'Vin',
+	output: { node: 'out', reference: 'gnd' }
+};

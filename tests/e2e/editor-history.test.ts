@@ -1,18 +1,9 @@
 // Undo/redo of typed values and drawing changes, and a reload after autosave shows the same
 // circuit in the same places.
 import { expect, test } from '@playwright/test';
-import { newSheet, node, openSheet, setValue, signUpFresh } from './editor-helpers';
+import { newSheet, node, openSheet, setValue, signUpFresh, RC_LOW_PASS } from './editor-helpers';
 
-const RC = {
-	schema: 1,
-	elements: [
-		{ id: 'Vin', type: 'V', nodes: ['in', 'gnd'], value: 1 },
-		{ id: 'R1', type: 'R', nodes: ['in', 'out'], value: '1k' },
-		{ id: 'C1', type: 'C', nodes: ['out', 'gnd'], value: '10n' }
-	],
-	input: 'Vin',
-	output: { node: 'out', reference: 'gnd' }
-};
+const RC = RC_LOW_PASS;
 
 test('undo and redo walk edits back and forth; a reload after autosave shows the same circuit', async ({
 	page

@@ -5,6 +5,7 @@
 import { deflateSync, crc32 } from 'node:zlib';
 import { expect, test } from '@playwright/test';
 import { lowPass, sheetWith, signInAs } from './exchange-support';
+import { artifact } from './artifacts';
 
 /** A w×h RGB PNG (PNG specification: signature, IHDR, one zlib IDAT, IEND; CRC-32 per chunk). */
 function png(w: number, h: number): Buffer {
@@ -114,6 +115,6 @@ test('comment attachments: keyboard attach, server refusal shown, thumbnail and 
 	await expect(files.getByRole('link', { name: 'step-100k.png' })).toBeVisible();
 	await expect(files).toContainText(/PDF · \d+ B/);
 	await thread.scrollIntoViewIfNeeded();
-	await page.screenshot({ path: '/tmp/comment-files.png' });
-	await thread.screenshot({ path: '/tmp/comment-files-thread.png' });
+	await page.screenshot({ path: artifact('comment-files.png') });
+	await thread.screenshot({ path: artifact('comment-files-thread.png') });
 });

@@ -4,6 +4,7 @@
 // the model reaches (max and RMS); the model is the sheet's own analysis.
 import { expect, test } from '@playwright/test';
 import { signInAs, lowPass, lowPassCsv, sheetWith } from './exchange-support';
+import { artifact } from './artifacts';
 
 test('a measured response is previewed, stored, overlaid and compared with the model', async ({
 	page
@@ -46,7 +47,7 @@ test('a measured response is previewed, stored, overlaid and compared with the m
 	// 1 kHz…1 MHz in 30 log steps puts 11 points in 10 kHz…100 kHz (both ends included).
 	await expect(cells.nth(1)).toContainText('(11 points)');
 	await plot.scrollIntoViewIfNeeded();
-	await page.screenshot({ path: '/tmp/exchange-overlay.png', fullPage: true });
+	await page.screenshot({ path: artifact('exchange-overlay.png'), fullPage: true });
 
 	// Switching the legend entry off removes the overlay and its row.
 	await panel.getByLabel('Overlay Bench sweep A on the response plot').uncheck();

@@ -3,11 +3,11 @@
 // (pdftotext). Pole values: the 10:1 probe's exact natural frequencies, 1768 Hz and 353.7 MHz
 // (common practice for a 9 MΩ ∥ 10 pF over 1 MΩ ∥ 90 pF probe driven from 50 Ω).
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, readFileSync } from 'node:fs';
-import os from 'node:os';
+import { mkdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { expect, test } from '@playwright/test';
 import { signInAs, probe, sheetWith } from './exchange-support';
+import { artifact } from './artifacts';
 
 test('the report page and its PDF hold the sheet name and the pole table', async ({ page }) => {
 	test.setTimeout(90_000);
@@ -21,20 +21,20 @@ test('the report page and its PDF hold the sheet name and the pole table', async
 	).toBeVisible();
 	await expect(page.getByRole('table', { name: 'Poles' })).toContainText('1.768');
 	await expect(page.getByLabel('Safety caution').first()).toBeVisible();
-	await page.screenshot({ path: '/tmp/exchange-report-page.png', fullPage: true });
+	await page.screenshot({ path: artifact('exchange-report-page.png'), fullPage: true });
 
 	const [download] = await Promise.all([
 		page.waitForEvent('download', { timeout: 60_000 }),
 		page.getByRole('link', { name: 'Download PDF' }).click()
 	]);
-	const dir = mkdtempSync(path.join(os.tmpdir(), 'pw-report-'));
+	const dir = artifact('pdf');
+	mkdirSync(dir, { recursive: true });
 	const file = path.join(dir, 'report.pdf');
 	await download.saveAs(file);
 	expect(download.suggestedFilename()).toMatch(/-r1-report\.pdf$/);
 	expect(readFileSync(file).subarray(0, 5).toString()).toBe('%PDF-');
 	// It opens: poppler renders every page to PNG.
 	execFileSync('pdftoppm', ['-png', '-r', '50', file, path.join(dir, 'page')]);
-	execFileSync('cp', [path.join(dir, 'page-1.png'), '/tmp/exchange-report-pdf-1.png']);
 	const text = execFileSync('pdftotext', ['-layout', file, '-']).toString().replace(/\s+/g, ' ');
 	expect(text).toContain(name);
 	expect(text).toContain('Poles and what sets them');

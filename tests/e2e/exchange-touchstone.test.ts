@@ -5,6 +5,7 @@
 import { readFileSync } from 'node:fs';
 import { expect, test } from '@playwright/test';
 import { lowPass, sheetWith, signInAs } from './exchange-support';
+import { artifact } from './artifacts';
 
 test('Touchstone dialog: the 2.0 layout downloads with its keywords, Z in ohms', async ({
 	page
@@ -18,7 +19,7 @@ test('Touchstone dialog: the 2.0 layout downloads with its keywords, Z in ohms',
 	await dialog.getByLabel('File layout').selectOption('2.0');
 	await dialog.getByLabel('Parameters').selectOption('Z');
 	await dialog.getByLabel(/^Or a list of frequencies/).fill('1k, 10k');
-	await dialog.screenshot({ path: '/tmp/touchstone-dialog.png' });
+	await dialog.screenshot({ path: artifact('touchstone-dialog.png') });
 	const download = page.waitForEvent('download');
 	await dialog.getByRole('button', { name: 'Download .s2p' }).click();
 	const file = await download;

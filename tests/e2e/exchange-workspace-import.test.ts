@@ -3,6 +3,7 @@
 // browser goes to it.
 import { expect, test } from '@playwright/test';
 import { probe, sheetWith, signInAs } from './exchange-support';
+import { artifact } from './artifacts';
 
 test('workspace import: refused file names the element and creates nothing; a good one opens as a new sheet', async ({
 	page
@@ -35,7 +36,7 @@ test('workspace import: refused file names the element and creates nothing; a go
 	).toBeVisible();
 	await expect(box.getByLabel(/^Name/)).toHaveValue('Probe with a typo');
 	await expect(count).toHaveText('Sheets (1)');
-	await page.screenshot({ path: '/tmp/workspace-import-refused.png', fullPage: true });
+	await page.screenshot({ path: artifact('workspace-import-refused.png'), fullPage: true });
 
 	await box.getByLabel('Sheet file').setInputFiles({
 		name: 'probe-10-1-r1.polewise.json',

@@ -4,6 +4,7 @@
 // 2 kΩ gives 79.58 kHz, so "bandwidth ≥ 100 kHz" is met on revision 1 and missed on revision 2.
 import { expect, test } from '@playwright/test';
 import { newSheet, openSheet, signUpFresh } from './editor-helpers';
+import { artifact } from './artifacts';
 
 const rc = (r: string) => ({
 	schema: 1,
@@ -58,7 +59,7 @@ test('the review answer shows each spec line before and after, and the top of th
 	await openSheet(b, sheetId);
 	const jump = b.getByRole('navigation', { name: 'On this sheet' }).getByTestId('jump-review');
 	await expect(jump).toContainText('your answer is asked for revision 2');
-	await b.screenshot({ path: '/tmp/review-jump-nav.png', clip: { x: 0, y: 0, width: 1400, height: 260 } });
+	await b.screenshot({ path: artifact('review-jump-nav.png'), clip: { x: 0, y: 0, width: 1400, height: 260 } });
 	await jump.click();
 	const mine = b.getByRole('region', { name: 'Your review' });
 	await expect(mine).toBeInViewport();
@@ -70,7 +71,7 @@ test('the review answer shows each spec line before and after, and the top of th
 	await expect(bw).toContainText('▼ now misses');
 	await expect(bw).toContainText('r1: 159.2 kHz ✓ meets');
 	await expect(bw).toContainText('r2: 79.58 kHz ✗ misses');
-	await b.screenshot({ path: '/tmp/review-answer-spec.png' });
+	await b.screenshot({ path: artifact('review-answer-spec.png') });
 	await spec.getByRole('link', { name: 'Compare revision 1 with 2' }).click();
 	await expect(b.getByRole('table', { name: 'Spec limits before and after' })).toBeVisible();
 	await ctxA.close();

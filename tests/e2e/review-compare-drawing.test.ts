@@ -5,6 +5,7 @@
 // nothing). DC gain RL/(R1 + RL) = 0.999, then 1.
 import { expect, test } from '@playwright/test';
 import { newSheet, signUpFresh } from './editor-helpers';
+import { artifact } from './artifacts';
 
 const rc = (r: string, extra: object[] = []) => ({
 	schema: 1,
@@ -70,10 +71,10 @@ test('compare: both drawings with added, removed and changed parts marked; spec 
 	]);
 	await expect(spec.getByTestId('spec-before')).toHaveText('✓ meets all');
 	await expect(spec.getByTestId('spec-after')).toHaveText('✗ misses');
-	await page.screenshot({ path: '/tmp/review-compare-drawing.png', fullPage: true });
+	await page.screenshot({ path: artifact('review-compare-drawing.png'), fullPage: true });
 	// The outlines and badges must read on the dark palette too.
 	await page.evaluate(() => (document.documentElement.dataset.theme = 'dark'));
 	await page
 		.getByTestId('change-drawings')
-		.screenshot({ path: '/tmp/review-compare-drawing-dark.png' });
+		.screenshot({ path: artifact('review-compare-drawing-dark.png') });
 });

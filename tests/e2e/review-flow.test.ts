@@ -4,6 +4,7 @@
 // to the fake inbox; the bell counts unread notifications.
 import { expect, test, type Page } from '@playwright/test';
 import { newSheet, openSheet, setValue, signUpFresh } from './editor-helpers';
+import { artifact } from './artifacts';
 
 const RC = {
 	schema: 1,
@@ -81,32 +82,32 @@ test('request, comment on a part and a pole, live updates, sign-off, changed sin
 	await expect(a.getByRole('button', { name: '1 open comment on C1' })).toBeVisible();
 	await expect(a.getByRole('table', { name: 'Poles' }).getByRole('button', { name: '1 open comment on pole p1' })).toBeVisible();
 	await inbox(a, emailA, /Bram Okafor mentioned you on “Review flow RC low-pass”/);
-	await a.screenshot({ path: '/tmp/review-a-threads.png', fullPage: true });
+	await a.screenshot({ path: artifact('review-a-threads.png'), fullPage: true });
 
 	// B signs off revision 1; A sees it live.
 	const mine = panel(b).getByRole('region', { name: 'Your review' });
 	await mine.getByLabel('Summary').fill('Corner at 159 kHz is fine for this band.');
 	await mine.getByRole('button', { name: 'Sign off revision 1' }).click();
 	await expect(panel(a).getByTestId('review-state')).toHaveText(/Signed off\s+—\s+revision 1/);
-	await b.screenshot({ path: '/tmp/review-b-signed.png', fullPage: true });
+	await b.screenshot({ path: artifact('review-b-signed.png'), fullPage: true });
 
 	// A edits R1; the sheet now differs from what was signed off.
 	await setValue(a, 'R1', '2k');
 	await expect(a.locator('[data-save-status]')).toHaveAttribute('data-save-status', 'saved', { timeout: 15_000 });
 	const notice = panel(a).getByTestId('changed-since-approval');
-	await expect(notice).toContainText('changed since approval');
+	await expect(notice).toContainText('changed since sign-off');
 	// R1 changed, C1 did not: only the pole comment now refers to an earlier revision.
 	await expect(panel(a).locator('[data-anchor="pole:p1"] [data-testid="earlier-revision"]')).toBeVisible();
 	await expect(panel(a).locator('[data-anchor="element:C1"] [data-testid="earlier-revision"]')).toHaveCount(0);
 	// B is told a newer revision exists, without reloading.
 	await expect(panel(b).getByText('Someone saved revision 2.')).toBeVisible();
-	await a.screenshot({ path: '/tmp/review-a-changed.png', fullPage: true });
+	await a.screenshot({ path: artifact('review-a-changed.png'), fullPage: true });
 	await notice.getByRole('link', { name: 'Compare 1 with 2' }).click();
 	await expect(a.getByTestId('element-changes')).toContainText('R1');
 	await expect(a.getByTestId('element-changes')).toContainText('2k');
 	// Closed form: R doubles, so the single pole −1/RC halves (−50 %).
 	await expect(a.getByTestId('p-movement').getByTestId('movement')).toHaveText('−50.0 %');
-	await a.screenshot({ path: '/tmp/review-compare.png', fullPage: true });
+	await a.screenshot({ path: artifact('review-compare.png'), fullPage: true });
 	await ctxA.close();
 	await ctxB.close();
 });

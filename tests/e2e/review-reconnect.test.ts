@@ -5,6 +5,7 @@
 // a reviewer straight to the review panel.
 import { expect, test, type Page } from '@playwright/test';
 import { newSheet, openSheet, signUpFresh } from './editor-helpers';
+import { artifact } from './artifacts';
 
 const RC = {
 	schema: 1,
@@ -133,7 +134,7 @@ test('a cut live stream reopens after its last event id and replays what was sai
 	}));
 	expect(replayed[0]).toMatchObject({ kind: 'comment' });
 	expect(replayed[0].id).toBeGreaterThan(resumedFrom);
-	await a.screenshot({ path: '/tmp/review-reconnected.png', fullPage: false });
+	await a.screenshot({ path: artifact('review-reconnected.png'), fullPage: false });
 	await ctxA.close();
 	await ctxB.close();
 });

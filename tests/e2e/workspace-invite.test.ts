@@ -2,6 +2,7 @@
 // only, invite a second person by e-mail (the link read from the local mail catcher), and see
 // them join through sign-up as a commenter who cannot change the sheet.
 import { expect, test, type Page } from '@playwright/test';
+import { finishSignUp } from './editor-helpers';
 
 const inbox = process.env.MAIL_INBOX_URL;
 
@@ -21,6 +22,7 @@ async function signUp(page: Page, name: string, email: string) {
 	await page.getByLabel('E-mail address').fill(email);
 	await page.getByLabel('Password').fill('bench password 2024');
 	await page.getByRole('button', { name: 'Create account' }).click();
+	await finishSignUp(page, email);
 }
 
 test('invite a teammate by e-mail; they sign up through the link and join as a commenter who cannot edit', async ({ page, browser }) => {

@@ -3,11 +3,13 @@
 import { describe, expect, it } from 'vitest';
 import { isRedirect } from '@sveltejs/kit';
 import { useDatabase } from './support/database';
-import { person, requestEvent } from './support/auth-helpers';
+import { inboxFor, person, requestEvent, uniqueEmail } from './support/auth-helpers';
+import { actions as confirmActions } from '../../src/routes/(auth)/sign-up/[token=token]/+page.server';
+import { findUserByEmail } from '../../src/lib/server/db/users';
 import { actions as signInActions } from '../../src/routes/(auth)/sign-in/+page.server';
 import { actions as signUpActions } from '../../src/routes/(auth)/sign-up/+page.server';
 import { SESSION_COOKIE, validateSessionToken } from '../../src/lib/server/auth/session';
-import { SIGN_IN_FAILED } from '../../src/lib/server/auth/sign-in';
+import { SIGN_IN_FAILED, SIGN_UP_SENT } from '../../src/lib/server/auth/sign-in';
 import { safeNext } from '../../src/lib/server/auth/next';
 
 useDatabase();
@@ -18,8 +20,11 @@ const formOf = (fields: Record<string, string>) => {
 	return body;
 };
 
-async function run(action: (e: never) => unknown, url: string, fields: Record<string, string>) {
+const run = (action: (e: never) => unknown, url: string, fields: Record<string, string>) => runWith(action, url, {}, fields);
+
+async function runWith(action: (e: never) => unknown, url: string, params: Record<string, string>, fields: Record<string, string> = {}) {
 	const { event, cookies } = requestEvent({ url, body: formOf(fields) });
+	event.params = params;
 	try {
 		return { result: (await action(event as never)) as { status: number; data: Record<string, unknown> }, cookies, location: null };
 	} catch (e) {
@@ -65,10 +70,38 @@ describe('sign-in and sign-up form actions', () => {
 		expect(same.result?.data.errors).toEqual({ password: 'Choose a password that is not your e-mail address.' });
 	});
 
-	it('creates the account, signs it in and goes to /workspaces when there is no next', async () => {
-		const { location, cookies } = await run(signUpActions.default, 'http://127.0.0.1:4173/sign-up?next=//evil.example/x', { name: 'Ana Lind', email: 'ana.lind@example.test', password: 'a long enough password' });
-		expect(location).toBe('/workspaces');
-		expect((await validateSessionToken(cookies.values.get(SESSION_COOKIE)!)).user?.name).toBe('Ana Lind');
+	it('mails a link; the link makes the account, signs it in and goes to /workspaces when next is not a path here', async () => {
+		const email = uniqueEmail('ana.lind');
+		const { result } = await run(signUpActions.default, 'http://127.0.0.1:4173/sign-up?next=//evil.example/x', { name: 'Ana Lind', email, password: 'a long enough password' });
+		expect(result).toMatchObject({ sent: true, message: SIGN_UP_SENT(email) });
+		expect(await findUserByEmail(email)).toBeNull();
+		const [mail] = await inboxFor(email);
+		expect(mail.subject).toBe('Finish creating your Polewise account');
+		const token = /\/sign-up\/([a-z2-7]{52})/.exec(mail.text)![1];
+		const confirm = await runWith(confirmActions.default, `http://127.0.0.1:4173/sign-up/${token}`, { token });
+		expect(confirm.location).toBe('/workspaces');
+		expect((await validateSessionToken(confirm.cookies.values.get(SESSION_COOKIE)!)).user?.name).toBe('Ana Lind');
+		// The link works once.
+		const again = await runWith(confirmActions.default, `http://127.0.0.1:4173/sign-up/${token}`, { token });
+		expect(again.result).toMatchObject({ status: 410, data: { state: 'unknown' } });
+	});
+
+	// Issue 14: sign-up said "An account with this e-mail address already exists", telling anyone
+	// who has an account. Now both answers are the same, and the owner hears about the attempt.
+	it('answers an address with an account exactly like a new one, and mails its owner instead', async () => {
+		const owner = await person('sign-up-owner');
+		const fresh = uniqueEmail('sign-up-fresh');
+		const taken = await run(signUpActions.default, 'http://127.0.0.1:4173/sign-up', { name: 'Someone', email: owner.email, password: 'a long enough password' });
+		const unused = await run(signUpActions.default, 'http://127.0.0.1:4173/sign-up', { name: 'Someone', email: fresh, password: 'a long enough password' });
+		const shape = (r: typeof taken) => JSON.stringify(r.result).replaceAll(owner.email, 'ADDRESS').replaceAll(fresh, 'ADDRESS');
+		expect(shape(taken)).toBe(shape(unused));
+		expect(taken.location).toBeNull();
+		expect(taken.cookies.values.size).toBe(0);
+		const [note] = await inboxFor(owner.email);
+		expect(note.subject).toBe('Someone tried to create a Polewise account with your address');
+		expect(note.text).toContain('nothing was created');
+		expect(note.text).not.toMatch(/\/sign-up\/[a-z2-7]{52}/);
+		expect((await inboxFor(fresh))[0].subject).toBe('Finish creating your Polewise account');
 	});
 
 	it('follows only same-site paths in next', () => {

@@ -4,11 +4,11 @@ import { describe, expect, it } from 'vitest';
 import { sha256 } from '@oslojs/crypto/sha2';
 import { encodeHexLowerCase } from '@oslojs/encoding';
 import { useDatabase } from './support/database';
-import { person } from './support/auth-helpers';
+import { inboxFor, person, uniqueEmail } from './support/auth-helpers';
 import { db } from '../../src/lib/server/db/connection';
 import { createSession, invalidateSession, invalidateUserSessions, SESSION_LIFETIME_MS, validateSessionToken } from '../../src/lib/server/auth/session';
 import { changePassword } from '../../src/lib/server/auth/passwords';
-import { signIn, signUp } from '../../src/lib/server/auth/sign-in';
+import { confirmSignUp, signIn, signUp } from '../../src/lib/server/auth/sign-in';
 
 useDatabase();
 
@@ -81,16 +81,35 @@ describe('sessions', () => {
 	});
 
 	it('hashes passwords with argon2id, m=19456 KiB, t=2, p=1 (OWASP Password Storage Cheat Sheet)', async () => {
-		const outcome = await signUp({ email: 'new-person@example.test', name: 'New Person', password: 'a long enough password' }, '198.51.100.2');
-		if (!outcome.ok) throw new Error(outcome.message);
+		const email = uniqueEmail('new-person');
+		await signUp({ email, name: 'New Person', password: 'a long enough password' }, '198.51.100.2', 'http://127.0.0.1:4173');
+		const token = /\/sign-up\/([a-z2-7]{52})/.exec((await inboxFor(email))[0].text)![1];
+		const outcome = await confirmSignUp(token, '198.51.100.2');
+		if (!outcome.ok) throw new Error(outcome.state);
 		const [[row]] = (await db().query(`SELECT password_hash FROM users WHERE id = :id`, { replacements: { id: outcome.user.id } })) as [{ password_hash: string }[], unknown];
 		expect(row.password_hash).toMatch(/^\$argon2id\$v=19\$m=19456,t=2,p=1\$/);
 		expect(row.password_hash).not.toContain('a long enough password');
+		// Pending sign-ups keep only the hash too, and the used one is gone.
+		expect((await db().query(`SELECT count(*)::int AS n FROM sign_up_requests`, { plain: true }))?.n).toBe(0);
 	});
 
-	it('refuses a second account for the same address in another case', async () => {
+	it('makes no second account for the same address in another case', async () => {
 		const ana = await person('ana');
-		const outcome = await signUp({ email: ana.email.toUpperCase(), name: 'Copy', password: 'a long enough password' }, '198.51.100.3');
-		expect(outcome).toMatchObject({ ok: false, field: 'email' });
+		const outcome = await signUp({ email: ana.email.toUpperCase(), name: 'Copy', password: 'a long enough password' }, '198.51.100.3', 'http://127.0.0.1:4173');
+		expect(outcome.ok).toBe(true);
+		const [[{ n }]] = (await db().query(`SELECT count(*)::int AS n FROM users WHERE lower(email) = :e`, { replacements: { e: ana.email } })) as [{ n: number }[], unknown];
+		expect(n).toBe(1);
+		expect((await db().query(`SELECT count(*)::int AS n FROM sign_up_requests`, { plain: true }))?.n).toBe(0);
 	});
+
+	it('a link finished after the address got its account answers "taken", not a second account', async () => {
+		const email = uniqueEmail('race');
+		await signUp({ email, name: 'First', password: 'a long enough password' }, '198.51.100.4', 'http://127.0.0.1:4173');
+		await signUp({ email, name: 'Second', password: 'another long password' }, '198.51.100.4', 'http://127.0.0.1:4173');
+		const tokens = (await inboxFor(email, { atLeast: 2 })).map((m) => /\/sign-up\/([a-z2-7]{52})/.exec(m.text)![1]);
+		expect((await confirmSignUp(tokens[0], '198.51.100.4')).ok).toBe(true);
+		// Using one link removes the others for that address.
+		expect(await confirmSignUp(tokens[1], '198.51.100.4')).toEqual({ ok: false, state: 'unknown' });
+	});
+
 });

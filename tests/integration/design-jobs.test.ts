@@ -8,7 +8,7 @@ import { dividerSheet } from './design-helpers';
 import { call } from './support/handlers';
 import { digitizerDivider } from '../../src/lib/server/db/seed/demo-sheets';
 import { closeDesignPool } from '../../src/lib/server/jobs/design-pool';
-import { stopDesignQueue } from '../../src/lib/server/jobs/design-queue';
+import { stopJobRunner } from '../../src/lib/server/jobs/all-kinds';
 import * as solve from '../../src/routes/api/design/solve/+server';
 import * as sweep from '../../src/routes/api/design/sweep/+server';
 import * as sens from '../../src/routes/api/design/sensitivity/+server';
@@ -22,7 +22,7 @@ import * as spec from '../../src/routes/api/design/sheets/[id=uuid]/spec/+server
 
 useDatabase();
 afterAll(async () => {
-	await stopDesignQueue();
+	await stopJobRunner();
 	await closeDesignPool();
 });
 

@@ -10,7 +10,7 @@ import { listRevisions } from '../../src/lib/server/db/sheets';
 import { digitizerDivider } from '../../src/lib/server/db/seed/demo-sheets';
 import { LIMITS } from '../../src/lib/server/analysis-request';
 import { closeDesignPool } from '../../src/lib/server/jobs/design-pool';
-import { stopDesignQueue } from '../../src/lib/server/jobs/design-queue';
+import { stopJobRunner } from '../../src/lib/server/jobs/all-kinds';
 import * as sens from '../../src/routes/api/design/sensitivity/+server';
 import * as sweep from '../../src/routes/api/design/sweep/+server';
 import * as mc from '../../src/routes/api/design/monte-carlo/+server';
@@ -19,7 +19,7 @@ import * as jobs from '../../src/routes/api/design/sheets/[id=uuid]/jobs/+server
 
 useDatabase();
 afterAll(async () => {
-	await stopDesignQueue();
+	await stopJobRunner();
 	await closeDesignPool();
 });
 

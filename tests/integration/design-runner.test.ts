@@ -4,17 +4,14 @@
 import { afterAll, describe, expect, it, vi } from 'vitest';
 import { useDatabase } from './support/database';
 import { dividerSheet } from './design-helpers';
-import { createDesignJob, getDesignJob, setQueueId } from '../../src/lib/server/db/design-jobs';
+import { createDesignJob, getDesignJob } from '../../src/lib/server/db/design-jobs';
 import { closeDesignPool } from '../../src/lib/server/jobs/design-pool';
-import {
-	enqueueDesignJob,
-	startDesignRunnerAtBoot,
-	stopDesignQueue
-} from '../../src/lib/server/jobs/design-queue';
+import { enqueueDesignJob } from '../../src/lib/server/jobs/design-queue';
+import { startJobRunnerAtBoot, stopJobRunner } from '../../src/lib/server/jobs/all-kinds';
 
 useDatabase();
 afterAll(async () => {
-	await stopDesignQueue();
+	await stopJobRunner();
 	await closeDesignPool();
 });
 
@@ -48,7 +45,7 @@ async function queuedJob() {
 		createdBy: ana.id
 	});
 	// Sending only connects to pg-boss; it does not subscribe this process to the queue.
-	await setQueueId(job.id, await enqueueDesignJob(job.id));
+	await enqueueDesignJob(job.id);
 	return job.id;
 }
 
@@ -59,7 +56,7 @@ describe('design job runner', () => {
 		await sleep(2000);
 		expect(await getDesignJob(id)).toMatchObject({ state: 'queued', done: 0 });
 		// Started twice (the hook, then a design request): one subscription, no error.
-		await Promise.all([startDesignRunnerAtBoot(), startDesignRunnerAtBoot()]);
+		await Promise.all([startJobRunnerAtBoot(), startJobRunnerAtBoot()]);
 		const job = await finished(id);
 		expect(job).toMatchObject({ state: 'done', done: 300 });
 		expect((job!.result as { runs: number; revision: number }).runs).toBe(300);
@@ -67,7 +64,7 @@ describe('design job runner', () => {
 	}, 90_000);
 
 	it('the server hook’s init starts the runner (what `node build` and the dev server call)', async () => {
-		await stopDesignQueue();
+		await stopJobRunner();
 		const id = await queuedJob();
 		const { init } = await import('../../src/hooks.server');
 		await init();
@@ -76,7 +73,7 @@ describe('design job runner', () => {
 	}, 90_000);
 
 	it('a runner that cannot reach the database logs why and does not throw; a later start works', async () => {
-		await stopDesignQueue();
+		await stopJobRunner();
 		const saved = process.env.DATABASE_URL!;
 		const logged = vi.spyOn(console, 'error').mockImplementation(() => {});
 		// Port 1 on the loopback refuses at once: nothing listens there.
@@ -85,7 +82,7 @@ describe('design job runner', () => {
 		process.env.DATABASE_URL = url.toString();
 		let said = '';
 		try {
-			await expect(startDesignRunnerAtBoot()).resolves.toBeUndefined();
+			await expect(startJobRunnerAtBoot()).resolves.toBeUndefined();
 			said = logged.mock.calls.flat().join(' ');
 		} finally {
 			process.env.DATABASE_URL = saved;
@@ -93,7 +90,7 @@ describe('design job runner', () => {
 		}
 		expect(said).toMatch(/the runner did not start/);
 		const id = await queuedJob();
-		await startDesignRunnerAtBoot();
+		await startJobRunnerAtBoot();
 		const job = await finished(id);
 		expect(job?.state).toBe('done');
 	}, 90_000);

@@ -5,7 +5,7 @@ import { computePoles, computeZeros, type Root } from '../solver/poles';
 import { portModelFrom, SINGULAR_PIVOT, type PortModel } from '../solver/port-model';
 import { frequencyRange } from '../solver/response-range';
 import { shiftedModel } from '../solver/shift';
-import { byMagnitude, singularity } from '../solver/singularity';
+import { byMagnitude } from '../solver/singularity';
 import { stepMetrics, stepResponse } from '../solver/step-response';
 import {
 	openCircuitPorts,
@@ -171,9 +171,12 @@ export function evaluate(p: Prepared, shift: number, opts: EvaluateOptions = {})
 		flatnessDb = Number.isFinite(worst) ? (10 * worst) / LN10 : null;
 	}
 
+	// The sweep's "largest pole Q" keeps |s|/(−2·re) for real poles too (0.5): a solve for a
+	// target Q needs a figure that is continuous where a pair splits onto the real axis.
 	let maxQ: number | null = null;
 	for (const q of poles) {
-		const s = singularity(q.re, q.im).q;
+		const mag = Math.hypot(q.re, q.im);
+		const s = mag > 0 && q.re !== 0 ? mag / (-2 * q.re) : null;
 		if (s !== null) maxQ = Math.max(maxQ ?? 0, s);
 	}
 

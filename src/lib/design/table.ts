@@ -1,4 +1,5 @@
 import type { Metrics } from './evaluate';
+import { guardCell } from '../exchange/formula-guard';
 
 /**
  * Rows of figures as a table and as CSV (RFC 4180: comma separated, a header line, quoted
@@ -20,8 +21,10 @@ export const METRIC_COLUMNS: { key: keyof Metrics; label: string }[] = [
 const cell = (x: unknown): string => {
 	if (x === null || x === undefined) return '';
 	if (typeof x === 'number') return Number.isFinite(x) ? String(x) : '';
-	const s = String(x);
-	return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+	// Element ids head the value columns and messages fill the last: guard them (OWASP CSV
+	// Injection), then quote the way RFC 4180 asks.
+	const s = guardCell(String(x));
+	return /[",\n\r]/.test(s) || s !== String(x) ? `"${s.replace(/"/g, '""')}"` : s;
 };
 
 export function metricsCsv(

@@ -101,6 +101,8 @@ export function autoLayout(doc: NetworkDocument): Snapshot {
 			name: e.id,
 			value: e.value === undefined ? '' : String(e.value),
 			...(e.control ? { control: e.control } : {}),
+			...(e.role && e.role !== 'design' ? { role: e.role } : {}),
+			...(e.range ? { range: { min: String(e.range.min), max: String(e.range.max) } } : {}),
 			x: Math.round(px / 20) * 20,
 			y: Math.round(py / 20) * 20,
 			rotation,

@@ -142,3 +142,35 @@ describe('symbol geometry', () => {
 		]);
 	});
 });
+
+describe('part roles through the drawing', () => {
+	const withRoles: NetworkDocument = {
+		...divider,
+		elements: divider.elements.map((e) =>
+			e.id === 'Ct'
+				? { ...e, role: 'trimmer' as const, range: { min: '5p', max: '15p' } }
+				: e.id === 'Cin'
+					? { ...e, role: 'fixed' as const }
+					: e
+		)
+	};
+	it('a document with roles opens and saves with the same roles and range', () => {
+		const built = buildDocument(fromDocument(withRoles)).document;
+		const ct = built.elements.find((e) => e.id === 'Ct')!;
+		expect(ct.role).toBe('trimmer');
+		expect(ct.range).toEqual({ min: '5p', max: '15p' });
+		expect(built.elements.find((e) => e.id === 'Cin')!.role).toBe('fixed');
+		expect(built.elements.find((e) => e.id === 'Rt')!.role).toBeUndefined();
+	});
+	it('a changed role is a changed network (the stored layout is not reused for it)', () => {
+		expect(sameNetwork(withRoles, divider)).toBe(false);
+	});
+	it('a trimmer with a half-typed range is a problem naming the part', () => {
+		const s = fromDocument(withRoles);
+		const items = s.items.map((i) =>
+			i.name === 'Ct' ? { ...i, range: { min: '5pp', max: '15p' } } : i
+		);
+		const { problems } = buildDocument({ ...s, items });
+		expect(problems.map((p) => p.message).join()).toMatch(/^Ct: range min: /);
+	});
+});

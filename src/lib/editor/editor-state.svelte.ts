@@ -13,6 +13,9 @@ import { computeNets } from './nets';
 import { planJoin } from './join-net';
 import { buildDocument } from './to-document';
 import { terminalKey, type EditorItem, type Snapshot, type TerminalRef, type Wire } from './types';
+import type { VariantSet } from '$lib/network/variant-schema';
+import { dropElements, renameElement } from './variant-edits';
+import { activeVariant } from './variant-pick';
 
 const uid = (p: string) => `${p}-${Math.random().toString(36).slice(2, 10)}`;
 
@@ -26,6 +29,10 @@ export class EditorState {
 	items = $state.raw<EditorItem[]>([]);
 	wires = $state.raw<Wire[]>([]);
 	input = $state<string | null>(null);
+	/** The sheet's variants (part of the drawing: saved, undone and redone with it). */
+	variants = $state.raw<VariantSet | null>(null);
+	/** The option picked in each variant group (a view choice, not part of the history). */
+	pick = $state.raw<number[]>([]);
 	selected = $state.raw<string[]>([]);
 	selectedWires = $state.raw<string[]>([]);
 	readonly = $state(false);
@@ -36,11 +43,19 @@ export class EditorState {
 	#clip: Clip | null = null;
 
 	readonly built = $derived(buildDocument(this.snapshot));
+	/** The picked variant: its name, choice and what it overrides (null without variants). */
+	readonly variant = $derived(activeVariant(this.built.document, this.pick));
 	readonly canUndo = $derived(this.#historySize.past > 0);
 	readonly canRedo = $derived(this.#historySize.future > 0);
 
 	get snapshot(): Snapshot {
-		return { title: this.title, items: this.items, wires: this.wires, input: this.input };
+		return {
+			title: this.title,
+			items: this.items,
+			wires: this.wires,
+			input: this.input,
+			variants: this.variants
+		};
 	}
 
 	get selectedItems(): EditorItem[] {
@@ -62,6 +77,7 @@ export class EditorState {
 		this.items = s.items;
 		this.wires = s.wires;
 		this.input = s.input;
+		this.variants = s.variants ?? null;
 		this.version++;
 		this.#historySize = { past: this.#history.past.length, future: this.#history.future.length };
 	}
@@ -157,6 +173,20 @@ export class EditorState {
 		return changed;
 	}
 
+	/** Change the variant block as one undo step (the edits are in variant-edits.ts). */
+	setVariants(next: VariantSet | null, key?: string): void {
+		if (next === this.variants) return;
+		this.apply({ variants: next }, key);
+	}
+
+	/** Pick an option of one variant group (which variant the canvas and results show). */
+	pickOption(group: number, option: number): void {
+		const next = [...this.pick];
+		while (next.length <= group) next.push(0);
+		next[group] = option;
+		this.pick = next;
+	}
+
 	/** Returns the reason when the name is refused; controls that named the old one follow. */
 	rename(id: string, name: string): string | null {
 		const problem = nameProblem(this.items, id, name);
@@ -172,7 +202,9 @@ export class EditorState {
 					: follows && i.control === old.name
 						? { ...i, control: n }
 						: i
-			)
+			),
+			// Overrides are kept by part name: they follow the new one.
+			variants: renameElement(this.variants, old.name, n)
 		});
 		return null;
 	}
@@ -195,10 +227,13 @@ export class EditorState {
 		const s = new Set(this.selected);
 		const sw = new Set(this.selectedWires);
 		if (s.size === 0 && sw.size === 0) return;
+		const gone = new Set(this.items.filter((i) => s.has(i.id) && isCircuit(i.kind)).map((i) => i.name));
 		this.apply({
 			items: this.items.filter((i) => !s.has(i.id)),
 			wires: this.wires.filter((w) => !sw.has(w.id) && !s.has(w.from.item) && !s.has(w.to.item)),
-			input: this.input && s.has(this.input) ? null : this.input
+			input: this.input && s.has(this.input) ? null : this.input,
+			// A deleted part's overrides go with it (a part in one position only is "absent", not deleted).
+			...(gone.size ? { variants: dropElements(this.variants, gone) } : {})
 		});
 		this.select([]);
 	}

@@ -33,7 +33,7 @@ export function sameNetwork(a: NetworkDocument, b: NetworkDocument): boolean {
 		const els = [...d.elements].sort((x, y) => (x.id < y.id ? -1 : 1));
 		const lines = els.map(
 			(e) =>
-				`${e.id}|${e.type}|${String(e.value ?? '')}|${e.control ?? ''}|${e.nodes.map(nodeName).join(',')}`
+				`${e.id}|${e.type}|${String(e.value ?? '')}|${e.control ?? ''}|${e.role ?? 'design'}|${e.range ? `${e.range.min}…${e.range.max}` : ''}|${e.nodes.map(nodeName).join(',')}`
 		);
 		lines.push(`out|${nodeName(d.output.node)}|${nodeName(d.output.reference ?? 'gnd')}`);
 		return lines.join('\n');
@@ -42,14 +42,17 @@ export function sameNetwork(a: NetworkDocument, b: NetworkDocument): boolean {
 }
 
 export function fromDocument(doc: NetworkDocument, layout?: unknown): Snapshot {
+	// Variants are kept by part name, so they belong to the document whichever way it is drawn.
+	const variants = doc.variants ?? null;
 	if (isSheetLayout(layout)) {
 		const restored: Snapshot = {
 			title: doc.title ?? '',
 			items: layout.items,
 			wires: layout.wires,
-			input: layout.input
+			input: layout.input,
+			variants
 		};
 		if (sameNetwork(buildDocument(restored).document, doc)) return restored;
 	}
-	return autoLayout(doc);
+	return { ...autoLayout(doc), variants };
 }

@@ -39,8 +39,20 @@ export const PORT_TABLE_LIMIT = 12;
 // expansion: leaving them out of the answer cuts its JSON by about 40 %.
 export const ANALYZE_URL = `/api/analyze?points=200&stepPoints=300&omit=impedanceCurve,groupDelay,expansion&matrixPorts=${PORT_TABLE_LIMIT}`;
 
+/** One variant's outcome in a `variants=all` answer (docs/api.md). */
+export interface VariantResult {
+	name: string;
+	options: string[];
+	analysis: Analysis | null;
+	error: { error: string; code?: string; element?: string; node?: string } | null;
+}
+
 export class LiveAnalysis {
 	result = $state.raw<Analysis | null>(null);
+	/** Every variant's outcome when the drawing has variants (all come in one request), else null. */
+	variants = $state.raw<VariantResult[] | null>(null);
+	/** The variant the panels show (`result` is its analysis); null: the first. */
+	chosen = $state<string | null>(null);
 	fault = $state.raw<AnalysisFault | null>(null);
 	problems = $state.raw<BuildProblem[]>([]);
 	status = $state<AnalysisStatus>('idle');
@@ -55,6 +67,7 @@ export class LiveAnalysis {
 	#timer: ReturnType<typeof setTimeout> | undefined;
 	#controller: AbortController | null = null;
 	#lastBody = '';
+	#withVariants = false;
 
 	/**
 	 * `delayMs` 0 sends at once: the caller's effect already folds every change made in one
@@ -84,6 +97,7 @@ export class LiveAnalysis {
 		this.problems = [];
 		const body = JSON.stringify(document);
 		if (body === this.#lastBody && this.status !== 'failed') return; // moved a part: same network
+		this.#withVariants = (document.variants?.groups.length ?? 0) > 0;
 		this.status = 'waiting';
 		if (this.delayMs <= 0) void this.#run(body, editedAt);
 		else this.#timer = setTimeout(() => this.#run(body, editedAt), this.delayMs);
@@ -99,7 +113,7 @@ export class LiveAnalysis {
 		this.sent++;
 		const sent = performance.now() - editedAt;
 		try {
-			const res = await this.fetcher(ANALYZE_URL, {
+			const res = await this.fetcher(this.#withVariants ? `${ANALYZE_URL}&variants=all` : ANALYZE_URL, {
 				method: 'POST',
 				headers: { 'content-type': 'application/json' },
 				body,
@@ -110,8 +124,15 @@ export class LiveAnalysis {
 			if (controller.signal.aborted) return;
 			const parsed = performance.now() - editedAt;
 			if (res.ok) {
-				this.result = data as Analysis;
-				this.fault = null;
+				if (Array.isArray(data?.variants)) {
+					this.variants = data.variants as VariantResult[];
+					this.#showChosen();
+				} else {
+					this.variants = null;
+					this.variantFailed = false;
+					this.result = data as Analysis;
+					this.fault = null;
+				}
 				// Measured once the panels hold the new numbers (Svelte has applied the DOM updates)
 				// and again once the browser has painted them.
 				await tick();
@@ -122,7 +143,7 @@ export class LiveAnalysis {
 				this.lastPhases = { sent, answered, parsed, shown, painted };
 				this.lastMs = painted;
 				this.lastAfterEdit = !opening;
-				this.status = 'done';
+				this.status = this.variants && this.variantFailed ? 'failed' : 'done';
 			} else {
 				this.fault = {
 					message: data?.error ?? `the analysis answered ${res.status}`,
@@ -140,6 +161,35 @@ export class LiveAnalysis {
 			if (this.#controller === controller) this.#controller = null;
 		}
 	}
+
+	/** Show another variant's analysis (no new request: all of them came in the last answer). */
+	choose(name: string | null): void {
+		untrack(() => {
+			if (this.chosen === name) return;
+			this.chosen = name;
+			if (this.variants) this.#showChosen();
+		});
+	}
+
+	#showChosen(): void {
+		const all = this.variants ?? [];
+		const v = all.find((x) => x.name === this.chosen) ?? all[0];
+		if (!v) return;
+		if (v.analysis) {
+			this.result = v.analysis;
+			this.fault = null;
+		} else {
+			// The panels keep the last result, marked stale, and say why this variant has none.
+			const { error, ...where } = v.error ?? { error: 'no analysis' };
+			this.fault = { ...where, message: `variant “${v.name}”: ${error}` };
+		}
+		this.variantFailed = !v.analysis;
+		if (this.status === 'done' || this.status === 'failed')
+			this.status = this.variantFailed ? 'failed' : 'done';
+	}
+
+	/** True while the chosen variant could not be analysed (the others may have been). */
+	variantFailed = $state(false);
 
 	dispose(): void {
 		clearTimeout(this.#timer);

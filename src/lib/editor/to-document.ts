@@ -6,6 +6,7 @@ import { KINDS, isCircuit, hasValue } from './kinds';
 import { computeNets, GROUND_NET, type NetMap } from './nets';
 import type { Snapshot, SheetLayout } from './types';
 import { checkValue } from './values';
+import { listVariants } from '$lib/network/variants';
 
 export interface BuildProblem {
 	/** Internal item id, when one item is at fault. */
@@ -40,6 +41,24 @@ export function buildDocument(s: Snapshot): Built {
 			el.value = it.value.trim();
 			const check = checkValue(it.kind, it.value);
 			if (!check.ok) problems.push({ item: it.id, message: `${it.name}: ${check.message}` });
+			if (it.role && it.role !== 'design') el.role = it.role;
+			if (it.role === 'trimmer') {
+				const range = it.range ?? { min: '', max: '' };
+				el.range = { min: range.min.trim(), max: range.max.trim() };
+				const lo = checkValue(it.kind, range.min);
+				const hi = checkValue(it.kind, range.max);
+				const bad = !lo.ok
+					? `range min: ${lo.message}`
+					: !hi.ok
+						? `range max: ${hi.message}`
+						: null;
+				if (bad) problems.push({ item: it.id, message: `${it.name}: ${bad}` });
+				else if (lo.ok && hi.ok && !(lo.value < hi.value))
+					problems.push({
+						item: it.id,
+						message: `${it.name}: the trimmer's range min must be below its max`
+					});
+			}
 		}
 		if (it.kind === 'CCCS' || it.kind === 'CCVS') {
 			if (it.control) el.control = it.control;
@@ -82,8 +101,16 @@ export function buildDocument(s: Snapshot): Built {
 		// An unfinished drawing is still saved (nothing is lost); the problem above keeps it from
 		// being analysed, and the placeholder keeps the document within the format's shape.
 		input: inputItem?.name ?? 'none',
-		output
+		output,
+		...(s.variants ? { variants: s.variants } : {})
 	};
+	if (s.variants) {
+		try {
+			listVariants(document);
+		} catch (e) {
+			problems.push({ message: `variants: ${(e as Error).message}` });
+		}
+	}
 	const layout: SheetLayout = {
 		format: 'polewise-canvas',
 		version: 1,

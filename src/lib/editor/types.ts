@@ -1,4 +1,6 @@
+import type { PartRole } from '$lib/network/schema';
 import type { ItemKind } from './kinds';
+import type { VariantSet } from '$lib/network/variant-schema';
 
 export type Rotation = 0 | 90 | 180 | 270;
 
@@ -12,6 +14,10 @@ export interface EditorItem {
 	value: string;
 	/** Name of the controlling V element (CCCS / CCVS). */
 	control?: string;
+	/** What the value is to the designer (absent: a design value); see the network schema. */
+	role?: PartRole;
+	/** A trimmer's adjustment range as typed ("5p" … "15p"). */
+	range?: { min: string; max: string };
 	/** Relative tolerance as typed, e.g. "1%"; kept for the design aids. */
 	tolerance?: string;
 	notes?: string;
@@ -39,6 +45,8 @@ export interface Snapshot {
 	wires: Wire[];
 	/** Item id of the input source, or null. */
 	input: string | null;
+	/** The sheet's variants (network-format.md), by element name; null or absent: none. */
+	variants?: VariantSet | null;
 }
 
 /** What is stored in a revision's `layout` column beside the network document. */

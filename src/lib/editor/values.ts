@@ -1,10 +1,14 @@
 // Reading values exactly as the network format does (the solver's own parser), and showing
 // them back in normal form so a person can see what was understood: "9.1M" → "9.1 MΩ".
-import { formatEngineering, parseValue } from '$lib/solver/notation';
+import { formatEngineering, parseValue, SolverError } from '$lib/solver/notation';
 import { KINDS, type ItemKind } from './kinds';
 
+/**
+ * `warning`: accepted, but probably not meant — a negative R, C or L is analysed (active models
+ * use them) yet a designer who typed `-1k` for a resistor should see it on the symbol and here.
+ */
 export type ValueCheck =
-	{ ok: true; value: number; normal: string } | { ok: false; message: string };
+	{ ok: true; value: number; normal: string; warning?: string } | { ok: false; message: string };
 
 export function checkValue(kind: ItemKind, text: string): ValueCheck {
 	const info = KINDS[kind];
@@ -14,10 +18,23 @@ export function checkValue(kind: ItemKind, text: string): ValueCheck {
 		if (value === 0 && (kind === 'R' || kind === 'C' || kind === 'L')) {
 			return { ok: false, message: `a ${info.title.toLowerCase()} of 0 is not allowed` };
 		}
-		return { ok: true, value, normal: formatEngineering(value, info.unit ?? '', 6) };
+		const normal = formatEngineering(value, info.unit ?? '', 6);
+		if (value < 0 && (kind === 'R' || kind === 'C' || kind === 'L')) {
+			const what = info.title.toLowerCase();
+			return {
+				ok: true,
+				value,
+				normal,
+				warning: `a negative ${what}: analysed as typed (as in active models), not a part you can buy`
+			};
+		}
+		return { ok: true, value, normal };
 	} catch (error) {
-		const unit = info.unit ? ` and optionally ${info.unit}` : '';
 		const reason = error instanceof Error ? error.message : String(error);
+		// A value out of range needs no lesson in notation; a malformed one gets an example.
+		if (error instanceof SolverError && error.code !== 'bad_value')
+			return { ok: false, message: reason };
+		const unit = info.unit ? ` and optionally ${info.unit}` : '';
 		return {
 			ok: false,
 			message: `${reason}: use a number with an SI prefix${unit}, e.g. ${info.defaultValue}`

@@ -1,26 +1,28 @@
 // The analysis as CSV for spreadsheets and scripts: one table per file, SI base units named in
 // each column title, full precision (the shortest text that reads back as the same double),
-// an empty cell where the solver says null (infinite or undefined).
+// an empty cell where the solver says null (infinite or undefined). Text cells (element ids,
+// owners) are guarded against formula injection (formula-guard.ts); numbers stay numbers.
 import Papa from 'papaparse';
 import type { Analysis } from '../solver';
+import { FORMULA_START } from './formula-guard';
 
 export const RESULT_TABLES = ['poles', 'time-constants', 'response', 'step'] as const;
 export type ResultTable = (typeof RESULT_TABLES)[number];
 
 type Cell = string | number | null | undefined;
 
+// Numbers stay numbers, so papaparse's formula escape (text cells only) never touches "-1.5e3".
 const cell = (v: Cell) =>
-	v === null || v === undefined
-		? ''
-		: typeof v === 'number'
-			? Number.isFinite(v)
-				? String(v)
-				: ''
-			: v;
+	v === null || v === undefined ? '' : typeof v === 'number' ? (Number.isFinite(v) ? v : '') : v;
 
 function csv(fields: string[], rows: Cell[][]): string {
-	// "\r\n" is what RFC 4180 asks for; spreadsheets read either.
-	return `${Papa.unparse({ fields, data: rows.map((r) => r.map(cell)) }, { newline: '\r\n' })}\r\n`;
+	// "\r\n" is what RFC 4180 asks for; spreadsheets read either. escapeFormulae prefixes an
+	// apostrophe and quotes every text cell that starts like a formula (OWASP CSV Injection).
+	const text = Papa.unparse(
+		{ fields, data: rows.map((r) => r.map(cell)) },
+		{ newline: '\r\n', escapeFormulae: FORMULA_START }
+	);
+	return `${text}\r\n`;
 }
 
 export function polesCsv(a: Analysis): string {
@@ -35,6 +37,7 @@ export function polesCsv(a: Analysis): string {
 			p.q,
 			p.zeta,
 			p.tau,
+			p.estimate?.method,
 			p.estimate?.element,
 			p.estimate?.tau,
 			p.estimate?.hz,
@@ -58,6 +61,7 @@ export function polesCsv(a: Analysis): string {
 			null,
 			null,
 			null,
+			null,
 			z.cancels === null ? null : `pole ${z.cancels + 1}`
 		])
 	);
@@ -71,6 +75,7 @@ export function polesCsv(a: Analysis): string {
 			'q',
 			'zeta',
 			'tau_s',
+			'estimate_method',
 			'estimate_element',
 			'estimate_tau_s',
 			'estimate_hz',
@@ -92,6 +97,8 @@ export function timeConstantsCsv(a: Analysis): string {
 		return [
 			o.element,
 			kinds.get(o.element) ?? null,
+			o.members.join(' '),
+			o.value,
 			o.resistance,
 			o.tau,
 			s?.resistance,
@@ -104,6 +111,8 @@ export function timeConstantsCsv(a: Analysis): string {
 		[
 			'element',
 			'kind',
+			'members',
+			'value',
 			'open_circuit_resistance_ohm',
 			'open_circuit_tau_s',
 			'short_circuit_resistance_ohm',

@@ -32,6 +32,32 @@ describe('sheet file', () => {
 		expect(first.endsWith('}\n')).toBe(true);
 	});
 
+	it('keeps variants through export and import, byte-stable, in a fixed key order', () => {
+		const variants = {
+			groups: [
+				{
+					options: [{ name: 'base' }, { present: ['R1'], values: { R1: '1M', C1: '5p' }, name: 'low' }],
+					name: 'Range'
+				}
+			],
+			absent: ['R1']
+		};
+		const first = writeSheetFile({ name: 'V', document: { ...doc, variants }, layout: null });
+		const back = readSheetFile(first);
+		expect((back.document as { variants: unknown }).variants).toEqual(variants);
+		expect(writeSheetFile(back)).toBe(first);
+		// Known keys first (name, values, absent, present), element ids alphabetical.
+		expect(first).toMatch(/"name": "low",\n\s+"values": \{\n\s+"C1": "5p",\n\s+"R1": "1M"\n\s+\},\n\s+"present"/);
+		expect(first.indexOf('"absent"')).toBeLessThan(first.indexOf('"groups"'));
+	});
+
+	it('refuses variants that name a part the sheet does not have', () => {
+		const bad = { ...doc, variants: { groups: [{ name: 'G', options: [{ name: 'x', absent: ['Q9'] }] }] } };
+		expect(() => readSheetFile(JSON.stringify(bad))).toThrow(
+			'variant option "G: x": there is no element "Q9" on the sheet'
+		);
+	});
+
 	it('imports a bare network document under its title', () => {
 		expect(readSheetFile(JSON.stringify({ ...doc, title: 'Bare' })).name).toBe('Bare');
 		expect(readSheetFile(JSON.stringify(doc), 'from-file').layout).toBeNull();

@@ -18,9 +18,12 @@ export interface SheetFileContent {
 
 const ORDER: KeyOrder = {
 	'': ['format', 'version', 'name', 'document', 'layout'],
-	document: ['schema', 'title', 'elements', 'input', 'output'],
+	document: ['schema', 'title', 'elements', 'input', 'output', 'variants'],
 	'document.elements.*': ['id', 'type', 'nodes', 'value', 'control'],
 	'document.output': ['node', 'reference'],
+	'document.variants': ['absent', 'groups'],
+	'document.variants.groups.*': ['name', 'options'],
+	'document.variants.groups.*.options.*': ['name', 'values', 'absent', 'present'],
 	layout: ['format', 'version', 'input', 'items', 'wires'],
 	'layout.items.*': ['id', 'kind', 'name', 'value', 'x', 'y', 'rotation', 'flip'],
 	'layout.wires.*': ['id', 'from', 'to']

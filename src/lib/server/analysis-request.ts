@@ -4,11 +4,14 @@ import { z } from 'zod';
 import { networkDocumentSchema } from '../network/schema';
 import type { AnalyzeOptions } from '../solver';
 import { ApiProblem } from './api/respond';
+import { config } from './config';
 
 export const LIMITS = {
 	bodyBytes: 1_000_000,
 	elements: 3000,
-	timeoutMs: Number(process.env.ANALYSIS_TIMEOUT_MS ?? 15_000),
+	get timeoutMs() {
+		return config().analysisTimeoutMs;
+	},
 	frequencyPoints: 5000,
 	stepPoints: 5000
 };

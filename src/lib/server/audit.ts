@@ -5,6 +5,7 @@ import { findAuditEvents, insertAuditEvent, type AuditRow } from './db/audit-eve
 export const AUDIT_TYPES = [
 	'sign_in',
 	'sign_in_failed',
+	'sign_up_existing',
 	'sign_out',
 	'password_changed',
 	'password_reset',

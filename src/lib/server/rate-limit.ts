@@ -5,6 +5,7 @@
 import { json } from '@sveltejs/kit';
 import { QueryTypes } from 'sequelize';
 import { db } from './db/connection';
+import { config } from './config';
 
 export interface RateRule {
 	name: string;
@@ -23,9 +24,20 @@ export const RULES = {
 	resetAddress: { name: 'reset:address', points: 10, windowSeconds: 60 * MINUTES },
 	/** New accounts per client address. Configurable because the browser test suite signs up
 	 * many people from 127.0.0.1 within one hour (npm test raises it for that run only). */
-	signUpAddress: { name: 'sign-up:address', points: Number(process.env.POLEWISE_SIGNUPS_PER_HOUR) || 10, windowSeconds: 60 * MINUTES },
-	/** Requests with an unknown or revoked API token, per client address. */
-	badTokenAddress: { name: 'api-token:address', points: 30, windowSeconds: 15 * MINUTES }
+	signUpAddress: {
+		name: 'sign-up:address',
+		get points() {
+			return config().signupsPerHour;
+		},
+		windowSeconds: 60 * MINUTES
+	},
+	/** Sign-ups for one e-mail address (each sends that address a mail, known or not). */
+	signUpAccount: { name: 'sign-up:account', points: 3, windowSeconds: 60 * MINUTES },
+	/** Requests with an unknown or revoked API token, per client address: short, because a
+	 * valid token is checked before any limit and so never suffers from it. */
+	badTokenAddress: { name: 'api-token:address', points: 30, windowSeconds: MINUTES },
+	/** Requests with one and the same unknown or revoked token, from anywhere (keyed by its hash). */
+	badToken: { name: 'api-token:token', points: 5, windowSeconds: MINUTES }
 } satisfies Record<string, RateRule>;
 
 export interface RateState {

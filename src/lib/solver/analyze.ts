@@ -1,10 +1,26 @@
 import { byMagnitude, singularity } from './singularity';
 import { computePoles, computeZeros, zerosReducible, type Root } from './poles';
-import { dcInputImpedance, impedanceFromReading } from './input-impedance';
-import { evalModal, modalForm, relativeDegree } from './modal';
+import { dcInputImpedance } from './input-impedance';
+import { evalModal, modalForm } from './modal';
+import { assemble } from './assemble';
+import { directSystem } from './direct-solve';
+import {
+	atInfinity,
+	bandwidthDirect,
+	groupDelay,
+	impedance,
+	magnitudeDb,
+	phaseDeg,
+	sweep
+} from './direct-response';
+import { AGREE, disagreement, zerosAtOrigin } from './agreement';
+import { checkedZeros } from './zero-check';
 import { expansion } from './expansion';
-import { evalPz, logSpace, pzForm, unwrapDeg, type PzForm } from './frequency-response';
+import { evalPz, logSpace, pzForm, type PzForm } from './frequency-response';
 import { poleInfo } from './pole-info';
+import { denominatorForEstimates } from './pole-estimates';
+import { groupReactivePorts, withMembers } from './reactive-ports';
+import { resistanceFormulas } from './resistance-formulas';
 import { portMatrices } from './port-matrices';
 import { portModelFrom } from './port-model';
 import { sequentialTimeConstants } from './sequential';
@@ -19,26 +35,53 @@ import {
 } from './time-constants';
 import { validateNetwork } from './validate';
 import { analysisWarnings, pairPolesAndZeros } from './warnings';
-import { bandwidth, frequencyRange, numeratorScale } from './response-range';
-import type { Analysis, AnalyzeOptions, Warning } from './types';
+import { frequencyRange, numeratorScale } from './response-range';
+import type { Analysis, AnalyzeOptions, ResistanceFormula, Warning } from './types';
 import { SolverError } from './errors';
+import { analyzeLarge } from './large/analyze-large';
 
-const LN10 = Math.log(10);
 const nullIfBad = (x: number) => (Number.isFinite(x) ? x : null);
+const withFormulas = <T>(list: T[], formulas: ResistanceFormula[]) =>
+	list.map((t, i) => ({ ...t, formula: formulas[i] }));
+
+/**
+ * Above this many reactive elements the front door takes the sparse back end (large/): the
+ * dense one computes every pole and zero in O(m³), the sparse one the k dominant poles in
+ * about O(nnz of the factor) per iteration. Chosen by measurement (docs/performance.md,
+ * "Large networks"): where the dense full analysis leaves the interactive budget.
+ */
+export const SPARSE_ABOVE = 400;
 
 /** Validate, then compute everything; see docs/network-format.md "Analysis result". */
 export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	const started = performance.now();
 	const net = validateNetwork(doc);
+	const backend = options.backend ?? 'auto';
+	if (backend === 'sparse' || (backend === 'auto' && net.reactive.length > SPARSE_ABOVE))
+		return analyzeLarge(net, options, started);
 	const extra: Warning[] = [];
-	const ocPorts = openCircuitPorts(net);
-	const oc = openCircuitTimeConstants(net, ocPorts);
+	// The time-constant views work on ports (node pairs); the poles on the elements themselves.
+	const { net: tcNet, ports } = groupReactivePorts(net);
+	const ocPorts = openCircuitPorts(tcNet);
+	const oc = openCircuitTimeConstants(tcNet, ocPorts);
 	// Larger RC networks: the diagonal of H⁻¹ by Cholesky (short-circuit-rc.ts). Otherwise the
 	// direct infinite-value configuration: with banded factorization (lu.ts) it costs less than
 	// inverting the whole m×m port matrix (K = −H⁻¹, 9× slower at m = 1000), exact by structure.
-	const sc =
-		shortCircuitTimeConstantsRC(net, ocPorts) ??
-		shortCircuitTimeConstants(net, shortCircuitPorts(net));
+	const viaRC = shortCircuitTimeConstantsRC(tcNet, ocPorts);
+	const scPorts = viaRC ? null : shortCircuitPorts(tcNet);
+	const sc = viaRC ?? shortCircuitTimeConstants(tcNet, scPorts!);
+	for (const [ports, config] of [
+		[ocPorts, 'open-circuit (zero-value)'],
+		[scPorts, 'short-circuit (infinite-value)']
+	] as const) {
+		for (const c of ports?.conflicts ?? []) {
+			extra.push({
+				code: 'inconsistent_configuration',
+				message: `in the ${config} configuration ${c.by.length ? c.by.join(', ') : 'the shorted elements'} short the ideal output of ${c.element}; the time constants that depend on it are unknown (null)`,
+				element: c.element
+			});
+		}
+	}
 	if (ocPorts.singular && net.reactive.length > 0) {
 		extra.push({
 			code: 'no_dc_solution',
@@ -46,14 +89,17 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 				'the resistive network has no unique DC solution; its time constants are reported as unknown (null)'
 		});
 	}
-	const sequential = net.reactive.length ? sequentialTimeConstants(net, ocPorts) : [];
+	const sequential = net.reactive.length ? sequentialTimeConstants(tcNet, ocPorts) : [];
 
 	let roots: Root[] = [];
 	let zeroRoots: Root[] = [];
 	let pz: PzForm | null = null;
 	let md: ReturnType<typeof modalForm> | null = null;
-	let mdZ: ReturnType<typeof modalForm> | null = null;
 	let elementsOfPorts: number[] = [];
+	// The network equations themselves: ground truth for every response (direct-solve.ts).
+	const assembled = net.reactive.length === 0 ? assemble(net, () => 'pencil') : null;
+	let sys = assembled ? directSystem(assembled) : null;
+	let inf: ReturnType<typeof atInfinity> = { degree: 0, value: nullIfBad(ocPorts.h0) };
 	if (net.reactive.length === 0) {
 		if (ocPorts.singular)
 			throw new SolverError('singular', "the network's equations have no unique solution");
@@ -67,22 +113,24 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 					}
 				: null;
 		md = { direct: ocPorts.h0, poles: [] };
-		mdZ = { direct: ocPorts.hz0, poles: [] };
 	} else {
 		const { a, pm, s0 } = shiftedModel(net, oc, sc);
+		sys = directSystem(a);
 		elementsOfPorts = pm.elements;
 		const poleSolve = computePoles(a, pm);
 		roots = poleSolve.roots;
 		md = modalForm(pm, roots, 'transfer');
-		mdZ = modalForm(pm, roots, 'zin');
-		// Keep as many zeros as the relative degree allows, the ones nearest the shift first:
-		// the rest are infinite zeros that rounding pushed to enormous finite values.
-		const count = Math.max(0, roots.length - relativeDegree(md, pm.h0));
+		// How many finite zeros there are: poles minus the relative degree, read from the
+		// network equations far above every pole (direct-response.ts), not from residues.
+		const top = Math.max(0, ...roots.map((r) => Math.hypot(r.re, r.im))) || s0;
+		inf = atInfinity(sys, top);
+		const expected = inf.degree === null ? null : Math.max(0, roots.length - inf.degree);
+		const atOrigin = zerosAtOrigin(sys, roots);
 		let zpm = pm;
-		// With every port mode finite the modal form is exact, so no finite zero means the zero
-		// eigenproblem would only return values that the count below discards (an RC ladder).
+		// With every port mode finite and no finite zero expected, the zero eigenproblem would
+		// only return values that the check below discards (an RC ladder read at its end).
 		let z =
-			count === 0 && roots.length === pm.m && zerosReducible(pm)
+			expected === 0 && roots.length === pm.m && zerosReducible(pm)
 				? []
 				: computeZeros(a, pm, poleSolve.sp);
 		for (const f of [3.7, 0.21, 17]) {
@@ -91,13 +139,22 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 			if (zpm.pivotRatio > 1e-13) z = computeZeros(a, zpm);
 		}
 		if (z) {
-			const byMu = z
-				.map((r, i) => ({ i, mu: Math.hypot(r.muRe, r.muIm) }))
-				.sort((x, y) => y.mu - x.mu);
-			const keep = new Set(
-				byMu.slice(0, Math.max(count, z.length > roots.length ? z.length : 0)).map((x) => x.i)
-			);
-			zeroRoots = z.filter((_, i) => keep.has(i));
+			const checked = checkedZeros(sys, z, roots, expected, atOrigin);
+			let zs = checked.zeros;
+			if (expected !== null && zs.length > expected) {
+				// Keep the ones nearest the shift: the rest are infinite zeros rounded to finite.
+				const near = (x: { re: number; im: number }) => Math.hypot(zpm.s0 - x.re, x.im);
+				zs = zs
+					.slice()
+					.sort((x, y) => near(x) - near(y))
+					.slice(0, expected);
+			}
+			if (checked.found > 0)
+				extra.push({
+					code: 'zero_recovered',
+					message: `${checked.found} zero${checked.found > 1 ? 's' : ''} beside a pole (near cancellation) recovered from the network equations`
+				});
+			zeroRoots = zs.map((x) => ({ ...x, muRe: 0, muIm: 0, partner: -1, vectors: null }));
 			pz = pzForm(roots, zeroRoots, zpm.s0, zpm.h0);
 		} else
 			extra.push({
@@ -109,7 +166,12 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	const order = roots.map((_, i) => i).sort((i, j) => byMagnitude(roots[i], roots[j]));
 	const poleAtZero = roots.some((r) => r.re === 0 && r.im === 0);
 	const dcGain = poleAtZero || ocPorts.singular ? null : nullIfBad(ocPorts.h0);
-	const poles = poleInfo(net, roots, order, sequential, elementsOfPorts);
+	const b = denominatorForEstimates(
+		oc,
+		ocPorts,
+		order.map((i) => roots[i])
+	);
+	const poles = poleInfo(net, roots, order, sequential, elementsOfPorts, b);
 	const zeros: Analysis['zeros'] = zeroRoots
 		.slice()
 		.sort(byMagnitude)
@@ -121,17 +183,28 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		options.frequency === false
 			? null
 			: logSpace(range.fMin, range.fMax, options.frequency?.points ?? 200);
+	// Every analysis sweeps the network equations over frequencies spanning all poles and zeros:
+	// the response grid when there is one, else a coarser grid for the checks alone.
+	const grid = freq ?? logSpace(range.fMin, range.fMax, 100);
+	const sw = sweep(sys!, grid, true);
 	let frequencyResponse: Analysis['frequencyResponse'] = null;
 	if (freq) {
-		const vals = freq.map((f) => (pz ? evalPz(pz, 2 * Math.PI * f) : null));
+		const delay = groupDelay(sw);
 		frequencyResponse = {
 			f: freq,
-			magnitudeDb: vals.map((v) => (v ? nullIfBad((20 * v.logMag) / LN10) : null)),
-			phaseDeg: unwrapDeg(vals.map((v) => (v ? nullIfBad((v.arg * 180) / Math.PI) : null))),
-			groupDelay: vals.map((v) => (v ? nullIfBad(v.groupDelay) : null))
+			magnitudeDb: magnitudeDb(sw),
+			phaseDeg: phaseDeg(sw, delay),
+			groupDelay: delay
 		};
 	}
-	const bw = pz ? bandwidth(pz, dcGain, range) : null;
+	const worst = disagreement(pz, sw);
+	if (worst && worst.size > AGREE) {
+		extra.push({
+			code: 'pole_zero_disagreement',
+			message: `the pole–zero form differs from the network equations by ${worst.size.toPrecision(2)} (relative) at ${worst.f.toPrecision(4)} Hz; the responses come from the network equations, the pole and zero lists may be incomplete there`
+		});
+	}
+	const bw = bandwidthDirect(sys!, dcGain, sw);
 
 	let step: Analysis['step'] = null;
 	const stable = poles.every((p) => p.re < 0);
@@ -163,18 +236,13 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		}
 	}
 	const zinDc = dcInputImpedance(net, ocPorts, poleAtZero);
+	const vInput = net.elements[net.input].type === 'V';
 	const zin =
-		freq && mdZ && options.impedanceCurve !== false
-			? freq.map((f) => {
-					const v = evalModal(mdZ!, 0, 2 * Math.PI * f);
-					return impedanceFromReading(net, v.re, v.im);
-				})
-			: [];
+		freq && options.impedanceCurve !== false ? sw.points.map((p) => impedance(p, vInput)) : [];
 	const exp =
 		net.reactive.length && options.expansion !== false
-			? expansion(net, ocPorts, roots, zeroRoots, numeratorScale(pz, roots, zeroRoots, dcGain))
+			? expansion(tcNet, ocPorts, roots, zeroRoots, numeratorScale(pz, roots, zeroRoots, dcGain))
 			: null;
-	const improper = zeroRoots.length > roots.length;
 
 	const result: Omit<Analysis, 'warnings' | 'meta'> = {
 		title: net.title,
@@ -182,9 +250,20 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		zeros,
 		pairs,
 		dcGain,
-		highFrequencyGain: md && !improper ? nullIfBad(md.direct) : null,
-		timeConstants: { openCircuit: oc, shortCircuit: sc, sequential },
-		portMatrices: portMatrices(net, ocPorts),
+		highFrequencyGain: inf.value,
+		timeConstants: {
+			openCircuit: withFormulas(withMembers(net, ports, oc), resistanceFormulas(tcNet, 'open', oc)),
+			shortCircuit: withFormulas(
+				withMembers(net, ports, sc),
+				resistanceFormulas(tcNet, 'short', sc)
+			),
+			sequential: withMembers(net, ports, sequential).map(({ value: _, ...s }) => s)
+		},
+		portMatrices: portMatrices(
+			tcNet,
+			ocPorts,
+			ports.map((p) => p.members.map((k) => net.elements[k].id))
+		),
 		expansion: exp,
 		frequencyResponse,
 		bandwidth: bw,
@@ -199,11 +278,13 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	return {
 		...result,
 		warnings: analysisWarnings(net, result, extra),
+		poleSet: { method: 'all', total: roots.length, computed: roots.length, shift: null },
 		meta: {
 			elements: net.elements.length,
 			nodes: net.nodeNames.length + 1,
 			reactive: net.reactive.length,
-			ms: performance.now() - started
+			ms: performance.now() - started,
+			backend: 'dense'
 		}
 	};
 }

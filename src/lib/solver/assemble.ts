@@ -38,6 +38,30 @@ export interface Assembled {
  * the input is at zero: V shorted (its branch stays, RHS 0), I open (no stamp at all).
  */
 export function assemble(net: ResolvedNetwork, mode: (element: number) => ReactiveMode): Assembled {
+	let g = new Float64Array(0);
+	let size = 0;
+	const stamped = stampNetwork(net, mode, (n) => {
+		size = n;
+		g = new Float64Array(n * n);
+		return (r, c, v) => {
+			g[r * size + c] += v;
+		};
+	});
+	return { ...stamped, g };
+}
+
+/** Where stamps go: `add(row, column, value)` for rows and columns other than ground. */
+export type StampSink = (row: number, col: number, value: number) => void;
+
+/**
+ * The stamps themselves, for any storage: `open(size)` is called once the number of unknowns is
+ * known and returns the sink (a dense array for small networks, triplets for the sparse path).
+ */
+export function stampNetwork(
+	net: ResolvedNetwork,
+	mode: (element: number) => ReactiveMode,
+	open: (size: number) => StampSink
+): Omit<Assembled, 'g'> {
 	const nn = net.nodeNames.length;
 	const branch = new Map<number, number>();
 	let size = nn;
@@ -50,9 +74,9 @@ export function assemble(net: ResolvedNetwork, mode: (element: number) => Reacti
 			m === 'vport';
 		if (needs) branch.set(k, size++);
 	});
-	const g = new Float64Array(size * size);
+	const sink = open(size);
 	const add = (r: number, c: number, v: number) => {
-		if (r !== GROUND && c !== GROUND) g[r * size + c] += v;
+		if (r !== GROUND && c !== GROUND) sink(r, c, v);
 	};
 	const kcl = (a: number, b: number, col: number, v = 1) => {
 		add(a, col, v);
@@ -146,7 +170,7 @@ export function assemble(net: ResolvedNetwork, mode: (element: number) => Reacti
 		zin = pair(inp.nodes[0], inp.nodes[1]);
 	}
 	const c = pair(net.output.node, net.output.reference);
-	return { size, g, ports, b: bVec, c, zin };
+	return { size, ports, b: bVec, c, zin };
 }
 
 export function dense(v: Sparse, size: number): Float64Array {

@@ -1,7 +1,7 @@
 import { assemble, type ReactiveMode } from './assemble';
 import { portModelFrom, SINGULAR_PIVOT, type PortModel } from './port-model';
 import { edgesOnLoops } from './loop-edges';
-import { branchNodes } from './topology';
+import { dcRoles, roleBranch } from './dc-roles';
 import { UnionFind } from './union-find';
 import type { ResolvedNetwork } from './types';
 
@@ -18,17 +18,58 @@ export interface DcPorts extends PortModel {
 	infinite: Uint8Array;
 	/** True when the reduced matrix was still singular (an active network without a DC solution). */
 	singular: boolean;
+	/**
+	 * Per port: its configuration is inconsistent — the other elements' shorts short an ideal
+	 * voltage output (a controlled source or an op-amp output) — so its reading is unknown.
+	 */
+	unknown: Uint8Array;
+	/** The ideal outputs this configuration shorts, and the reactive elements that short them. */
+	conflicts: { element: string; by: string[] }[];
 }
 
-const VOLTAGE_EDGE = new Set(['V', 'VCVS', 'CCVS', 'OPAMP']);
+/**
+ * Ideal voltage outputs (dc-roles.ts) whose terminals the configuration's shorts join. For each,
+ * the reactive shorts without which it would not be shorted (`essential`): such a port drives a
+ * voltage straight across the ideal output and reads zero resistance; every other port sees an
+ * inconsistent configuration. Only runs the per-port search for outputs that are shorted.
+ */
+function shortedIdealOutputs(
+	net: ResolvedNetwork,
+	ideal: number[],
+	zeroShorts: number[],
+	shortLike: (k: number) => boolean
+): { element: number; essential: number[] }[] {
+	const els = net.elements;
+	const reactiveShorts = net.reactive.filter(shortLike);
+	if (!ideal.length || !reactiveShorts.length) return [];
+	const out: { element: number; essential: number[] }[] = [];
+	for (const e of ideal) {
+		const joined = (skip: number) => {
+			const uf = new UnionFind(net.nodeNames.length);
+			for (const k of zeroShorts) uf.union(...roleBranch(els[k])!);
+			for (const o of ideal) if (o !== e) uf.union(...roleBranch(els[o])!);
+			for (const k of reactiveShorts) if (k !== skip) uf.union(els[k].nodes[0], els[k].nodes[1]);
+			const [a, b] = roleBranch(els[e])!;
+			return uf.connected(a, b);
+		};
+		if (!joined(-1)) continue;
+		out.push({ element: e, essential: reactiveShorts.filter((k) => !joined(k)) });
+	}
+	return out;
+}
 
 export function dcPorts(net: ResolvedNetwork, modeOf: (k: number) => ReactiveMode): DcPorts {
 	const n = net.nodeNames.length;
 	const els = net.elements;
-	// Shorts: the voltage-defined branches (acyclic by validation) then the shorted/voltage-port
-	// reactive ones; a reactive short that closes a loop is dropped from the equations.
+	const roles = dcRoles(net);
+	const edgeOfRole = (k: number) => roleBranch(els[k])!;
+	const zeroShorts = els.map((_, k) => k).filter((k) => roles[k] === 'short');
+	const ideal = els.map((_, k) => k).filter((k) => roles[k] === 'ideal');
+	// Shorts: zero-voltage branches (zeroed sources), then ideal outputs (a loop of those is
+	// refused by validation), then the shorted/voltage-port reactive ones; a reactive short
+	// that closes a loop is dropped from the equations (its current is undetermined).
 	const shorts = new UnionFind(n);
-	for (const e of els) if (VOLTAGE_EDGE.has(e.type)) shorts.union(...branchNodes(e));
+	for (const k of [...zeroShorts, ...ideal]) shorts.union(...edgeOfRole(k));
 	const dropped = new Set<number>();
 	const shortLike = (k: number) => modeOf(k) === 'short' || modeOf(k) === 'vport';
 	for (const k of net.reactive) {
@@ -37,7 +78,7 @@ export function dcPorts(net: ResolvedNetwork, modeOf: (k: number) => ReactiveMod
 	// A voltage port is inside a loop of shorts when the other shorts already join its
 	// terminals: exactly when it is not a bridge of the graph of all shorts.
 	const shortEdges: [number, number][] = [];
-	for (const e of els) if (VOLTAGE_EDGE.has(e.type)) shortEdges.push(branchNodes(e));
+	for (const k of [...zeroShorts, ...ideal]) shortEdges.push(edgeOfRole(k));
 	const edgeOf = new Map<number, number>();
 	for (const k of net.reactive) {
 		if (!shortLike(k)) continue;
@@ -48,11 +89,12 @@ export function dcPorts(net: ResolvedNetwork, modeOf: (k: number) => ReactiveMod
 	const inLoop = new Set<number>();
 	for (const k of net.reactive) if (modeOf(k) === 'vport' && onLoop[edgeOf.get(k)!]) inLoop.add(k);
 	const mode = (k: number): ReactiveMode => (dropped.has(k) ? 'open' : modeOf(k));
+	const conflicts = shortedIdealOutputs(net, ideal, zeroShorts, shortLike);
 
 	// DC components through every branch that carries a determined current path.
 	const comp = new UnionFind(n);
 	els.forEach((e, k) => {
-		if (e.type === 'R' || VOLTAGE_EDGE.has(e.type)) comp.union(...branchNodes(e));
+		if (roles[k] !== 'none') comp.union(...edgeOfRole(k));
 		if ((e.type === 'C' || e.type === 'L') && (mode(k) === 'short' || mode(k) === 'vport')) {
 			comp.union(e.nodes[0], e.nodes[1]);
 		}
@@ -84,8 +126,15 @@ export function dcPorts(net: ResolvedNetwork, modeOf: (k: number) => ReactiveMod
 		d: Float64Array.from(full.map((k) => (els[k].type === 'C' ? els[k].value : -els[k].value))),
 		elements: full,
 		infinite: new Uint8Array(m),
-		singular: model.pivotRatio < SINGULAR_PIVOT
+		singular: model.pivotRatio < SINGULAR_PIVOT,
+		unknown: new Uint8Array(m),
+		conflicts: conflicts.map((c) => ({
+			element: els[c.element].id,
+			by: c.essential.map((k) => els[k].id)
+		}))
 	};
+	for (let i = 0; i < m; i++)
+		if (conflicts.some((c) => !c.essential.includes(full[i]))) out.unknown[i] = 1;
 	// Scatter the solved ports back into the full port list.
 	const at = new Map(present.map((k, i) => [k, i]));
 	const where = full.map((k) => at.get(k) ?? -1);

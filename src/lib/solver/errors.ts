@@ -8,6 +8,7 @@ export type SolverErrorCode =
 	| 'bad_value'
 	| 'zero_value'
 	| 'non_finite'
+	| 'underflow'
 	| 'duplicate_id'
 	| 'unknown_type'
 	| 'unknown_control'
@@ -16,7 +17,8 @@ export type SolverErrorCode =
 	| 'bad_nodes'
 	| 'source_loop'
 	| 'current_cutset'
-	| 'singular';
+	| 'singular'
+	| 'bad_variants';
 
 export class SolverError extends Error {
 	readonly code: SolverErrorCode;

@@ -1,4 +1,5 @@
 import type { DcPorts } from './dc-ports';
+import { rootPolynomial } from './pole-estimates';
 import type { Analysis, ExpansionCoefficient, ExpansionTerm, ResolvedNetwork } from './types';
 
 /**
@@ -38,25 +39,6 @@ function det(a: number[][]): number {
 	return d;
 }
 
-/** e_k of the values (complex pairs give real results), k = 0..kMax. */
-function elementary(vals: { re: number; im: number }[], kMax: number): number[] {
-	const er = new Array(kMax + 1).fill(0);
-	const ei = new Array(kMax + 1).fill(0);
-	er[0] = 1;
-	for (const v of vals) {
-		for (let k = kMax; k >= 1; k--) {
-			er[k] += v.re * er[k - 1] - v.im * ei[k - 1];
-			ei[k] += v.re * ei[k - 1] + v.im * er[k - 1];
-		}
-	}
-	return er;
-}
-
-const inv = (p: { re: number; im: number }) => {
-	const d = p.re * p.re + p.im * p.im;
-	return { re: -p.re / d, im: p.im / d }; // −1/p
-};
-
 function subsets(m: number, k: number, each: (s: number[]) => void): void {
 	const s: number[] = [];
 	const rec = (start: number) => {
@@ -77,15 +59,20 @@ export function expansion(
 	zeros: { re: number; im: number }[],
 	numeratorScale: number | null
 ): Analysis['expansion'] {
-	if (oc.singular || oc.infinite.some((x) => x) || poles.some((p) => p.re === 0 && p.im === 0))
+	if (
+		oc.singular ||
+		oc.conflicts.length ||
+		oc.infinite.some((x) => x) ||
+		poles.some((p) => p.re === 0 && p.im === 0)
+	)
 		return null;
 	const m = oc.m;
 	const id = (i: number) => net.elements[oc.elements[i]].id;
 	const T = (i: number, j: number) => oc.d[i] * oc.H[i * m + j];
-	const bTot = elementary(poles.map(inv), Math.min(MAX_ORDER, poles.length));
+	const bTot = rootPolynomial(poles, Math.min(MAX_ORDER, poles.length));
 	const z0 = zeros.filter((z) => z.re === 0 && z.im === 0).length;
-	const aTot = elementary(
-		zeros.filter((z) => z.re !== 0 || z.im !== 0).map(inv),
+	const aTot = rootPolynomial(
+		zeros.filter((z) => z.re !== 0 || z.im !== 0),
 		Math.min(MAX_ORDER, zeros.length)
 	);
 

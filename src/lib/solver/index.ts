@@ -9,7 +9,9 @@ export { networkDocumentSchema, type NetworkDocument } from '../network/schema';
 export type {
 	Analysis,
 	AnalyzeOptions,
+	PoleEstimate,
 	PoleInfo,
+	ResistanceFormula,
 	ResolvedNetwork,
 	Singularity,
 	TimeConstant,

@@ -1,4 +1,6 @@
 import type { DcPorts } from './dc-ports';
+import { edgesOnLoops } from './loop-edges';
+import { GROUND } from './types';
 import type { ResolvedNetwork } from './types';
 
 /**
@@ -20,9 +22,29 @@ export function impedanceFromReading(
 	return Number.isFinite(re) && Number.isFinite(im) ? { re, im } : null;
 }
 
+/**
+ * Whether the input source carries exactly no current at DC, from the structure: a V input whose
+ * branch is a bridge of the graph of every branch that can carry a DC current (all but
+ * capacitors and the zeroed independent current sources) closes no loop, so no current flows
+ * through it — however the rounding of a solve would have it. Its impedance is infinite (null),
+ * not the 1e17 Ω that a round-off current would suggest.
+ */
+export function drawsNoDcCurrent(net: ResolvedNetwork): boolean {
+	const inp = net.elements[net.input];
+	if (inp.type !== 'V') return false;
+	const edges: [number, number][] = [];
+	let mine = -1;
+	net.elements.forEach((e, k) => {
+		if (e.type === 'C' || e.type === 'I') return;
+		if (k === net.input) mine = edges.length;
+		edges.push(e.type === 'OPAMP' ? [e.nodes[2], GROUND] : [e.nodes[0], e.nodes[1]]);
+	});
+	return edgesOnLoops(net.nodeNames.length, edges)[mine] === 0;
+}
+
 /** Input impedance at DC from the zero-value (C open, L shorted) configuration. */
 export function dcInputImpedance(net: ResolvedNetwork, oc: DcPorts, poleAtZero: boolean) {
-	if (oc.singular || poleAtZero) return null;
+	if (oc.singular || poleAtZero || drawsNoDcCurrent(net)) return null;
 	// An anchored floating component cannot change what the input sees (no current crosses).
 	return impedanceFromReading(net, oc.hz0, 0);
 }

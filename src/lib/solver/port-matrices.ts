@@ -2,7 +2,8 @@ import type { DcPorts } from './dc-ports';
 import type { Analysis, ResolvedNetwork } from './types';
 
 /**
- * The resistive network seen at the reactive ports, in the zero-value configuration
+ * The resistive network seen at the reactive ports (node pairs: parallel capacitors and series
+ * inductors are one port each, `members` names their elements), in the zero-value configuration
  * (capacitors open, inductors shorted), and the element matrix.
  *
  * Capacitor rows and columns are driven by a current and read a voltage (ohms). Inductor ports
@@ -12,7 +13,11 @@ import type { Analysis, ResolvedNetwork } from './types';
  * eigenvalues are −1/p for every finite pole p. Rows/columns of a port with an infinite reading
  * are null.
  */
-export function portMatrices(net: ResolvedNetwork, oc: DcPorts): Analysis['portMatrices'] {
+export function portMatrices(
+	net: ResolvedNetwork,
+	oc: DcPorts,
+	members: string[][]
+): Analysis['portMatrices'] {
 	const m = oc.m;
 	const kinds = oc.elements.map((k) => net.elements[k].type as 'C' | 'L');
 	const sign = kinds.map((t) => (t === 'C' ? 1 : -1));
@@ -22,14 +27,14 @@ export function portMatrices(net: ResolvedNetwork, oc: DcPorts): Analysis['portM
 	for (let i = 0; i < m; i++) {
 		const row: (number | null)[] = new Array(m);
 		const crow: number[] = new Array(m).fill(0);
-		const bad = oc.singular || oc.infinite[i] === 1;
+		const bad = oc.singular || oc.infinite[i] === 1 || oc.unknown[i] === 1;
 		for (let j = 0; j < m; j++) {
 			const v = sign[i] * oc.H[i * m + j];
-			row[j] = bad || oc.infinite[j] || !Number.isFinite(v) ? null : v;
+			row[j] = bad || oc.infinite[j] || oc.unknown[j] || !Number.isFinite(v) ? null : v;
 		}
 		crow[i] = Math.abs(oc.d[i]);
 		R[i] = row;
 		C[i] = crow;
 	}
-	return { ports: oc.elements.map((k) => net.elements[k].id), kinds, R, C };
+	return { ports: oc.elements.map((k) => net.elements[k].id), members, kinds, R, C };
 }

@@ -35,7 +35,12 @@ export function sequentialTimeConstants(
 		let best = -1;
 		let bestTau = -Infinity;
 		for (const i of alive) {
-			const tau = ports.singular ? NaN : ports.infinite[i] ? Infinity : ports.d[i] * H[i * m + i];
+			const tau =
+				ports.singular || ports.unknown[i]
+					? NaN
+					: ports.infinite[i]
+						? Infinity
+						: ports.d[i] * H[i * m + i];
 			const key = Number.isNaN(tau) ? -Infinity : tau;
 			if (best < 0 || key > bestTau) {
 				best = i;
@@ -53,7 +58,7 @@ export function sequentialTimeConstants(
 			scale = Math.max(scale, Math.abs(H[i * m + i]));
 			if (ports.infinite[i]) anyInfinite = true;
 		}
-		if (ports.singular || anyInfinite || ports.infinite[best]) {
+		if (ports.singular || anyInfinite || ports.infinite[best] || ports.conflicts.length) {
 			if (alive.length > 0) rebuild();
 			continue;
 		}

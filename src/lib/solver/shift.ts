@@ -1,7 +1,7 @@
 import { assemble, type Assembled } from './assemble';
 import { portModelFrom, SINGULAR_PIVOT, type PortModel } from './port-model';
 import { SolverError } from './errors';
-import type { ResolvedNetwork, TimeConstant } from './types';
+import type { ResolvedNetwork, PortReading } from './types';
 
 /**
  * Picks the real shift s0 for the shift-and-invert reduction and builds the port model there.
@@ -15,8 +15,8 @@ import type { ResolvedNetwork, TimeConstant } from './types';
  */
 export function shiftedModel(
 	net: ResolvedNetwork,
-	oc: TimeConstant[],
-	sc: TimeConstant[]
+	oc: PortReading[],
+	sc: PortReading[]
 ): { a: Assembled; pm: PortModel; s0: number; scale: number } {
 	const a = assemble(net, () => 'pencil');
 	const scale = naturalScale(oc, sc);
@@ -30,7 +30,7 @@ export function shiftedModel(
 	);
 }
 
-function naturalScale(oc: TimeConstant[], sc: TimeConstant[]): number {
+function naturalScale(oc: PortReading[], sc: PortReading[]): number {
 	let sum = 0;
 	for (const t of oc) if (t.tau !== null && Number.isFinite(t.tau)) sum += Math.abs(t.tau);
 	let rate = 0;

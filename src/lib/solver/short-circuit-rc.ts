@@ -1,6 +1,6 @@
 import type { DcPorts } from './dc-ports';
 import { hasStructuralExtreme, SC_FROM_OC_ABOVE } from './time-constants';
-import type { ResolvedNetwork, TimeConstant } from './types';
+import type { ResolvedNetwork, PortReading } from './types';
 
 /**
  * Short-circuit time constants of an RC network straight from the zero-value port matrix.
@@ -17,14 +17,17 @@ import type { ResolvedNetwork, TimeConstant } from './types';
  * and the caller takes the direct configuration.
  */
 const MIN_PIVOT_SHARE = 1e-4;
+const RECIPROCAL = new Set(['R', 'C', 'L', 'V', 'I']);
 
 export function shortCircuitTimeConstantsRC(
 	net: ResolvedNetwork,
 	oc: DcPorts
-): TimeConstant[] | null {
+): PortReading[] | null {
 	const m = oc.m;
 	if (m <= SC_FROM_OC_ABOVE || oc.singular || oc.infinite.some((x) => x)) return null;
 	if (oc.elements.some((k) => net.elements[k].type !== 'C')) return null;
+	// H is symmetric only for a reciprocal network: a controlled source or an op-amp breaks it.
+	if (net.elements.some((e) => !RECIPROCAL.has(e.type))) return null;
 	if (hasStructuralExtreme(net)) return null;
 	const H = oc.H;
 	const L = new Float64Array(m * m);

@@ -3,7 +3,7 @@ import { luFactor, luSolve } from './lu';
 import { edgesOnLoops } from './loop-edges';
 import { branchNodes } from './topology';
 import { UnionFind } from './union-find';
-import type { ResolvedNetwork, TimeConstant } from './types';
+import type { ResolvedNetwork, PortReading } from './types';
 
 /** Zero-value configuration: every capacitor open, every inductor shorted; all are ports. */
 export function openCircuitPorts(net: ResolvedNetwork): DcPorts {
@@ -22,11 +22,11 @@ const finite = (x: number) => (Number.isFinite(x) ? x : null);
  * an inductor port reads the branch current per volt, which is −1/R seen. With d = C or −L,
  * τ = d·Hkk in both cases, and Σ τ is the trace of the time-constant matrix.
  */
-export function openCircuitTimeConstants(net: ResolvedNetwork, oc: DcPorts): TimeConstant[] {
+export function openCircuitTimeConstants(net: ResolvedNetwork, oc: DcPorts): PortReading[] {
 	return oc.elements.map((k, i) => {
 		const e = net.elements[k];
 		const hkk = oc.H[i * oc.m + i];
-		if (oc.singular) return { element: e.id, resistance: null, tau: null };
+		if (oc.singular || oc.unknown[i]) return { element: e.id, resistance: null, tau: null };
 		if (e.type === 'C') {
 			return oc.infinite[i]
 				? { element: e.id, resistance: null, tau: null }
@@ -42,11 +42,11 @@ export function openCircuitTimeConstants(net: ResolvedNetwork, oc: DcPorts): Tim
  * Short-circuit (infinite-value) time constants: the capacitor port is now a voltage port
  * (reading −1/R), the inductor port a current port (reading R); τ = −d / Kkk in both cases.
  */
-export function shortCircuitTimeConstants(net: ResolvedNetwork, sc: DcPorts): TimeConstant[] {
+export function shortCircuitTimeConstants(net: ResolvedNetwork, sc: DcPorts): PortReading[] {
 	return sc.elements.map((k, i) => {
 		const e = net.elements[k];
 		const kkk = sc.H[i * sc.m + i];
-		if (sc.singular) return { element: e.id, resistance: null, tau: null };
+		if (sc.singular || sc.unknown[i]) return { element: e.id, resistance: null, tau: null };
 		if (e.type === 'C') {
 			if (sc.infinite[i]) return { element: e.id, resistance: 0, tau: 0 };
 			const r = finite(-1 / kkk);
@@ -73,7 +73,8 @@ export const SC_FROM_OC_ABOVE = 20;
 
 export function shortCircuitFromOpen(net: ResolvedNetwork, oc: DcPorts): DcPorts | null {
 	const m = oc.m;
-	if (m <= SC_FROM_OC_ABOVE || oc.singular || oc.infinite.some((x) => x)) return null;
+	if (m <= SC_FROM_OC_ABOVE || oc.singular || oc.infinite.some((x) => x) || oc.conflicts.length)
+		return null;
 	if (hasStructuralExtreme(net)) return null;
 	const f = luFactor(oc.H, m);
 	if (f.pivotRatio < 1e-6) return null;
@@ -85,7 +86,14 @@ export function shortCircuitFromOpen(net: ResolvedNetwork, oc: DcPorts): DcPorts
 		luSolve(f, col);
 		for (let i = 0; i < m; i++) K[i * m + j] = -col[i];
 	}
-	return { ...oc, H: K, infinite: new Uint8Array(m), singular: false };
+	return {
+		...oc,
+		H: K,
+		infinite: new Uint8Array(m),
+		singular: false,
+		unknown: new Uint8Array(m),
+		conflicts: []
+	};
 }
 
 const VOLTAGE_EDGE = new Set(['V', 'VCVS', 'CCVS', 'OPAMP']);

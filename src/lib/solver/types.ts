@@ -46,26 +46,96 @@ export interface Singularity {
 	im: number;
 	/** |s| / 2π */
 	hz: number;
-	/** |s| / (−2 re); null for a pole or zero at the origin or on the jω axis. */
+	/** |s| / (−2 re) for a complex pair; null for a real root (Q belongs to a pair) and on the jω axis. */
 	q: number | null;
-	/** −re / |s|; null at the origin. */
+	/** −re / |s| for a complex pair; null for a real root. */
 	zeta: number | null;
+	/** |s| in rad/s for a complex pair (its undamped natural frequency); null for a real root. */
+	omega0: number | null;
 	/** −1 / re; null where re = 0. */
 	tau: number | null;
 }
 
+/**
+ * A quick estimate of one exact pole (docs/methods.md, "Estimates of each pole"):
+ * - `b1`: the dominant pole as −1/b1, b1 = Σ τ open;
+ * - `ratio`: the k-th pole as −b(k−1)/b(k), ratios of successive denominator coefficients;
+ * - `two-pole`: a root of 1 + b1·s + b2·s² (the denominator cut after s²);
+ * - `sequential`: −1/τ of the k-th port the largest-first sequence chose.
+ */
+export type EstimateMethod = 'b1' | 'ratio' | 'two-pole' | 'sequential';
+
+export interface PoleEstimate {
+	method: EstimateMethod;
+	/** What it is computed from, for people: "1/b1", "b1/b2", "1 + b1·s + b2·s²", "port Ctop". */
+	basis: string;
+	/** The port the sequential estimate names; null for the coefficient methods. */
+	element: string | null;
+	/** Estimated pole, rad/s (im ≠ 0 only for a two-pole estimate of a complex pair). */
+	re: number;
+	im: number;
+	hz: number;
+	/** −1/re for a real estimate, else null. */
+	tau: number | null;
+	/** |estimate − pole| / |pole|. */
+	relativeError: number;
+}
+
 export interface PoleInfo extends Singularity {
-	estimate: { element: string; tau: number | null; re: number | null; hz: number | null } | null;
-	/** |estimate − pole| / |pole| (real estimate against the complex pole). */
+	/** The headline estimate: the simplest within 2 % of the pole, else the closest; null when none exists. */
+	estimate: PoleEstimate | null;
+	/** Every estimate there is for this pole, headline first, then by error. */
+	estimates: PoleEstimate[];
+	/** The headline estimate's relative error (null without an estimate). */
 	relativeError: number | null;
 	owners: { element: string; share: number }[];
 	/** Index into `zeros` of a zero closer than 1 %, or null. */
 	cancelledBy: number | null;
+	/** Sparse path: the residue of the transfer at this pole (rad/s units of the transfer). */
+	residue?: Complex | null;
+	/** Sparse path: normwise backward error ‖(G + pC)v‖ / ((‖G‖ + |p|‖C‖)‖v‖) of the pole's mode. */
+	backwardError?: number;
 }
 
-export interface TimeConstant {
+/** One port's reading in a DC configuration, as the time-constant steps compute it. */
+export interface PortReading {
+	/** The port: a lone element's id, or its members' ids joined by " + " (docs/network-format.md). */
 	element: string;
 	resistance: number | null;
+	tau: number | null;
+}
+
+/**
+ * How the resistance a port sees is made up (resistance-formulas.ts): a series–parallel formula
+ * of element names and its value; or why there is none — no DC path (`open`, value null = ∞),
+ * shorted terminals (`short`, value 0), a bridge or a controlled source (`not-series-parallel`,
+ * value from the solver and the resistors that matter most); `not-computed` above 200 ports or
+ * 80 000 port × resistor pairs (value from the solver).
+ */
+export interface ResistanceFormula {
+	kind: 'series-parallel' | 'open' | 'short' | 'not-series-parallel' | 'not-computed';
+	/** "Rtop ∥ (Rsrc + Radc)"; null unless series–parallel. */
+	formula: string | null;
+	/** Ohms; null where infinite or unknown. */
+	value: number | null;
+	/** Why there is no formula; null when there is one. */
+	reason: string | null;
+	/** Not series–parallel: the resistors with the largest normalized sensitivity (∂R/∂r)(r/R), at most 3. */
+	influence: { element: string; sensitivity: number }[];
+}
+
+export interface TimeConstant extends PortReading {
+	/** Element ids of the port, document order. */
+	members: string[];
+	/** Total capacitance or inductance of the port (SI units). */
+	value: number;
+	/** The resistance seen, as a formula of element names (or why not). */
+	formula: ResistanceFormula;
+}
+
+export interface SequentialStep {
+	element: string;
+	members: string[];
 	tau: number | null;
 }
 
@@ -95,10 +165,14 @@ export interface Analysis {
 	timeConstants: {
 		openCircuit: TimeConstant[];
 		shortCircuit: TimeConstant[];
-		sequential: { element: string; tau: number | null }[];
+		sequential: SequentialStep[];
+		/** Elmore delay to the output of an RC tree (Elmore 1948); absent or null otherwise. */
+		elmore?: { node: string; delay: number } | null;
 	};
 	portMatrices: {
 		ports: string[];
+		/** Element ids of each port. */
+		members: string[][];
 		kinds: ('C' | 'L')[];
 		R: (number | null)[][];
 		C: number[][];
@@ -130,7 +204,26 @@ export interface Analysis {
 		phaseDeg: (number | null)[];
 	} | null;
 	warnings: Warning[];
-	meta: { elements: number; nodes: number; reactive: number; ms: number };
+	/**
+	 * Which poles the answer holds: every one (the dense back end) or the k nearest a shift (the
+	 * sparse back end, docs/methods.md "Large networks"); `total` is the network's number of
+	 * finite poles by structure (null where controlled sources make it unknowable by structure).
+	 */
+	poleSet?: {
+		method: 'all' | 'lanczos' | 'arnoldi';
+		total: number | null;
+		computed: number;
+		/** The shift the computed poles are nearest to, rad/s (0: the slowest). */
+		shift: number | null;
+	};
+	meta: {
+		elements: number;
+		nodes: number;
+		reactive: number;
+		ms: number;
+		/** dense: every pole and zero; sparse: the large-network path (only k poles, no zeros). */
+		backend?: 'dense' | 'sparse';
+	};
 }
 
 export interface AnalyzeOptions {
@@ -140,4 +233,14 @@ export interface AnalyzeOptions {
 	expansion?: false;
 	/** false: skip the input-impedance curve (the DC value is still computed; arrays empty). */
 	impedanceCurve?: false;
+	/**
+	 * The back end: 'auto' (default) takes the sparse path above SPARSE_ABOVE reactive elements
+	 * (analyze.ts); 'dense' and 'sparse' force one (both answer the same questions on the
+	 * overlap, to 1e-9).
+	 */
+	backend?: 'auto' | 'dense' | 'sparse';
+	/** Sparse path: how many poles (default 10) nearest which real shift (default 0: the slowest). */
+	dominant?: { count?: number; near?: number };
+	/** Sparse path: called with the share done (0…1) and the stage, for progress bars. */
+	onProgress?: (done: number, stage: string) => void;
 }

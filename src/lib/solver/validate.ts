@@ -1,4 +1,5 @@
 import { networkDocumentSchema, type ElementType } from '../network/schema';
+import { baseNetwork, listVariants, VariantError } from '../network/variants';
 import { SolverError } from './errors';
 import { parseValue } from './parse-value';
 import { checkTopology } from './topology';
@@ -41,7 +42,15 @@ export function validateNetwork(doc: unknown): ResolvedNetwork {
 	preflight(doc);
 	const parsed = networkDocumentSchema.safeParse(doc);
 	if (!parsed.success) throw fromZod(doc, parsed.error.issues[0]);
-	const d = parsed.data;
+	// A document with variants is its base network here (a variant is resolved before it comes
+	// in); its variant block is still checked, so an import refuses a broken one.
+	try {
+		listVariants(parsed.data);
+	} catch (e) {
+		if (e instanceof VariantError) throw new SolverError('bad_variants', e.message, { element: e.where.element });
+		throw e;
+	}
+	const d = baseNetwork(parsed.data);
 	if (d.elements.length === 0)
 		throw new SolverError('empty_network', 'the network has no elements');
 
@@ -122,6 +131,10 @@ export function validateNetwork(doc: unknown): ResolvedNetwork {
 		});
 	}
 
+	for (const [k, e] of elements.entries()) {
+		const trim = trimmerRange(d.elements[k], e.value);
+		if (trim) warnings.push(trim);
+	}
 	for (const e of elements) {
 		if ((e.type === 'R' || e.type === 'C' || e.type === 'L') && e.value < 0) {
 			warnings.push({
@@ -144,28 +157,79 @@ export function validateNetwork(doc: unknown): ResolvedNetwork {
 	return net;
 }
 
-function readValue(e: { id: string; type: ElementType; value?: string | number }): number {
+function readValue(
+	e: { id: string; type: ElementType; value?: string | number },
+	what = 'value'
+): number {
 	if (e.type === 'OPAMP') return 0;
 	if (e.value === undefined) {
-		throw new SolverError('bad_value', `element "${e.id}": value is missing`, { element: e.id });
+		throw new SolverError('bad_value', `element "${e.id}": ${what} is missing`, { element: e.id });
 	}
 	let v: number;
 	try {
 		v = parseValue(e.value, UNIT[e.type]);
 	} catch (err) {
 		if (!(err instanceof SolverError)) throw err;
-		throw new SolverError(err.code, `element "${e.id}": ${err.message}`, { element: e.id });
+		const where = what === 'value' ? '' : `${what}: `;
+		throw new SolverError(err.code, `element "${e.id}": ${where}${err.message}`, {
+			element: e.id
+		});
 	}
 	if (v === 0 && (e.type === 'R' || e.type === 'C' || e.type === 'L')) {
 		throw new SolverError(
 			'zero_value',
-			`element "${e.id}": a ${e.type} of value 0 is not allowed`,
+			`element "${e.id}": a ${e.type} of ${what === 'value' ? 'value' : what} 0 is not allowed`,
+			{ element: e.id }
+		);
+	}
+	return v;
+}
+
+/**
+ * A trimmer's range is read like its value; it must be a real interval. A nominal value outside
+ * the range is analysed as given (the drawing may be mid-edit) with a warning that says so.
+ */
+function trimmerRange(
+	e: {
+		id: string;
+		type: ElementType;
+		role?: string;
+		range?: { min: string | number; max: string | number };
+	},
+	value: number
+): Warning | null {
+	if (e.role !== 'trimmer') return null;
+	if (e.type === 'OPAMP') {
+		throw new SolverError('bad_value', `element "${e.id}": an op-amp cannot be a trimmer`, {
+			element: e.id
+		});
+	}
+	if (!e.range) {
+		throw new SolverError(
+			'bad_value',
+			`element "${e.id}": a trimmer needs its range (min and max)`,
 			{
 				element: e.id
 			}
 		);
 	}
-	return v;
+	const min = readValue({ ...e, value: e.range.min }, 'range min');
+	const max = readValue({ ...e, value: e.range.max }, 'range max');
+	if (!(min < max)) {
+		throw new SolverError(
+			'bad_value',
+			`element "${e.id}": the trimmer's range min must be below its max`,
+			{ element: e.id }
+		);
+	}
+	if (value < min || value > max) {
+		return {
+			code: 'outside_range',
+			message: `element "${e.id}" is set outside its trimmer range`,
+			element: e.id
+		};
+	}
+	return null;
 }
 
 function outputNode(name: string, nodeIndex: Map<string, number>): number {

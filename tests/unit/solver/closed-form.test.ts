@@ -1,6 +1,6 @@
 import { describe, expect, test } from 'vitest';
 import { analyze } from '../../../src/lib/solver/index';
-import { el, expectRel, net, quadratic, worstRootError } from './helpers';
+import { el, expectRel, net, probe10x, quadratic, worstRootError } from './helpers';
 
 const TWO_PI = 2 * Math.PI;
 
@@ -55,19 +55,7 @@ describe('RC low-pass', () => {
 describe('10:1 passive probe on a scope input (common practice, no citation)', () => {
 	// 9 MΩ ∥ 10 pF over 1 MΩ ∥ 90 pF, driven from 50 Ω, output across the 1 MΩ.
 	const [Rs, Rt, Ct, Rin, Cin] = [50, 9e6, 10e-12, 1e6, 90e-12];
-	const a = analyze(
-		net(
-			[
-				el('Vin', 'V', ['src', 'gnd'], 1),
-				el('Rsrc', 'R', ['src', 'a'], '50'),
-				el('Rt', 'R', ['a', 'b'], '9M'),
-				el('Ct', 'C', ['a', 'b'], '10p'),
-				el('Rin', 'R', ['b', 'gnd'], '1M'),
-				el('Cin', 'C', ['b', 'gnd'], '90p')
-			],
-			'b'
-		)
-	);
+	const a = analyze(probe10x());
 	// Closed form: the two-node determinant (ga+gt+sCt)(gt+gi+s(Ct+Cin)) − (gt+sCt)² = 0.
 	const [ga, gt, gi] = [1 / Rs, 1 / Rt, 1 / Rin];
 	const exact = quadratic(
@@ -91,14 +79,28 @@ describe('10:1 passive probe on a scope input (common practice, no citation)', (
 		expectRel(first.tau, Cin * ((Rin * (Rt + Rs)) / (Rin + Rt + Rs)), 1e-12, 'first τ');
 		expect(second.element).toBe('Ct');
 		expectRel(second.tau, Ct * ((Rs * Rt) / (Rs + Rt)), 1e-10, 'second τ');
-		expect(a.poles[0].estimate!.hz).toBeCloseTo(1965, 0);
-		expect(a.poles[1].estimate!.hz! / 1e6).toBeCloseTo(318.3, 1);
+		const seq = (i: number) => a.poles[i].estimates.find((e) => e.method === 'sequential')!;
+		expect(seq(0).hz).toBeCloseTo(1965, 0);
+		expect(seq(0).element).toBe('Cin');
+		expect(seq(1).hz / 1e6).toBeCloseTo(318.3, 1);
 		expectRel(
-			a.poles[0].relativeError,
+			seq(0).relativeError,
 			Math.abs(-1 / first.tau! - exact[1].re) / Math.abs(exact[1].re),
 			1e-8,
 			'estimate error'
 		);
+	});
+	test('headline estimates: −1/b1 for the slow pole, b1/b2 for the fast one; the error of −1/b1 is |p1|·b1 − 1 = |p1/p2| exactly (two real poles, b1 = 1/|p1| + 1/|p2|)', () => {
+		const [p1, p2] = a.poles;
+		expect(p1.estimate!.method).toBe('b1');
+		expect(p2.estimate!.method).toBe('ratio');
+		const b1 = a.timeConstants.openCircuit.reduce((s, t) => s + t.tau!, 0);
+		expectRel(p1.estimate!.re, -1 / b1, 1e-12, '−1/b1');
+		// 1/b1 = |p1|·|p2|/(|p1| + |p2|): the relative error against p1 is |p1|/(|p1| + |p2|).
+		const [m1, m2] = [Math.abs(exact[1].re), Math.abs(exact[0].re)].sort((x, y) => x - y);
+		expectRel(p1.relativeError, m1 / (m1 + m2), 1e-6, 'b1 error');
+		// Both real: Q and ζ belong to complex pairs only.
+		expect([p1.q, p1.zeta, p1.omega0, p2.q]).toEqual([null, null, null, null]);
 	});
 	test('compensated (9M·10p = 1M·90p): the slow pole is cancelled by a zero and flagged', () => {
 		expect(a.pairs).toHaveLength(1);

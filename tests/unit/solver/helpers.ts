@@ -1,35 +1,8 @@
 import { expect } from 'vitest';
 
-export type El = {
-	id: string;
-	type: string;
-	nodes: (string | number)[];
-	value?: string | number;
-	control?: string;
-};
+import { el, net, type El } from './build';
 
-export function net(elements: El[], output: string, input = 'Vin', reference?: string) {
-	return {
-		schema: 1 as const,
-		elements,
-		input,
-		output: reference ? { node: output, reference } : { node: output }
-	};
-}
-
-export const el = (
-	id: string,
-	type: string,
-	nodes: (string | number)[],
-	value?: string | number,
-	control?: string
-): El => ({
-	id,
-	type,
-	nodes,
-	...(value !== undefined ? { value } : {}),
-	...(control ? { control } : {})
-});
+export { el, net, type El };
 
 export const rel = (a: number, b: number) => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
 
@@ -90,3 +63,17 @@ export function quadratic(a: number, b: number, c: number): { re: number; im: nu
 		{ re, im: -im }
 	];
 }
+
+/** The 10:1 probe of the closed-form tests: 9 MΩ ∥ 10 pF over 1 MΩ ∥ `input` (default 90 pF), from 50 Ω. */
+export const probe10x = (input: El[] = [el('Cin', 'C', ['b', 'gnd'], '90p')]) =>
+	net(
+		[
+			el('Vin', 'V', ['src', 'gnd'], 1),
+			el('Rsrc', 'R', ['src', 'a'], '50'),
+			el('Rt', 'R', ['a', 'b'], '9M'),
+			el('Ct', 'C', ['a', 'b'], '10p'),
+			el('Rin', 'R', ['b', 'gnd'], '1M'),
+			...input
+		],
+		'b'
+	);

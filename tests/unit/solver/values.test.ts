@@ -67,3 +67,84 @@ describe('formatEngineering', () => {
 		}
 	});
 });
+
+// IEC 60062:2016 (Marking codes for resistors and capacitors), clause 5, the letter and numeral
+// code: the multiplier letter stands in place of the decimal point; R, K, M, G, T for
+// resistance, p, n, µ, m, F for capacitance. Examples as in the standard's tables (from memory:
+// R47, 4R7, 4K7, 1M0, p68, 4n7, 3µ3, 6F8); lower-case k in `2k2` is common practice.
+const LETTER_CODE: [string, string | undefined, number][] = [
+	['R47', 'Ω', 0.47],
+	['4R7', 'Ω', 4.7],
+	['47R', 'Ω', 47],
+	['4K7', 'Ω', 4.7e3],
+	['2k2', 'Ω', 2.2e3],
+	['1M0', 'Ω', 1e6],
+	['2G2', 'Ω', 2.2e9],
+	['1T5', 'Ω', 1.5e12],
+	['p68', 'F', 0.68e-12],
+	['4n7', 'F', 4.7e-9],
+	['3µ3', 'F', 3.3e-6],
+	['3u3', 'F', 3.3e-6],
+	['1m5', 'F', 1.5e-3],
+	['6F8', 'F', 6.8],
+	['2k2Ω', 'Ω', 2.2e3],
+	['4n7 F', 'F', 4.7e-9],
+	['2k2 ohm', 'Ω', 2.2e3],
+	['-4k7', 'Ω', -4.7e3],
+	['4n7', undefined, 4.7e-9]
+];
+// A unit word after a space: "1k ohm", "10 pF" (common practice in parts lists).
+const SPACED: [string, string | undefined, number][] = [
+	['1k ohm', 'Ω', 1e3],
+	['1k ohms', 'Ω', 1e3],
+	['1 kΩ', 'Ω', 1e3],
+	['10 pF', 'F', 10e-12],
+	['10 p F', 'F', 10e-12],
+	['2.2 µF', 'F', 2.2e-6],
+	['4.7 k', undefined, 4.7e3],
+	['100 ohm', 'Ω', 100]
+];
+
+describe('parseValue: letter and numeral code (IEC 60062) and spaced units (relative error 1e-15)', () => {
+	for (const [text, unit, want] of [...LETTER_CODE, ...SPACED]) {
+		test(`${JSON.stringify(text)}${unit ? ` as ${unit}` : ''} → ${want}`, () => {
+			const got = parseValue(text, unit);
+			expect(Math.abs(got - want) / Math.abs(want)).toBeLessThanOrEqual(1e-15);
+		});
+	}
+	// The code's R, K and F belong to their own units; a second decimal point or an exponent
+	// after the code is not a code.
+	for (const [bad, unit] of [
+		['4R7', 'F'],
+		['4K7', 'F'],
+		['6F8', 'H'],
+		['2k2.5', 'Ω'],
+		['2k2e3', 'Ω'],
+		['4n7 H', 'F'],
+		['1k oh', 'Ω']
+	] as const) {
+		test(`"${bad}" as ${unit} is refused with bad_value`, () => {
+			expect(() => parseValue(bad, unit)).toThrowError(/is not a number with an SI prefix/);
+		});
+	}
+});
+
+describe('parseValue: overflow and underflow are said as such', () => {
+	test('"1e-400" underflows (it is not zero)', () => {
+		try {
+			parseValue('1e-400', 'F');
+			throw new Error('accepted');
+		} catch (e) {
+			expect((e as SolverError).code).toBe('underflow');
+			expect((e as SolverError).message).toMatch(/^value "1e-400" underflows/);
+		}
+	});
+	test('a subnormal value underflows too; zero written as 0e-400 stays zero', () => {
+		expect(() => parseValue('1e-310')).toThrowError(/underflows/);
+		expect(() => parseValue('0.001y')).not.toThrow();
+		expect(parseValue('0e-400')).toBe(0);
+	});
+	test('"1e999" overflows', () => {
+		expect(() => parseValue('1e999')).toThrowError(/overflows/);
+	});
+});

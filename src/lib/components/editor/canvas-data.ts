@@ -20,6 +20,13 @@ export interface ElementNodeData extends Record<string, unknown> {
 	terminalNames: Record<string, string>;
 	/** The terminal a keyboard wire starts from, when it is on this item. */
 	pendingTerminal: string | null;
+	/** Accepted but suspicious (a negative R, C or L): said on the symbol. */
+	valueWarning?: string;
+	/** The picked variant sets another value ("6.2p"), and the option that sets it ("Range: 100:1"). */
+	variantValue?: string;
+	variantOption?: string;
+	/** Not in the picked variant's network (drawn faintly, with the word "out"). */
+	absent?: boolean;
 }
 
 export interface WireEdgeData extends Record<string, unknown> {
@@ -41,6 +48,10 @@ export function sameNodeData(a: ElementNodeData, b: ElementNodeData): boolean {
 		a.readonly === b.readonly &&
 		a.normalValue === b.normalValue &&
 		a.valueError === b.valueError &&
+		a.valueWarning === b.valueWarning &&
+		a.variantValue === b.variantValue &&
+		a.variantOption === b.variantOption &&
+		a.absent === b.absent &&
 		a.pendingTerminal === b.pendingTerminal &&
 		Object.entries(a.terminalNames).every(([k, v]) => b.terminalNames[k] === v)
 	);

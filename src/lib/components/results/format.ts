@@ -36,3 +36,38 @@ export const plain = (v: number | null | undefined, digits = 4) =>
 		: Math.abs(v) < 1e-9
 			? '≈ 0'
 			: Number(v.toPrecision(digits)).toString();
+
+/** How an estimate was made, in words a designer reads beside the number. */
+export function estimateMethod(e: {
+	method: string;
+	basis: string;
+	element: string | null;
+}): string {
+	switch (e.method) {
+		case 'b1':
+			return '1/b1, b1 = Σ τ open';
+		case 'ratio':
+			return `coefficient ratio ${e.basis}`;
+		case 'two-pole':
+			return 'root of 1 + b1·s + b2·s²';
+		default:
+			return `sequential, port ${e.element}`;
+	}
+}
+
+/** The resistance a port sees, as one line: "Rtop ∥ (Rsrc + Radc) = 900 kΩ", or why there is no formula. */
+export function formulaLine(f: {
+	kind: string;
+	formula: string | null;
+	value: number | null;
+	reason: string | null;
+	influence: { element: string; sensitivity: number }[];
+}): string {
+	if (f.kind === 'series-parallel') return `${f.formula} = ${eng(f.value, 'Ω')}`;
+	if (f.kind === 'open') return `∞ — ${f.reason}`;
+	if (f.kind === 'short') return `0 Ω — ${f.reason}`;
+	const most = f.influence.length
+		? `; matters most: ${f.influence.map((x) => `${x.element} (S = ${Number(x.sensitivity.toPrecision(2))})`).join(', ')}`
+		: '';
+	return `not series–parallel (${f.reason}): ${eng(f.value, 'Ω')} from the solver${most}`;
+}

@@ -37,7 +37,9 @@ export function anchorOptions(r: ResultAnchors | null): AnchorOption[] {
 		});
 	});
 	r.zeros.forEach((z, i) => out.push({ key: `zero:z${i + 1}`, label: `z${i + 1} — ${hz(z.hz)}`, group: 'Zeros', anchor: { kind: 'zero', ref: `z${i + 1}`, snapshot: { re: z.re, im: z.im, hz: z.hz } } }));
-	for (const e of r.elements.filter((x) => x.reactive)) out.push({ key: `time_constant:${e.id}`, label: `τ of ${e.id}`, group: 'Time constants', anchor: { kind: 'time_constant', ref: e.id } });
+	// Time constants belong to ports (parallel capacitors are one port, named "Ca + Cb").
+	const ports = r.ports ?? r.elements.filter((x) => x.reactive).map((e) => e.id);
+	for (const id of ports) out.push({ key: `time_constant:${id}`, label: `τ of ${id}`, group: 'Time constants', anchor: { kind: 'time_constant', ref: id } });
 	for (const [ref, label] of SPEC_LINES) out.push({ key: `spec:${ref}`, label, group: 'Figures', anchor: { kind: 'spec', ref, snapshot: { label } } });
 	return out;
 }

@@ -12,6 +12,8 @@ export interface ResultAnchors {
 	zeros: { re: number; im: number; hz: number }[];
 	elements: { id: string; type: string; reactive: boolean }[];
 	nets: string[];
+	/** Ports of the time-constant view (parallel capacitors are one port); absent without an analysis. */
+	ports?: string[];
 }
 
 export class ApiError extends Error {}
@@ -101,7 +103,7 @@ export class SheetReview {
 		try {
 			const [{ revision }, analysis] = await Promise.all([
 				api<{ revision: { document: { elements: { id: string; type: string; nodes: (string | number)[] }[] } } }>(`${this.base}/revisions/${n}`),
-				api<{ analysis: ResultAnchors }>(`${this.base}/revisions/${n}/analysis`).catch(() => null)
+				api<{ analysis: ResultAnchors & { timeConstants?: { openCircuit: { element: string }[] } } }>(`${this.base}/revisions/${n}/analysis`).catch(() => null)
 			]);
 			const els = revision.document.elements;
 			// eslint-disable-next-line svelte/prefer-svelte-reactivity -- a throwaway set for de-duplication, never state
@@ -110,7 +112,8 @@ export class SheetReview {
 				poles: analysis?.analysis.poles ?? [],
 				zeros: analysis?.analysis.zeros ?? [],
 				elements: els.map((e) => ({ id: e.id, type: e.type, reactive: e.type === 'C' || e.type === 'L' })),
-				nets
+				nets,
+				ports: analysis?.analysis.timeConstants?.openCircuit.map((t) => t.element)
 			};
 		} catch {
 			this.results = null;

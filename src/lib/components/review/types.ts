@@ -54,6 +54,11 @@ export interface ReviewRequest {
 	reviewers: Reviewer[];
 }
 
+/** What the review badge needs: the sheet page's summary or a sheet-list row's state. */
+export type ReviewSummaryLike = Pick<ReviewOverview['summary'], 'state' | 'label' | 'approvedRevision' | 'answered' | 'asked'> & {
+	changedSinceApproval?: boolean;
+};
+
 export interface ReviewOverview {
 	summary: {
 		state: 'unreviewed' | 'waiting' | 'changes' | 'signed_off';

@@ -30,6 +30,8 @@ function toResponse(e: unknown): Response {
 	}
 	if (e instanceof MembershipRuleError || e instanceof InvitationError || e instanceof SheetStateError) return problem(409, e.message);
 	if (isHttpError(e)) return problem(e.status, e.body.message);
+	// Unknown errors go on to SvelteKit; hooks.server.ts answers a database outage (503) and
+	// PostgreSQL's refusal of a malformed value (400) for every route in one place (faults.ts).
 	throw e;
 }
 

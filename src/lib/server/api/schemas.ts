@@ -5,6 +5,7 @@ import { networkDocumentSchema } from '../../network/schema';
 import { email, inviteRole, sheetName, sheetRole, workspaceName } from '../../schemas/names';
 import { SHEET_SORTS } from '../db/sheets';
 import { ApiProblem } from './respond';
+import { LIST_REVIEW_FILTERS } from '../review/state';
 
 export const createWorkspaceBody = z.object({ name: workspaceName });
 export const updateWorkspaceBody = z
@@ -36,7 +37,8 @@ export const sheetListQuery = z.object({
 	dir: z.enum(['asc', 'desc'], { error: 'dir must be asc or desc' }).optional(),
 	page: z.coerce.number().int().min(1).max(100_000).optional(),
 	perPage: z.coerce.number().int().min(1).max(100, 'perPage is at most 100').optional(),
-	trashed: z.enum(['0', '1', 'true', 'false']).transform((v) => v === '1' || v === 'true').optional()
+	trashed: z.enum(['0', '1', 'true', 'false']).transform((v) => v === '1' || v === 'true').optional(),
+	state: z.enum(LIST_REVIEW_FILTERS, { error: `state must be one of ${LIST_REVIEW_FILTERS.join(', ')}` }).optional()
 });
 
 /** Parse URL search parameters against a schema; 400 naming the parameter otherwise. */

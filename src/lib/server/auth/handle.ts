@@ -3,7 +3,8 @@
 // cookie), else the `pw_session` cookie. Requests with neither never touch the database.
 import type { Handle } from '@sveltejs/kit';
 import { userForApiToken } from '../db/tokens';
-import { checkLimit, hitLimit, RULES, tooManyRequests } from '../rate-limit';
+import { hitLimit, RULES, tooManyRequests, type RateState } from '../rate-limit';
+import { hashSecret } from './secrets';
 import { clientAddress } from './client-address';
 import { clearSessionCookie, SESSION_COOKIE, setSessionCookie, validateSessionToken } from './session';
 
@@ -14,17 +15,17 @@ export const authHandle: Handle = async ({ event, resolve }) => {
 
 	const header = event.request.headers.get('authorization');
 	if (header !== null) {
-		const match = /^Bearer\s+(\S+)\s*$/i.exec(header);
-		const address = clientAddress(event);
-		const limited = await checkLimit(RULES.badTokenAddress, address);
-		if (limited.limited) return tooManyRequests(limited.retryAfterSeconds, 'Too many requests with an unknown API token.');
-		const user = match ? await userForApiToken(match[1]) : null;
+		const presented = /^Bearer\s+(\S+)\s*$/i.exec(header)?.[1] ?? null;
+		// A valid token is looked up first and always works: failures from the same address
+		// (a NAT, a proxy, someone else's junk) can never lock out a good token.
+		const user = presented ? await userForApiToken(presented) : null;
 		if (user) {
 			event.locals.user = user;
 			event.locals.auth = 'token';
-		} else {
-			await hitLimit(RULES.badTokenAddress, address);
+			return resolve(event);
 		}
+		const limited = await countBadToken(presented ?? header, clientAddress(event));
+		if (limited) return tooManyRequests(limited.retryAfterSeconds, 'Too many requests with an unknown API token.');
 		return resolve(event);
 	}
 
@@ -42,3 +43,22 @@ export const authHandle: Handle = async ({ event, resolve }) => {
 	}
 	return resolve(event);
 };
+
+/**
+ * Count one request with an unknown or revoked token, separately per presented token (a script
+ * stuck on a revoked token slows down quickly) and per client address (guessing many tokens),
+ * each in a short window. The answer is 429 only once a counter is over its limit; the token is
+ * kept as its hash, never as text.
+ */
+async function countBadToken(presented: string, address: string): Promise<RateState | null> {
+	const [byToken, byAddress] = await Promise.all([
+		hitLimit(RULES.badToken, hashSecret(presented)),
+		hitLimit(RULES.badTokenAddress, address)
+	]);
+	const over = [
+		{ state: byToken, rule: RULES.badToken },
+		{ state: byAddress, rule: RULES.badTokenAddress }
+	].filter(({ state, rule }) => state.points > rule.points);
+	if (over.length === 0) return null;
+	return over.reduce((a, b) => (b.state.retryAfterSeconds > a.state.retryAfterSeconds ? b : a)).state;
+}

@@ -1,8 +1,8 @@
 // Data verbs for the design aids: a sheet's spec limits and tolerances, and its tolerance-run
-// jobs. State changes are single conditional UPDATEs, so a cancel and a finishing worker (or
-// two app processes) can never both win.
-import { Op } from 'sequelize';
+// jobs. A job's state changes go through the shared runner's verbs (job-rows.ts): single
+// conditional UPDATEs, so a cancel, a finishing worker and a take-over can never both win.
 import { db } from './connection';
+import { config } from '../config';
 import {
 	DesignJob,
 	DesignSettingsRow,
@@ -31,6 +31,16 @@ export interface DesignJobRecord {
 	cancelRequested: boolean;
 	result: unknown;
 	error: string | null;
+	/** 1 for the first start; more after the job was taken over from a worker that stopped. */
+	attempt: number;
+	/** Starts allowed before a job whose workers keep stopping is marked failed. */
+	maxAttempts: number;
+	/** What happened on the way, for people: "attempt 1 stopped (its process ended) at …". */
+	recovery: string | null;
+	/** When its worker last said it is working on it (running), or when it was queued again. */
+	heartbeatAt: Date | null;
+	/** Running, but no sign of life from its worker for two heartbeats or more. */
+	stale: boolean;
 	createdBy: string | null;
 	createdAt: Date;
 	startedAt: Date | null;
@@ -38,13 +48,26 @@ export interface DesignJobRecord {
 }
 
 const plain = (row: DesignJob): DesignJobRecord => {
-	const { queueId, request, ...rest } = row.get({ plain: true }) as DesignJobRecord & {
+	const { queueId, workerId, request, ...rest } = row.get({ plain: true }) as DesignJobRecord & {
 		queueId: string | null;
+		workerId: string | null;
 	};
+	// Which machine and process runs it is for the operators' logs, not for the API.
 	void queueId;
+	void workerId;
+	const { jobStaleSeconds, jobMaxAttempts } = config();
+	// Heartbeats come every sixth of the stale time; two missed ones are worth saying.
+	const silentMs = rest.heartbeatAt ? Date.now() - new Date(rest.heartbeatAt).getTime() : 0;
+	const stale = rest.state === 'running' && silentMs > (jobStaleSeconds * 1000) / 3;
 	// A sent network can be a megabyte: it stays in the row for the runner, out of every answer.
 	const { document, ...asked } = (request ?? {}) as { document?: unknown };
-	return { ...rest, request: asked, source: document === undefined ? 'revision' : 'drawing' };
+	return {
+		...rest,
+		request: asked,
+		source: document === undefined ? 'revision' : 'drawing',
+		maxAttempts: jobMaxAttempts,
+		stale
+	};
 };
 
 export async function getDesignSettings(sheetId: string): Promise<DesignSettings> {
@@ -74,10 +97,6 @@ export async function createDesignJob(input: {
 	return plain(await models().DesignJob.create(input));
 }
 
-export async function setQueueId(id: string, queueId: string): Promise<void> {
-	await models().DesignJob.update({ queueId }, { where: { id } });
-}
-
 export async function getDesignJob(id: string): Promise<DesignJobRecord | null> {
 	const row = await models().DesignJob.findByPk(id);
 	return row ? plain(row) : null;
@@ -91,56 +110,6 @@ export async function listDesignJobs(sheetId: string, limit = 20): Promise<Desig
 		attributes: { exclude: ['result'] }
 	});
 	return rows.map(plain);
-}
-
-/** Claim a queued job for running; false when it was cancelled (or already claimed). */
-export async function startDesignJob(id: string): Promise<boolean> {
-	const [n] = await models().DesignJob.update(
-		{ state: 'running', startedAt: new Date() },
-		{ where: { id, state: { [Op.in]: ['queued', 'running'] }, cancelRequested: false } }
-	);
-	return n === 1;
-}
-
-/** Record progress; returns false when a cancel has been asked for (the runner then stops). */
-export async function reportProgress(id: string, done: number): Promise<boolean> {
-	const [n] = await models().DesignJob.update(
-		{ done },
-		{ where: { id, state: 'running', cancelRequested: false } }
-	);
-	return n === 1;
-}
-
-export async function finishDesignJob(
-	id: string,
-	outcome:
-		| { state: 'done'; result: Record<string, unknown> }
-		| { state: 'failed'; error: string }
-		| { state: 'cancelled' }
-) {
-	await models().DesignJob.update(
-		{
-			state: outcome.state,
-			finishedAt: new Date(),
-			...(outcome.state === 'done' ? { result: outcome.result, error: null } : {}),
-			...(outcome.state === 'failed' ? { error: outcome.error } : {})
-		},
-		{ where: { id, state: { [Op.in]: ['queued', 'running'] } } }
-	);
-}
-
-/**
- * Ask a job to stop. A queued job is cancelled at once; a running one is flagged and its
- * runner stops at the next chunk. Returns the job as it now stands.
- */
-export async function cancelDesignJob(id: string): Promise<DesignJobRecord | null> {
-	const { DesignJob: Job } = models();
-	await Job.update(
-		{ state: 'cancelled', cancelRequested: true, finishedAt: new Date() },
-		{ where: { id, state: 'queued' } }
-	);
-	await Job.update({ cancelRequested: true }, { where: { id, state: 'running' } });
-	return getDesignJob(id);
 }
 
 /** The network sent with a job (a drawing with unsaved edits), or null for a revision's job. */

@@ -190,6 +190,8 @@ export interface SheetListQuery {
 	trashed?: boolean;
 	/** With a user, each row also carries that user's grant on it (for per-row permissions). */
 	userId?: string;
+	/** Every matching row in one page (for sorting or filtering by a figure SQL does not hold). */
+	all?: boolean;
 }
 
 export interface SheetListRow extends SheetRecord {
@@ -220,7 +222,7 @@ export async function listSheetsPage(query: SheetListQuery): Promise<{ rows: She
 		        s.created_at AS "createdAt", s.updated_at AS "updatedAt", u.name AS "updatedByName", g.role AS "grantRole"
 		   FROM sheets s LEFT JOIN users u ON u.id = s.updated_by
 		   LEFT JOIN sheet_grants g ON g.sheet_id = s.id AND g.user_id = :userId
-		  WHERE ${where} ORDER BY ${sort} ${dir}, s.id LIMIT :limit OFFSET :offset`,
+		  WHERE ${where} ORDER BY ${sort} ${dir}, s.id${query.all ? '' : ' LIMIT :limit OFFSET :offset'}`,
 		{ replacements }
 	);
 	const [[count]] = (await db().query(`SELECT count(*)::int AS n FROM sheets s WHERE ${where}`, { replacements })) as [[{ n: number }], unknown];

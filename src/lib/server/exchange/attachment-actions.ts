@@ -6,6 +6,7 @@ import { authorizeSheet, type Actor } from '../access';
 import { ApiProblem } from '../api/respond';
 import * as store from '../db/attachments';
 import { getComment } from '../db/comments';
+import { requireId } from '../api/ids';
 import { ALLOWED_TYPES, extensionFits, sniffType } from './file-type';
 import { PER_SHEET } from './limits';
 import type { Upload } from './upload';
@@ -33,12 +34,10 @@ export async function uploadAttachmentAs(
 	sheetId: string,
 	upload: Upload
 ) {
-	const commentId = upload.fields.commentId || null;
+	const commentId = upload.fields.commentId ? requireId(upload.fields.commentId, 'commentId', 'body') : null;
 	await authorizeSheet(actor, sheetId, commentId ? 'comment' : 'save');
 	if (commentId) {
-		const comment = /^[0-9a-f-]{36}$/i.test(commentId)
-			? await getComment(sheetId, commentId)
-			: null;
+		const comment = await getComment(sheetId, commentId);
 		if (!comment || comment.deletedAt)
 			throw new ApiProblem(404, 'commentId: no such comment on this sheet.');
 	}

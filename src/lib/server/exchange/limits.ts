@@ -1,12 +1,12 @@
 // Upload limits. One number for measured-response files and attachments: 5 MB unless the
-// operator sets POLEWISE_UPLOAD_LIMIT_BYTES (the built server's BODY_SIZE_LIMIT must stay above
-// it; npm start and the tests set 8M).
-export const DEFAULT_UPLOAD_LIMIT = 5 * 1024 * 1024;
+// operator sets POLEWISE_UPLOAD_LIMIT_BYTES; the server's request-body limit follows it
+// (config/index.ts), so no start script has to keep the two in step.
+import { config } from '../config';
+import DEFAULTS from '../config/defaults.json';
 
-export function uploadLimit(): number {
-	const v = Number(process.env.POLEWISE_UPLOAD_LIMIT_BYTES);
-	return Number.isInteger(v) && v > 0 ? v : DEFAULT_UPLOAD_LIMIT;
-}
+export const DEFAULT_UPLOAD_LIMIT = DEFAULTS.uploadLimitBytes;
+
+export const uploadLimit = (): number => config().uploadLimitBytes;
 
 export const limitText = (bytes: number) =>
 	bytes % (1024 * 1024) === 0 ? `${bytes / (1024 * 1024)} MB` : `${Math.round(bytes / 1024)} KB`;

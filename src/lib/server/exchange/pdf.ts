@@ -4,8 +4,8 @@
 // included, with no second layout to keep in step (docs/exchange.md says why over pdf-lib).
 // The browser asks for the page as the caller: their session cookie or API token is passed on.
 import { ApiProblem } from '../api/respond';
+import { config } from '../config';
 
-const CHROMIUM = process.env.POLEWISE_CHROMIUM ?? '/usr/bin/chromium';
 const MAX_AT_ONCE = 2;
 const TIMEOUT_MS = 30_000;
 let running = 0;
@@ -26,12 +26,12 @@ export async function printToPdf(req: PdfRequest): Promise<Buffer> {
 	running++;
 	const { chromium } = await import('playwright-core');
 	const browser = await chromium
-		.launch({ executablePath: CHROMIUM, args: ['--disable-gpu', '--disable-quic'] })
+		.launch({ executablePath: config().chromium, args: ['--disable-gpu', '--disable-quic'] })
 		.catch((e: Error) => {
 			running--;
 			throw new ApiProblem(
 				503,
-				`The PDF printer (headless Chromium at ${CHROMIUM}) could not start: ${e.message.split('\n')[0]}`,
+				`The PDF printer (headless Chromium at ${config().chromium}) could not start: ${e.message.split('\n')[0]}`,
 				{ code: 'no_printer' }
 			);
 		});

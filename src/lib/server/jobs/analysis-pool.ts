@@ -1,12 +1,12 @@
 // The worker-thread pool for analyses. In the built server the worker is the bundled
 // build/workers/analyze.worker.mjs (scripts/build-workers.mjs); under the Vite dev server and in
 // tests it is the TypeScript source, run through tsx.
-import os from 'node:os';
 import { Piscina } from 'piscina';
 import type { AnalyzeOutcome, AnalyzeTask } from '../workers/analyze.worker';
 import { ApiProblem } from '../api/respond';
 import { LIMITS } from '../analysis-request';
 import { workerFile } from './worker-file';
+import { config } from '../config';
 
 let pool: Piscina | null = null;
 
@@ -17,9 +17,7 @@ export function analysisPool(): Piscina {
 			filename,
 			execArgv,
 			minThreads: 1,
-			maxThreads: Number(
-				process.env.ANALYSIS_THREADS ?? Math.max(1, os.availableParallelism() - 1)
-			),
+			maxThreads: config().analysisThreads,
 			idleTimeout: 60_000,
 			// Bounded queue: beyond this the server answers 503 instead of piling up work.
 			maxQueue: 64
@@ -36,9 +34,21 @@ export async function analyzeInPool(
 	task: AnalyzeTask,
 	timeoutMs = LIMITS.timeoutMs
 ): Promise<AnalyzeOutcome> {
+	return runInPool(task, undefined, timeoutMs) as Promise<AnalyzeOutcome>;
+}
+
+/** Several networks (a sheet's variants) as one task, one outcome each, under one time limit. */
+export async function analyzeManyInPool(
+	task: { documents: unknown[]; options?: AnalyzeTask['options'] },
+	timeoutMs = LIMITS.timeoutMs
+): Promise<AnalyzeOutcome[]> {
+	return runInPool(task, 'runMany', timeoutMs) as Promise<AnalyzeOutcome[]>;
+}
+
+async function runInPool(task: unknown, name: string | undefined, timeoutMs: number): Promise<unknown> {
 	const signal = AbortSignal.timeout(timeoutMs);
 	try {
-		return (await analysisPool().run(task, { signal })) as AnalyzeOutcome;
+		return await analysisPool().run(task, { signal, ...(name ? { name } : {}) });
 	} catch (error) {
 		if (signal.aborted) {
 			throw new ApiProblem(

@@ -5,6 +5,7 @@ import { Piscina } from 'piscina';
 import { workerFile } from './worker-file';
 import type { DesignOutcome, DesignTask } from '../workers/design.worker';
 import { ApiProblem } from '../api/respond';
+import { config } from '../config';
 
 let pool: Piscina | null = null;
 
@@ -17,7 +18,7 @@ export function designPool(): Piscina {
 			filename,
 			execArgv,
 			minThreads: 1,
-			maxThreads: Number(process.env.DESIGN_THREADS ?? 1),
+			maxThreads: config().designThreads,
 			idleTimeout: 60_000,
 			maxQueue: 32
 		});
@@ -25,15 +26,20 @@ export function designPool(): Piscina {
 	return pool;
 }
 
-export const DESIGN_TIMEOUT_MS = Number(process.env.DESIGN_TIMEOUT_MS ?? 30_000);
-
 /** One design task under a time limit; a refusal by the solver or the design aids is 422. */
-export async function runDesign(task: DesignTask, timeoutMs = DESIGN_TIMEOUT_MS): Promise<unknown> {
-	const signal = AbortSignal.timeout(timeoutMs);
+export async function runDesign(
+	task: DesignTask,
+	timeoutMs = config().designTimeoutMs,
+	stop?: AbortSignal
+): Promise<unknown> {
+	const timeout = AbortSignal.timeout(timeoutMs);
+	// `stop`: a background job that must end (cancelled, taken over) ends its chunk at once.
+	const signal = stop ? AbortSignal.any([timeout, stop]) : timeout;
 	let outcome: DesignOutcome;
 	try {
 		outcome = (await designPool().run(task, { signal })) as DesignOutcome;
 	} catch (error) {
+		if (stop?.aborted) throw stop.reason;
 		if (signal.aborted)
 			throw new ApiProblem(
 				503,

@@ -4,21 +4,22 @@ import { randomUUID } from 'node:crypto';
 import { authorizeSheet, AccessDenied, type Actor } from '../access';
 import { readRevision } from '../sharing/sheet-actions';
 import {
-	cancelDesignJob,
 	createDesignJob,
 	getDesignJob,
 	getDesignSettings,
 	listDesignJobs,
 	queueIdOf,
 	saveDesignSettings,
-	setQueueId,
 	type DesignJobRecord
 } from '../db/design-jobs';
+import { requestCancel } from '../db/job-rows';
 import type { DesignSettings, SpecLimits, ElementTolerance } from '../../network/design-schema';
 import { ApiProblem } from '../api/respond';
 import { checkDocument, LIMITS } from '../analysis-request';
 import { runDesign } from './design-pool';
-import { cancelQueued, designQueue, enqueueDesignJob } from './design-queue';
+import { enqueueDesignJob, toleranceJobs } from './design-queue';
+import { settleJob, startJobRunner } from './runner';
+import { jobBoss } from './queue';
 import type { MonteCarloRequest } from '../../design/tolerance';
 
 type UserActor = Actor & { kind: 'user' };
@@ -94,38 +95,54 @@ export async function startMonteCarlo(
 		total: request.runs,
 		createdBy: actor.id
 	});
-	await setQueueId(job.id, await enqueueDesignJob(job.id));
+	await enqueueDesignJob(job.id);
 	// The server hook normally has the runner going already; this covers a failed start.
-	void designQueue().catch(() => {});
+	void startJobRunner().catch(() => {});
 	return job;
 }
 
+/**
+ * The job as it stands, after access is checked. A running job whose worker is gone is settled
+ * first (queued again for another worker, or ended if a cancel was asked for), so what people
+ * see is never a run that nothing is running.
+ */
 async function visibleJob(
 	actor: Actor,
 	jobId: string,
-	action: 'read' | 'analyze'
+	action: 'read' | 'analyze',
+	beforeSettling?: () => Promise<void>
 ): Promise<DesignJobRecord> {
 	const job = await getDesignJob(jobId);
 	if (!job) throw new AccessDenied(404, 'Not found.');
 	await authorizeSheet(actor, job.sheetId, action);
-	return job;
+	await beforeSettling?.();
+	if (job.state !== 'running') return (await getDesignJob(jobId))!;
+	await settleJob(toleranceJobs, jobId);
+	return (await getDesignJob(jobId))!;
 }
 
 export async function jobFor(actor: Actor, jobId: string): Promise<DesignJobRecord> {
 	// Reading a job is also what wakes the queue runner in a freshly started process.
-	void designQueue().catch(() => {});
+	void startJobRunner().catch(() => {});
 	return visibleJob(actor, jobId, 'read');
 }
 
+/**
+ * Cancel always ends a job: a queued one at once (its queue entry closed too), a running one at
+ * its worker's next progress report, one whose worker is gone right here.
+ */
 export async function cancelJobFor(actor: UserActor, jobId: string): Promise<DesignJobRecord> {
-	await visibleJob(actor, jobId, 'analyze');
-	await cancelQueued(await queueIdOf(jobId));
-	return (await cancelDesignJob(jobId))!;
+	return visibleJob(actor, jobId, 'analyze', async () => {
+		await requestCancel(toleranceJobs.table, jobId);
+		const queueId = await queueIdOf(jobId);
+		if (queueId)
+			await (await jobBoss()).cancel(toleranceJobs.queue, queueId).catch(() => undefined);
+	});
 }
 
 export async function jobsOfSheet(actor: Actor, sheetId: string): Promise<DesignJobRecord[]> {
 	await authorizeSheet(actor, sheetId, 'read');
-	void designQueue().catch(() => {});
+	void startJobRunner().catch(() => {});
 	return listDesignJobs(sheetId);
 }
 

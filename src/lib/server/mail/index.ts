@@ -4,6 +4,7 @@
 //   MAIL_FROM  the sender, e.g. "Polewise <no-reply@example.com>".
 //   ORIGIN     the public base URL used in links; without it, the request's own origin.
 import nodemailer, { type Transporter } from 'nodemailer';
+import { config } from '../config';
 
 export interface Mail {
 	to: string;
@@ -16,7 +17,7 @@ let transport: Transporter | null = null;
 let transportUrl = '';
 
 function transporter(): Transporter | null {
-	const url = process.env.SMTP_URL;
+	const url = config().smtpUrl;
 	if (!url) return null;
 	if (!transport || transportUrl !== url) {
 		transport = nodemailer.createTransport(url);
@@ -25,7 +26,7 @@ function transporter(): Transporter | null {
 	return transport;
 }
 
-export const mailFrom = () => process.env.MAIL_FROM ?? 'Polewise <no-reply@polewise.invalid>';
+export const mailFrom = () => config().mailFrom;
 
 /** Send one message. Without SMTP_URL nothing is sent and the server log says so (not the body: it may hold a reset link). */
 export async function sendMail({ to, subject, text, html }: Mail): Promise<void> {
@@ -39,7 +40,7 @@ export async function sendMail({ to, subject, text, html }: Mail): Promise<void>
 
 /** The base URL for links in mail: ORIGIN when set (behind a proxy), else the request's origin. */
 export function publicOrigin(url: URL): string {
-	return (process.env.ORIGIN ?? url.origin).replace(/\/+$/, '');
+	return config().origin ?? url.origin;
 }
 
-export { passwordResetMail, invitationMail, sheetSharedMail } from './templates';
+export { passwordResetMail, invitationMail, sheetSharedMail, signUpConfirmMail, signUpExistingMail } from './templates';

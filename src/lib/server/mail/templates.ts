@@ -69,3 +69,26 @@ export function sheetSharedMail({ sharerName, sheetName, role, url }: { sharerNa
 		after: ['If you were not expecting this, ignore this message.']
 	});
 }
+
+export function signUpConfirmMail({ name, url, expiresMinutes }: { name: string; url: string; expiresMinutes: number }): MailContent {
+	return compose({
+		subject: 'Finish creating your Polewise account',
+		paragraphs: [`Hello ${name},`, 'Someone — we hope you — asked to create a Polewise account with this address. To finish, open the link below.'],
+		action: { label: 'Finish creating the account', url },
+		after: [`The link works once and expires ${expiresMinutes} minutes after this message was sent.`, 'If you did not ask for this, ignore this message: no account is made.']
+	});
+}
+
+/** To the owner of an address that already has an account, when someone signs up with it. */
+export function signUpExistingMail({ name, signInUrl, resetUrl }: { name: string; signInUrl: string; resetUrl: string }): MailContent {
+	return compose({
+		subject: 'Someone tried to create a Polewise account with your address',
+		paragraphs: [
+			`Hello ${name},`,
+			'Someone tried to create a new Polewise account with this address. It already belongs to your account, so nothing was created and nothing about your account changed.',
+			'If it was you, sign in instead:'
+		],
+		action: { label: 'Sign in to Polewise', url: signInUrl },
+		after: [`If you have forgotten your password, choose a new one here: ${resetUrl}`, 'If it was not you, you need not do anything.']
+	});
+}

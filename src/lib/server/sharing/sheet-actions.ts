@@ -8,7 +8,6 @@ import {
 	duplicateSheet,
 	getRevision,
 	listRevisions,
-	listSheetsPage,
 	renameSheet,
 	restoreRevision,
 	restoreSheet,
@@ -17,6 +16,8 @@ import {
 	type SheetListQuery
 } from '../db/sheets';
 import { AccessDenied } from '../access';
+import { sheetsWithReview } from './sheet-list';
+import type { ListReviewFilter } from '../review/state';
 
 type UserActor = Actor & { kind: 'user' };
 
@@ -32,9 +33,9 @@ export const STARTER_DOCUMENT = {
 	output: { node: 'out', reference: 'gnd' }
 };
 
-export async function listWorkspaceSheets(actor: Actor, query: SheetListQuery) {
+export async function listWorkspaceSheets(actor: Actor, query: SheetListQuery & { state?: ListReviewFilter }) {
 	const access = await authorizeWorkspace(actor, query.workspaceId, 'list');
-	return { ...(await listSheetsPage(query)), access };
+	return { ...(await sheetsWithReview(query)), access };
 }
 
 export async function newSheet(actor: UserActor, workspaceId: string, input: { name: string; document?: unknown; layout?: unknown }) {

@@ -20,3 +20,18 @@ export default function run({ document, options }: AnalyzeTask): AnalyzeOutcome 
 		throw error;
 	}
 }
+
+/**
+ * Several networks in one task (the variants of one sheet): one trip through the queue instead
+ * of one per variant, so a sheet with many variants cannot fill the queue on its own. Each
+ * network keeps its own outcome: one refused variant does not stop the others.
+ */
+export function runMany({
+	documents,
+	options
+}: {
+	documents: unknown[];
+	options?: AnalyzeOptions;
+}): AnalyzeOutcome[] {
+	return documents.map((document) => run({ document, options }));
+}

@@ -7,6 +7,8 @@ import * as m0003 from './0003-sharing';
 import * as m0004 from './0004-design';
 import * as m0005 from './0005-review';
 import * as m0006 from './0006-exchange';
+import * as m0007 from './0007-job-recovery';
+import * as m0008 from './0008-sign-up-requests';
 
 export interface Migration {
 	name: string;
@@ -20,5 +22,7 @@ export const migrations: Migration[] = [
 	{ name: '0003-sharing', ...m0003 },
 	{ name: '0004-design', ...m0004 },
 	{ name: '0005-review', ...m0005 },
-	{ name: '0006-exchange', ...m0006 }
+	{ name: '0006-exchange', ...m0006 },
+	{ name: '0007-job-recovery', ...m0007 },
+	{ name: '0008-sign-up-requests', ...m0008 }
 ];

@@ -38,6 +38,10 @@ export class DesignJob extends Model<
 	declare result: CreationOptional<Record<string, unknown> | null>;
 	declare error: CreationOptional<string | null>;
 	declare queueId: CreationOptional<string | null>;
+	declare attempt: CreationOptional<number>;
+	declare workerId: CreationOptional<string | null>;
+	declare heartbeatAt: CreationOptional<Date | null>;
+	declare recovery: CreationOptional<string | null>;
 	declare createdBy: string | null;
 	declare createdAt: CreationOptional<Date>;
 	declare startedAt: CreationOptional<Date | null>;
@@ -73,6 +77,10 @@ export function initDesignModels(sequelize: Sequelize) {
 			result: { type: DataTypes.JSONB, allowNull: true },
 			error: { type: DataTypes.TEXT, allowNull: true },
 			queueId: { type: DataTypes.STRING(64), allowNull: true },
+			attempt: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+			workerId: { type: DataTypes.STRING(160), allowNull: true },
+			heartbeatAt: { type: DataTypes.DATE, allowNull: true },
+			recovery: { type: DataTypes.TEXT, allowNull: true },
 			createdBy: { type: DataTypes.UUID, allowNull: true },
 			createdAt: DataTypes.DATE,
 			startedAt: { type: DataTypes.DATE, allowNull: true },

@@ -19,6 +19,46 @@ export const digitizerDivider = {
 	output: { node: 'adc', reference: 'gnd' }
 };
 
+/**
+ * The same divider as the lab's switchable digitizer input: three range positions and two cable
+ * options, six variants of one sheet. Every position presents 10 MΩ (Rtop plus the shunt) and —
+ * once compensated — the same input capacitance (about 6 pF); the 100:1 and 1000:1 positions put
+ * in a shunt pair (Rsh, Csh) that 10:1 does without. Each position's top capacitor is a little
+ * off its compensation value (6.06 pF at 100:1, 6.01 pF at 1000:1), so solving per position has
+ * something to do; the longer cable adds 28 pF on the shunt side and upsets 10:1 most.
+ * Attenuation steps 1 : 10 : 100 come from the resistors alone (1M ∥ Rsh against Rtop).
+ */
+export const digitizerDividerRanges = {
+	...digitizerDivider,
+	title: 'Digitizer input divider, three ranges',
+	elements: [
+		...digitizerDivider.elements,
+		{ id: 'Rsh', type: 'R', nodes: ['adc', 'gnd'], value: '111.1k' },
+		{ id: 'Csh', type: 'C', nodes: ['adc', 'gnd'], value: '540p' }
+	],
+	variants: {
+		absent: ['Rsh', 'Csh'],
+		groups: [
+			{
+				name: 'Range',
+				options: [
+					{ name: '10:1' },
+					{ name: '100:1', values: { Rtop: '9.9M', Ctop: '6.2p' }, present: ['Rsh', 'Csh'] },
+					{
+						name: '1000:1',
+						values: { Rtop: '9.99M', Ctop: '5.6p', Rsh: '10.1k', Csh: '5940p' },
+						present: ['Rsh', 'Csh']
+					}
+				]
+			},
+			{
+				name: 'Cable',
+				options: [{ name: '1.2 m cable' }, { name: '2 m cable', values: { Ccable: '70p' } }]
+			}
+		]
+	}
+};
+
 /** A photodiode transimpedance stage, 100 kΩ with 1.5 pF feedback, on an amplifier modelled
  * with one pole (open-loop gain 1e5, gain-bandwidth about 10 MHz) so its closing is visible. */
 export const photodiodeTia = {
@@ -55,7 +95,7 @@ export const antiAliasFilter = {
 };
 
 export const demoSheets = [
-	{ name: 'Digitizer input divider, 10:1', document: digitizerDivider },
+	{ name: 'Digitizer input divider, three ranges', document: digitizerDividerRanges },
 	{ name: 'Photodiode TIA, 100 kΩ', document: photodiodeTia },
 	{ name: 'Anti-alias filter, 100 kHz', document: antiAliasFilter }
 ];

@@ -4,12 +4,14 @@
 // 413 over the upload limit, 415 when the content is another type or the name claims one.
 import { json } from '@sveltejs/kit';
 import { apiActor, endpoint } from '$lib/server/api/respond';
+import { requireId } from '$lib/server/api/ids';
 import { listAttachmentsAs, uploadAttachmentAs } from '$lib/server/exchange/attachment-actions';
 import { readUpload } from '$lib/server/exchange/upload';
 import { uploadLimit } from '$lib/server/exchange/limits';
 
 export const GET = endpoint(async (event) => {
-	const comment = event.url.searchParams.get('comment');
+	const raw = event.url.searchParams.get('comment');
+	const comment = raw === null || raw === 'all' ? raw : requireId(raw, 'comment', 'query');
 	return json({
 		attachments: await listAttachmentsAs(apiActor(event), event.params.id!, comment ?? null),
 		uploadLimitBytes: uploadLimit()

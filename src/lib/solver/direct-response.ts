@@ -1,0 +1,219 @@
+import {
+	logAbs,
+	ratio,
+	solveAt,
+	toComplex,
+	type DirectPoint,
+	type DirectSystem
+} from './direct-solve';
+
+/**
+ * Responses from the network equations (direct-solve.ts): the frequency response with its
+ * group delay, the input impedance, the −3 dB bandwidth and the behaviour at infinite
+ * frequency. The pole–zero form is not consulted; agreement.ts compares the two.
+ */
+export interface Sweep {
+	f: number[];
+	points: (DirectPoint | null)[];
+}
+
+export function sweep(sys: DirectSystem, f: number[], derivative: boolean): Sweep {
+	return { f, points: f.map((x) => solveAt(sys, 0, 2 * Math.PI * x, derivative)) };
+}
+
+const finiteOrNull = (x: number) => (Number.isFinite(x) ? x : null);
+
+/** 20·log10|H| per point; null where H is exactly 0 or the network is singular (a pole on jω). */
+export function magnitudeDb(s: Sweep): (number | null)[] {
+	return s.points.map((p) => (p ? finiteOrNull((20 * logAbs(p.h)) / Math.LN10) : null));
+}
+
+/** τg = −Re(H′/H), with H′ = dH/ds from the derivative solve. */
+export function groupDelay(s: Sweep): (number | null)[] {
+	return s.points.map((p) => {
+		if (!p?.dh || (p.h.re === 0 && p.h.im === 0)) return null;
+		return finiteOrNull(-ratio(p.dh, p.h).re);
+	});
+}
+
+/**
+ * Phase in degrees, unwrapped with the group delay: between neighbours the phase moves by about
+ * −∫τg dω (trapezoid), and the 360° branch nearest that prediction is taken — a resonance that
+ * turns by more than 180° between two samples is still followed. The first point is put on the
+ * branch of its low-frequency asymptote k·90° (k from ω·d(ln H)/dω: zeros minus poles at s = 0).
+ */
+export function phaseDeg(s: Sweep, delay: (number | null)[]): (number | null)[] {
+	const out: (number | null)[] = [];
+	let prev: number | null = null;
+	let prevIdx = -1;
+	s.points.forEach((p, i) => {
+		if (!p || (p.h.re === 0 && p.h.im === 0)) {
+			out.push(null);
+			return;
+		}
+		const raw = (Math.atan2(p.h.im, p.h.re) * 180) / Math.PI;
+		let target: number;
+		if (prev === null) {
+			const slope = p.dh ? ratio(p.dh, p.h) : null;
+			// s·H′/H at s = jω: its real part counts zeros minus poles at the origin.
+			const w = 2 * Math.PI * s.f[i];
+			const k = slope ? Math.round(-w * slope.im) : 0;
+			target = k * 90;
+		} else {
+			const d0 = delay[prevIdx];
+			const d1 = delay[i];
+			const dw = 2 * Math.PI * (s.f[i] - s.f[prevIdx]);
+			target = prev - (d0 !== null && d1 !== null ? ((d0 + d1) / 2) * dw * (180 / Math.PI) : 0);
+		}
+		const v = raw + 360 * Math.round((target - raw) / 360);
+		out.push(v);
+		prev = v;
+		prevIdx = i;
+	});
+	return out;
+}
+
+/** Impedance seen by the input source from the input functional's reading (V input: 1/I). */
+export function impedance(
+	p: DirectPoint | null,
+	vInput: boolean
+): { re: number; im: number } | null {
+	if (!p) return null;
+	const z = vInput ? ratio({ re: 1, im: 0, ex: 0 }, p.zin) : toComplex(p.zin);
+	return Number.isFinite(z.re) &&
+		Number.isFinite(z.im) &&
+		!(vInput && p.zin.re === 0 && p.zin.im === 0)
+		? z
+		: null;
+}
+
+/**
+ * Behaviour as s → ∞ from two direct solves far above every singularity (at S = 1e6 and 1e7
+ * times `top`, on the positive real axis where a stable network has no pole): the relative
+ * degree r = −lim s·H′/H (an integer; the two points must agree), and H(∞) — exactly 0 when
+ * r ≥ 1, H(S) + S·H′(S) (error O((top/S)²)) when r = 0, null when H grows (r < 0). Null degree
+ * when the two points disagree or a solve fails.
+ */
+export function atInfinity(
+	sys: DirectSystem,
+	top: number
+): { degree: number | null; value: number | null } {
+	const reading = (S: number) => {
+		const p = solveAt(sys, S, 0, true);
+		if (!p?.dh) return null;
+		if (p.h.re === 0 && p.h.im === 0) return { r: Infinity, p, S };
+		const q = ratio(p.dh, p.h);
+		return { r: -S * q.re, p, S };
+	};
+	const scale = top > 0 && Number.isFinite(top) ? top : 1;
+	const a = reading(scale * 1e6);
+	const b = reading(scale * 1e7);
+	if (!a || !b) return { degree: null, value: null };
+	if (a.r === Infinity && b.r === Infinity) return { degree: null, value: 0 };
+	const ra = Math.round(a.r);
+	if (Math.abs(a.r - ra) > 1e-3 || Math.abs(b.r - ra) > 1e-3) return { degree: null, value: null };
+	if (ra >= 1) return { degree: ra, value: 0 };
+	if (ra < 0) return { degree: ra, value: null };
+	const h = toComplex(b.p.h);
+	const dh = toComplex(b.p.dh!);
+	return { degree: 0, value: finiteOrNull(h.re + b.S * dh.re) };
+}
+
+/**
+ * The −3 dB frequency from the direct solve: the first grid point whose |H| is below |DC gain|/√2,
+ * then the crossing refined by the Illinois variant of regula falsi on ln|H| against ln f
+ * (superlinear, bracketed: at most 60 solves, stopping at 1e-13 in ln f).
+ */
+export function bandwidthDirect(sys: DirectSystem, dcGain: number | null, s: Sweep): number | null {
+	if (dcGain === 0 || dcGain === null || !Number.isFinite(dcGain)) return null;
+	const target = Math.log(Math.abs(dcGain)) - 0.5 * Math.log(2);
+	const g = (lf: number) => {
+		const p = solveAt(sys, 0, 2 * Math.PI * Math.exp(lf));
+		return p ? logAbs(p.h) - target : NaN;
+	};
+	// ln|H| − target and its slope d/d(ln f) = Re(s·H′/H) at each grid point.
+	const val = s.points.map((p) => (p ? logAbs(p.h) - target : NaN));
+	const slope = s.points.map((p, i) => {
+		if (!p?.dh) return NaN;
+		const q = ratio(p.dh, p.h);
+		return -2 * Math.PI * s.f[i] * q.im;
+	});
+	const delay = (i: number) => {
+		const p = s.points[i];
+		if (!p?.dh) return 0;
+		const q = ratio(p.dh, p.h).re;
+		return Number.isFinite(q) ? q : 0;
+	};
+	let prev = -1;
+	for (let i = 0; i < s.points.length; i++) {
+		if (!Number.isFinite(val[i])) continue;
+		if (prev >= 0) {
+			const a = Math.log(s.f[prev]);
+			const b = Math.log(s.f[i]);
+			// A resonant structure (a lumped line near its cut-off) can dip below the level and
+			// come back between two grid points. Sample the interval closer when the phase turns
+			// by more than 45° across it (from the group delay) or when the cubic through the
+			// values and slopes dips below the level.
+			const turn = Math.abs(((delay(prev) + delay(i)) / 2) * 2 * Math.PI * (s.f[i] - s.f[prev]));
+			const dip =
+				val[i] >= 0 && hermiteMin(val[prev], val[i], slope[prev] * (b - a), slope[i] * (b - a)) < 0;
+			const parts = Math.min(512, Math.max(dip ? 16 : 1, Math.ceil(turn / (Math.PI / 4))));
+			let x0 = a;
+			let v0 = val[prev];
+			for (let k = 1; k <= parts; k++) {
+				const x1 = a + ((b - a) * k) / parts;
+				const v1 = k === parts ? val[i] : g(x1);
+				if (v1 < 0) return refine(g, x0, x1, v0, v1);
+				x0 = x1;
+				v0 = v1;
+			}
+		} else if (val[i] < 0) return null; // already below at the bottom of the range
+		prev = i;
+	}
+	return null;
+}
+
+/** Smallest value on [0, 1] of the cubic Hermite interpolant with end values and slopes. */
+function hermiteMin(v0: number, v1: number, d0: number, d1: number): number {
+	if (!Number.isFinite(d0) || !Number.isFinite(d1)) return Math.min(v0, v1);
+	let min = Math.min(v0, v1);
+	for (let k = 1; k < 32; k++) {
+		const t = k / 32;
+		const h00 = (1 + 2 * t) * (1 - t) * (1 - t);
+		const h10 = t * (1 - t) * (1 - t);
+		const h01 = t * t * (3 - 2 * t);
+		const h11 = t * t * (t - 1);
+		min = Math.min(min, h00 * v0 + h10 * d0 + h01 * v1 + h11 * d1);
+	}
+	return min;
+}
+
+/** Illinois regula falsi on a bracket [a, b] with g(a) > 0 > g(b), in ln f. */
+function refine(
+	g: (x: number) => number,
+	a: number,
+	b: number,
+	fa: number,
+	fb: number
+): number | null {
+	let side = 0;
+	for (let k = 0; k < 60 && b - a > 1e-13; k++) {
+		let c = b - (fb * (b - a)) / (fb - fa);
+		if (!(c > a && c < b)) c = 0.5 * (a + b);
+		const fc = g(c);
+		if (!Number.isFinite(fc)) return null;
+		if (fc === 0) return Math.exp(c);
+		if (fc < 0) {
+			b = c;
+			fb = fc;
+			if (side === -1) fa /= 2;
+			side = -1;
+		} else {
+			a = c;
+			fa = fc;
+			if (side === 1) fb /= 2;
+			side = 1;
+		}
+	}
+	return Math.exp(0.5 * (a + b));
+}

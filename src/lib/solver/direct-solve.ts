@@ -1,0 +1,248 @@
+import type { Assembled, Sparse } from './assemble';
+import { bandOrder } from './band-order';
+import {
+	bandFactor,
+	bandSolve,
+	bandSolvePlain,
+	bandWorkspace,
+	wideVector,
+	type BandLU,
+	type WideVector
+} from './kernels/complex-band-lu';
+
+/**
+ * The network equations themselves at a complex frequency: (G + sC)·x = b, solved directly —
+ * the ground truth for the frequency response, group delay and input impedance (no
+ * eigenvectors, no pole–zero form). The unknowns are renumbered once by reverse Cuthill–McKee
+ * (band-order.ts), so a ladder factors as a band of width one or two and a point costs O(N).
+ * Everything that depends on the factorization kernel is behind solveAt(), so a sparse kernel
+ * can replace the band one without touching the callers.
+ *
+ * Results are "wide" complex numbers (mantissa · 2^ex): the response of a 300-section ladder a
+ * decade above its last pole is far below 1e-308 and would otherwise underflow to exactly 0.
+ */
+export interface Wide {
+	re: number;
+	im: number;
+	ex: number;
+}
+
+export interface DirectSystem {
+	n: number;
+	/** New position of each original unknown. */
+	pos: Int32Array;
+	g: { r: Int32Array; c: Int32Array; v: Float64Array };
+	cap: { r: Int32Array; c: Int32Array; v: Float64Array };
+	b: Sparse;
+	out: Sparse;
+	zin: Sparse;
+	lu: BandLU;
+	rs: Float64Array;
+	x: WideVector;
+	y: WideVector;
+}
+
+export interface DirectPoint {
+	/** c·x: the transfer. */
+	h: Wide;
+	/** dH/ds = −c·(G + sC)⁻¹·C·x (one more solve with the same factors), when asked. */
+	dh: Wide | null;
+	/** The input functional (current the V input delivers / voltage across the I input). */
+	zin: Wide;
+}
+
+function triplets(list: [number, number, number][]) {
+	// Plain loops: TypedArray.from with a map function goes through the iterator protocol.
+	const r = new Int32Array(list.length);
+	const c = new Int32Array(list.length);
+	const v = new Float64Array(list.length);
+	for (let k = 0; k < list.length; k++) {
+		r[k] = list[k][0];
+		c[k] = list[k][1];
+		v[k] = list[k][2];
+	}
+	return { r, c, v };
+}
+
+export function directSystem(a: Assembled): DirectSystem {
+	const n = a.size;
+	// The pattern of G + sC for the ordering: G's entries plus every port's outer product.
+	const pattern = a.g.slice();
+	const capList: [number, number, number][] = [];
+	for (const p of a.ports)
+		for (const [r, x] of p.vec)
+			for (const [c, y] of p.vec) {
+				capList.push([r, c, p.d * x * y]);
+				pattern[r * n + c] += 1;
+			}
+	const order = bandOrder(pattern, n);
+	const pos = new Int32Array(n);
+	for (let i = 0; i < n; i++) pos[order ? order[i] : i] = i;
+	const gList: [number, number, number][] = [];
+	for (let i = 0; i < n; i++)
+		for (let j = 0; j < n; j++) {
+			const v = a.g[i * n + j];
+			if (v !== 0) gList.push([pos[i], pos[j], v]);
+		}
+	const cMapped = capList.map(([r, c, v]) => [pos[r], pos[c], v] as [number, number, number]);
+	let kl = 0;
+	let ku = 0;
+	for (const list of [gList, cMapped])
+		for (let k = 0; k < list.length; k++) {
+			const d = list[k][0] - list[k][1];
+			if (d > kl) kl = d;
+			else if (-d > ku) ku = -d;
+		}
+	const remap = (v: Sparse): Sparse => v.map(([r, x]) => [pos[r], x]);
+	return {
+		n,
+		pos,
+		g: triplets(gList),
+		cap: triplets(cMapped),
+		b: remap(a.b),
+		out: remap(a.c),
+		zin: remap(a.zin),
+		lu: bandWorkspace(n, kl, ku),
+		rs: new Float64Array(n),
+		x: wideVector(n),
+		y: wideVector(n)
+	};
+}
+
+/** Factors G + sC; false when it is singular at this s (a pole exactly there). */
+function factorAt(sys: DirectSystem, sr: number, si: number): boolean {
+	const { lu, g, cap, rs } = sys;
+	const { w, kl, re, im } = lu;
+	re.fill(0);
+	im.fill(0);
+	for (let k = 0; k < g.v.length; k++) re[g.r[k] * w + (g.c[k] - g.r[k] + kl)] += g.v[k];
+	for (let k = 0; k < cap.v.length; k++) {
+		const at = cap.r[k] * w + (cap.c[k] - cap.r[k] + kl);
+		re[at] += sr * cap.v[k];
+		im[at] += si * cap.v[k];
+	}
+	// Row equilibration: node rows are in siemens, branch rows dimensionless; pivoting compares
+	// like with like only after each row's largest entry is 1.
+	for (let i = 0; i < sys.n; i++) {
+		let mx = 0;
+		for (let j = i * w; j < (i + 1) * w; j++) mx = Math.max(mx, Math.abs(re[j]) + Math.abs(im[j]));
+		const s = mx > 0 ? 1 / mx : 1;
+		rs[i] = s;
+		if (s !== 1)
+			for (let j = i * w; j < (i + 1) * w; j++) {
+				re[j] *= s;
+				im[j] *= s;
+			}
+	}
+	bandFactor(lu);
+	return !lu.singular;
+}
+
+function load(sys: DirectSystem, v: WideVector, sparse: Sparse) {
+	v.re.fill(0);
+	v.im.fill(0);
+	v.ex.fill(0);
+	for (const [r, x] of sparse) v.re[r] += x * sys.rs[r];
+}
+
+/**
+ * Solves in place: plain doubles first, the wide solve only when the solution leaves 1e±280
+ * (`rhs` refills v for the second attempt).
+ */
+function solveInto(sys: DirectSystem, v: WideVector, rhs: () => void): void {
+	rhs();
+	if (bandSolvePlain(sys.lu, v.re, v.im)) return;
+	rhs();
+	bandSolve(sys.lu, v);
+}
+
+/** Σ coef·v[r] over a sparse functional, as one wide number. */
+function wideDot(f: Sparse, v: WideVector): Wide {
+	let ex = -Infinity;
+	for (const [r] of f) if (v.re[r] !== 0 || v.im[r] !== 0) ex = Math.max(ex, v.ex[r]);
+	if (ex === -Infinity) return { re: 0, im: 0, ex: 0 };
+	let re = 0;
+	let im = 0;
+	for (const [r, x] of f) {
+		const d = v.ex[r] - ex;
+		const s = d < -1000 ? 0 : 2 ** d;
+		re += x * v.re[r] * s;
+		im += x * v.im[r] * s;
+	}
+	return { re, im, ex };
+}
+
+/** The network at s = sr + j·si; null where G + sC is singular (s is a pole). */
+export function solveAt(
+	sys: DirectSystem,
+	sr: number,
+	si: number,
+	derivative = false
+): DirectPoint | null {
+	if (!factorAt(sys, sr, si)) return null;
+	const { x, y, cap, rs } = sys;
+	solveInto(sys, x, () => load(sys, x, sys.b));
+	const h = wideDot(sys.out, x);
+	const zin = wideDot(sys.zin, x);
+	let dh: Wide | null = null;
+	if (derivative) {
+		// y = C·x, accumulated with the exponent of its largest term, then A⁻¹·y.
+		let top = -Infinity;
+		for (let k = 0; k < cap.v.length; k++) {
+			const c = cap.c[k];
+			if (x.re[c] !== 0 || x.im[c] !== 0) top = Math.max(top, x.ex[c]);
+		}
+		const fill = () => {
+			y.re.fill(0);
+			y.im.fill(0);
+			y.ex.fill(top === -Infinity ? 0 : top);
+			if (top === -Infinity) return;
+			for (let k = 0; k < cap.v.length; k++) {
+				const c = cap.c[k];
+				const d = x.ex[c] - top;
+				if (d < -1000) continue;
+				const s = cap.v[k] * rs[cap.r[k]] * (d === 0 ? 1 : 2 ** d);
+				y.re[cap.r[k]] += s * x.re[c];
+				y.im[cap.r[k]] += s * x.im[c];
+			}
+		};
+		if (top !== -Infinity) solveInto(sys, y, fill);
+		else fill();
+		const t = wideDot(sys.out, y);
+		dh = { re: -t.re, im: -t.im, ex: t.ex };
+	}
+	return { h, dh, zin };
+}
+
+/** ln|w|, −Infinity for 0. */
+export function logAbs(w: Wide): number {
+	const m = Math.hypot(w.re, w.im);
+	return m === 0 ? -Infinity : Math.log(m) + w.ex * Math.LN2;
+}
+
+/** The same number with its mantissa scaled to [1, 2) (exponent adjusted). */
+function normalized(w: Wide): Wide {
+	const m = Math.max(Math.abs(w.re), Math.abs(w.im));
+	if (m === 0 || !Number.isFinite(m)) return w;
+	const e = Math.floor(Math.log2(m));
+	const s = 2 ** -e;
+	return { re: w.re * s, im: w.im * s, ex: w.ex + e };
+}
+
+/** a/b as an ordinary complex number (the exponents mostly cancel). */
+export function ratio(a0: Wide, b0: Wide): { re: number; im: number } {
+	const a = normalized(a0);
+	const b = normalized(b0);
+	const d = b.re * b.re + b.im * b.im;
+	const s = 2 ** (a.ex - b.ex);
+	return {
+		re: ((a.re * b.re + a.im * b.im) / d) * s,
+		im: ((a.im * b.re - a.re * b.im) / d) * s
+	};
+}
+
+/** The value as an ordinary complex number (±Infinity / 0 outside the double range). */
+export function toComplex(w: Wide): { re: number; im: number } {
+	const s = 2 ** w.ex;
+	return { re: w.re * s, im: w.im * s };
+}

@@ -1,0 +1,142 @@
+import { ratio, solveAt, type DirectSystem } from './direct-solve';
+import type { Root } from './poles';
+
+/**
+ * Confirms transmission zeros on the network equations and finds the ones the eigenproblem lost.
+ *
+ * A zero z of H is confirmed when the Newton step H/H′ at z (both from direct solves) is below
+ * 1e-6·|z|: near a zero of order k, H/H′ ≈ (s − z)/k, while at a point that is no zero it is of
+ * the order of the distance to the nearest singularity. A confirmed zero is polished by up to
+ * four Newton steps. Rounding in the eigenproblem produces candidates that fail this test (a
+ * right-half-plane "zero" of a ladder whose numerator is a constant); they are dropped.
+ *
+ * A zero lost next to a pole (a near-cancelling pair whose zero the eigenproblem merged into
+ * the pole) leaves that pole with a small residue: near p, H(s) = r/(s − p) + R(s) and, for a
+ * pair, r = R(p)·(p − z). From f(s) = H(s)·(s − p) at p ± η|p|, r ≈ (f₊ + f₋)/2 and
+ * R(p) ≈ (f₊ − f₋)/(2η|p|), so z ≈ p − r/R(p); Newton on H finishes it.
+ */
+const CONFIRM = 1e-6;
+const PAIR = 0.01;
+
+export interface CheckedZero {
+	re: number;
+	im: number;
+}
+
+function newtonStep(sys: DirectSystem, re: number, im: number) {
+	const p = solveAt(sys, re, im, true);
+	if (!p?.dh) return null;
+	if (p.h.re === 0 && p.h.im === 0) return { re: 0, im: 0 };
+	if (p.dh.re === 0 && p.dh.im === 0) return null;
+	const q = ratio(p.h, p.dh);
+	return Number.isFinite(q.re) && Number.isFinite(q.im) ? q : null;
+}
+
+/**
+ * The zero near (re, im) after Newton polishing, or null when (re, im) is no zero: the first
+ * step must be below `gate`·|z|, and the iteration must settle (at most 8 steps).
+ */
+export function confirmZero(
+	sys: DirectSystem,
+	re: number,
+	im: number,
+	gate = CONFIRM
+): CheckedZero | null {
+	const r0 = Math.hypot(re, im);
+	if (r0 === 0) return { re: 0, im: 0 };
+	let zr = re;
+	let zi = im;
+	let step = newtonStep(sys, zr, zi);
+	if (!step || Math.hypot(step.re, step.im) > gate * r0) return null;
+	for (let k = 0; k < 8 && step; k++) {
+		const size = Math.hypot(step.re, step.im);
+		zr -= step.re;
+		zi = im === 0 ? 0 : zi - step.im;
+		if (size <= 1e-14 * r0) break;
+		step = newtonStep(sys, zr, zi);
+	}
+	return Math.hypot(zr - re, zi - im) <= 2 * gate * r0 ? { re: zr, im: zi } : null;
+}
+
+/** The zero hidden beside pole p (within 1 % of |p|), or null. */
+export function zeroBesidePole(
+	sys: DirectSystem,
+	p: { re: number; im: number }
+): CheckedZero | null {
+	const mag = Math.hypot(p.re, p.im);
+	if (mag === 0) return null;
+	const eta = 1e-6 * mag;
+	// f(s) = H(s)·(s − p) at s = p ± η; both scaled to the larger one's binary exponent (the
+	// quotient r/R does not depend on the common scale).
+	const hp = solveAt(sys, p.re + eta, p.im);
+	const hm = solveAt(sys, p.re - eta, p.im);
+	if (!hp || !hm) return null;
+	const top = Math.max(hp.h.ex, hm.h.ex);
+	const sp = eta * 2 ** (hp.h.ex - top);
+	const sm = -eta * 2 ** (hm.h.ex - top);
+	const fp = { re: hp.h.re * sp, im: hp.h.im * sp };
+	const fm = { re: hm.h.re * sm, im: hm.h.im * sm };
+	const r = { re: (fp.re + fm.re) / 2, im: (fp.im + fm.im) / 2 };
+	const R = { re: (fp.re - fm.re) / (2 * eta), im: (fp.im - fm.im) / (2 * eta) };
+	const d = R.re * R.re + R.im * R.im;
+	if (!(d > 0) || !Number.isFinite(d)) return null;
+	// z = p − r/R
+	const qr = (r.re * R.re + r.im * R.im) / d;
+	const qi = (r.im * R.re - r.re * R.im) / d;
+	const gap = Math.hypot(qr, qi);
+	if (!(gap < PAIR * mag)) return null;
+	const z0 = { re: p.re - qr, im: p.im === 0 ? 0 : p.im - qi };
+	// An exact cancellation leaves z on p, where G + sC is singular: nothing to polish there.
+	if (gap < 1e-9 * mag) return z0;
+	const z = confirmZero(sys, z0.re, z0.im, PAIR);
+	return z && Math.hypot(z.re - p.re, z.im - p.im) < PAIR * mag ? z : z0;
+}
+
+/**
+ * The finite zeros: candidates from the eigenproblem confirmed by the direct solve, completed
+ * with zeros found beside poles while fewer than `expected` (poles minus the relative degree;
+ * null when unknown) are confirmed. Conjugate pairs are checked once. `lost` counts the zeros
+ * that were found beside poles, `dropped` the candidates that were no zeros.
+ */
+export function checkedZeros(
+	sys: DirectSystem,
+	candidates: Root[],
+	poles: Root[],
+	expected: number | null,
+	zerosAtOrigin: number
+): { zeros: CheckedZero[]; found: number; dropped: number } {
+	const out: CheckedZero[] = [];
+	let dropped = 0;
+	for (let i = 0; i < zerosAtOrigin; i++) out.push({ re: 0, im: 0 });
+	const push = (z: CheckedZero) => {
+		out.push(z);
+		if (z.im !== 0) out.push({ re: z.re, im: -z.im });
+	};
+	const nearPole = (z: { re: number; im: number }) =>
+		poles.find(
+			(p) => p.im >= 0 && Math.hypot(z.re - p.re, z.im - p.im) < PAIR * Math.hypot(p.re, p.im)
+		);
+	for (const c of candidates) {
+		if (c.im < 0 || (c.re === 0 && c.im === 0)) continue;
+		// Beside a pole the solve is nearly singular at the zero: the residue test decides there.
+		const p = nearPole(c);
+		const z = (p && zeroBesidePole(sys, p)) || confirmZero(sys, c.re, c.im);
+		if (z && !(z.re === 0 && z.im === 0)) push(z);
+		else if (!z) dropped += c.im > 0 ? 2 : 1;
+	}
+	let found = 0;
+	if (expected === null || out.length < expected) {
+		for (const p of poles) {
+			if (expected !== null && out.length >= expected) break;
+			if (p.im < 0) continue;
+			const mag = Math.hypot(p.re, p.im);
+			if (out.some((z) => Math.hypot(z.re - p.re, z.im - p.im) < PAIR * mag)) continue;
+			const z = zeroBesidePole(sys, p);
+			if (z) {
+				push(z);
+				found += z.im !== 0 ? 2 : 1;
+			}
+		}
+	}
+	return { zeros: out, found, dropped };
+}
