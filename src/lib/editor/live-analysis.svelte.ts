@@ -30,6 +30,12 @@ const nextPaint = () =>
 			})
 		: Promise.resolve();
 
+/** An answer computed with the page (the server's first analysis) and the body it answers. */
+export interface FirstAnalysis {
+	body: string;
+	analysis: Analysis | { variants: VariantResult[] };
+}
+
 export type AnalysisStatus = 'idle' | 'waiting' | 'running' | 'done' | 'blocked' | 'failed';
 
 /** Above this many ports the panels show no port-matrix tables, so the editor asks for none. */
@@ -78,6 +84,23 @@ export class LiveAnalysis {
 		private readonly fetcher: typeof fetch = (...a) => fetch(...a)
 	) {}
 
+	/**
+	 * Take an answer computed elsewhere for `body` (the server's, rendered into the page) as the
+	 * current one: the same drawing is then not sent again, and the panels show it at once.
+	 */
+	seed(body: string, answer: Analysis | { variants: VariantResult[] }): void {
+		this.#lastBody = body;
+		this.status = 'done';
+		if ('variants' in answer) {
+			this.#withVariants = true;
+			this.variants = answer.variants;
+			this.#showChosen();
+		} else {
+			this.result = answer;
+			this.fault = null;
+		}
+	}
+
 	/** Called on every change of the drawing. */
 	update(document: NetworkDocument, problems: BuildProblem[], editedAt = performance.now()): void {
 		// The caller's effect must depend on the drawing only: reading `status` here would re-run
@@ -113,12 +136,15 @@ export class LiveAnalysis {
 		this.sent++;
 		const sent = performance.now() - editedAt;
 		try {
-			const res = await this.fetcher(this.#withVariants ? `${ANALYZE_URL}&variants=all` : ANALYZE_URL, {
-				method: 'POST',
-				headers: { 'content-type': 'application/json' },
-				body,
-				signal: controller.signal
-			});
+			const res = await this.fetcher(
+				this.#withVariants ? `${ANALYZE_URL}&variants=all` : ANALYZE_URL,
+				{
+					method: 'POST',
+					headers: { 'content-type': 'application/json' },
+					body,
+					signal: controller.signal
+				}
+			);
 			const answered = performance.now() - editedAt;
 			const data = await res.json();
 			if (controller.signal.aborted) return;

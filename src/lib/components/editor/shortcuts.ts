@@ -14,6 +14,7 @@ export const SHORTCUTS: { keys: string; what: string }[] = [
 	},
 	{ keys: 'Arrow keys', what: 'Go to the nearest part that way (it is selected)' },
 	{ keys: 'Home / End', what: 'Go to the first / last part' },
+	{ keys: 'Page Down / Page Up', what: 'Go to the next / previous part in reading order' },
 	{ keys: 'Alt+arrow keys', what: 'Nudge the selection one grid step (Shift: four)' },
 	{ keys: 'Enter', what: 'Edit the part’s value (Escape comes back to the part)' },
 	{ keys: 'T', what: 'Go to the part’s terminals; arrow keys between them; T or Escape back' },

@@ -4,6 +4,7 @@ import { requireUser } from '$lib/server/auth/guard';
 import { listRevisions } from '$lib/server/db/sheets';
 import { formAction } from '$lib/server/sharing/form-action';
 import { answerSpec } from '$lib/server/review/spec-compare';
+import { firstAnalysis } from '$lib/server/first-analysis';
 import { requestContext } from '$lib/server/sharing/context';
 import { readRevision, renameSheetAs, restoreRevisionAs, trashSheetAs, duplicateSheetAs } from '$lib/server/sharing/sheet-actions';
 import { cancelGuestInvitation, changeGrant, endShareLink, newShareLink, sharingOf, shareWithEmail, unshare } from '$lib/server/sharing/share-actions';
@@ -20,10 +21,13 @@ export const load: PageServerLoad = async ({ params, url, locals }) => {
 	try {
 		const { sheet, workspace, revision, role, can, target } = await readRevision(actor, params.id, number);
 		const viewingOld = revision.number !== sheet.latestRevision;
-		const [history, sharing] = await Promise.all([listRevisions(sheet.id), can('share') ? sharingOf(actor, sheet.id) : null]);
+		// The first analysis is rendered into the page (results before any JavaScript; null when
+		// the editor should ask itself, see first-analysis.ts).
+		const [history, sharing, first] = await Promise.all([listRevisions(sheet.id), can('share') ? sharingOf(actor, sheet.id) : null, firstAnalysis(revision.document, revision.layout)]);
 		return {
 			sheet,
 			revision,
+			firstAnalysis: first,
 			role,
 			canEdit: can('save') && !viewingOld,
 			viewingOld,
