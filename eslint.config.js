@@ -39,7 +39,8 @@ export default ts.config(
 						{ name: '$lib/solver', allowTypeImports: true, message: 'Import $lib/solver/notation, or the solver with import() where it runs in the browser.' },
 						{ name: '$lib/exchange', allowTypeImports: true, message: 'Import the one file, or the barrel with import() when the user asks for it.' },
 						{ name: 'zod', allowTypeImports: true, message: 'Schemas belong beside routes and in $lib/network; the browser’s first load carries no zod.' },
-						...['schema', 'variant-schema', 'design-schema'].map((f) => ({ name: `$lib/network/${f}`, allowTypeImports: true, message: 'Types only here: the schema carries zod. Constants live in a zod-free file (e.g. variant-limits.ts).' }))
+						// (design-schema is left to the design aids, which load after the first results)
+						...['schema', 'variant-schema'].map((f) => ({ name: `$lib/network/${f}`, allowTypeImports: true, message: 'Types only here: the schema carries zod. Constants live in a zod-free file (e.g. variant-limits.ts).' }))
 					]
 				}
 			]

@@ -7,8 +7,15 @@
  * Large networks (above the interactive size) answer with their N dominant poles (--poles N,
  * default 10; --near S for the ones nearest a shift S rad/s) and every open-circuit time
  * constant; --full adds the responses; --dense / --sparse force a back end.
+ * The options of POST /api/analyze are taken by the same names and checked by the same code
+ * (src/lib/server/analysis-request.ts, analysis-omit.ts): --points=N --fMin=HZ --fMax=HZ
+ * --stepPoints=N --tEnd=S --response=0 --step=0 --doubletRatio=X
+ * --omit=impedanceCurve,groupDelay,expansion --matrixPorts=N (or `--name value`). Given any of
+ * them, the network is analysed with exactly the options the API would use, so the JSON equals
+ * the API's answer for the same query (docs/api.md).
  * stdout carries only the result (JSON, or the table with --table); every message goes to
- * stderr as one line. Exit 2 for input the user can fix (bad file, bad network), 1 for a fault.
+ * stderr as one line. Exit 2 for input the user can fix (bad file, bad network, bad option), 1
+ * for a fault.
  */
 import { readFileSync } from 'node:fs';
 import {
@@ -27,6 +34,9 @@ import {
 	type VariantInfo
 } from '../src/lib/network/variants';
 import { networkDocumentSchema, type NetworkDocument } from '../src/lib/network/schema';
+import { readOptions } from '../src/lib/server/analysis-request';
+import { readTrim, skipped, trimAnalysis } from '../src/lib/server/analysis-omit';
+import { ApiProblem } from '../src/lib/server/api/problem';
 
 function fail(code: number, message: string): never {
 	process.stderr.write(message.replace(/\s+/g, ' ').trim() + '\n');
@@ -34,8 +44,47 @@ function fail(code: number, message: string): never {
 }
 
 const USAGE =
-	'usage: analyze FILE.json [--table] [--variant NAME | --variants] [--poles N] [--near RAD_PER_S] [--full] [--dense | --sparse]';
-const args = process.argv.slice(2);
+	'usage: analyze FILE.json [--table] [--variant NAME | --variants] [--poles N] [--near RAD_PER_S] [--full] [--dense | --sparse] [API options: --points=N --fMin=HZ --fMax=HZ --stepPoints=N --tEnd=S --response=0 --step=0 --doubletRatio=X --omit=PARTS --matrixPorts=N]';
+/** POST /api/analyze's query options, by name. */
+const QUERY = [
+	'points',
+	'fMin',
+	'fMax',
+	'stepPoints',
+	'tEnd',
+	'response',
+	'step',
+	'doubletRatio',
+	'omit',
+	'matrixPorts'
+];
+// API options are lifted out first (`--name=value` or `--name value`); the rest is parsed below.
+const query = new URLSearchParams();
+const args: string[] = [];
+{
+	const raw = process.argv.slice(2);
+	for (let i = 0; i < raw.length; i++) {
+		const m = /^--([A-Za-z]+)(?:=(.*))?$/.exec(raw[i]);
+		if (!m || !QUERY.includes(m[1])) {
+			args.push(raw[i]);
+			continue;
+		}
+		const value = m[2] ?? raw[++i];
+		if (value === undefined) fail(2, `--${m[1]} needs a value (${USAGE})`);
+		query.set(m[1], value);
+	}
+}
+const queryGiven = [...query.keys()].length > 0;
+let apiOptions: AnalyzeOptions = {};
+let trim: ReturnType<typeof readTrim>;
+try {
+	const url = new URL(`http://cli/?${query}`);
+	trim = readTrim(url);
+	if (queryGiven) apiOptions = { ...readOptions(url), ...skipped(trim) };
+} catch (e) {
+	if (e instanceof ApiProblem) fail(2, e.message);
+	throw e;
+}
 const table = args.includes('--table');
 const allVariants = args.includes('--variants');
 const variantAt = args.indexOf('--variant');
@@ -105,15 +154,17 @@ function optionsFor(d: unknown): AnalyzeOptions {
 	return {
 		backend,
 		dominant: { count: numbers.get('--poles'), near: numbers.get('--near') },
-		...(large && !args.includes('--full')
+		// With the API's options given, they decide what is computed, as in the API.
+		...(large && !args.includes('--full') && !queryGiven
 			? { frequency: false as const, step: false as const }
-			: {})
+			: {}),
+		...apiOptions
 	};
 }
 
 function analyzeOrFail(d: unknown, where: string): Analysis {
 	try {
-		return analyze(d, optionsFor(d));
+		return trimAnalysis(analyze(d, optionsFor(d)), trim);
 	} catch (e) {
 		if (e instanceof SolverError) fail(2, `${where}: ${e.message}`);
 		fail(1, `internal error: ${(e as Error)?.stack?.split('\n')[0] ?? String(e)}`);
@@ -170,7 +221,7 @@ function outcomeOf(parsed: NetworkDocument, v: VariantInfo): Outcome {
 		return {
 			name: v.name,
 			options: v.options,
-			analysis: analyze(resolveVariant(parsed, v), optionsFor(parsed)),
+			analysis: trimAnalysis(analyze(resolveVariant(parsed, v), optionsFor(parsed)), trim),
 			error: null
 		};
 	} catch (e) {

@@ -4,12 +4,16 @@ import { building } from '$app/environment';
 import { themeHandle } from '$lib/server/theme';
 import { authHandle } from '$lib/server/auth/handle';
 import { faultHandle, handleFaultError } from '$lib/server/fault-handle';
+import { securityHeadersHandle } from '$lib/server/security-headers';
+import { callerHandle } from '$lib/server/request-caller';
 import { startJobRunnerAtBoot, stopJobRunner } from '$lib/server/jobs/all-kinds';
 import { takesJobs } from '$lib/server/config';
 
-// faultHandle first: it turns a database outage anywhere below (the session look-up included)
+// securityHeadersHandle outermost, so every answer carries the headers, fault answers too;
+// faultHandle next: it turns a database outage anywhere below (the session look-up included)
 // into one 503 answer with Retry-After (see $lib/server/fault-handle.ts).
-export const handle = sequence(faultHandle, authHandle, themeHandle);
+// callerHandle after auth: it names who is asking, for the analysis queue's fair share.
+export const handle = sequence(securityHeadersHandle, faultHandle, authHandle, callerHandle, themeHandle);
 
 export const handleError: HandleServerError = handleFaultError;
 

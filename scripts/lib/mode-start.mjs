@@ -66,8 +66,10 @@ export async function main({ root, dev }) {
 		});
 		console.log(`
   Polewise is running at  ${origin}
-  Demo sign-in:           demo@polewise.test  /  polewise-demo
+  Demo sign-in:           ${cluster ? 'demo@polewise.test  /  polewise-demo' : '(none: no demo data in a DATABASE_URL database)'}
   Caught e-mail:          ${mail.inboxUrl ?? 'sent through ' + (process.env.SMTP_URL ?? 'SMTP')}
+  Database:               ${cluster ? databaseUrl : 'the one DATABASE_URL names'}
+    (more processes on it: DATABASE_URL=… POLEWISE_ROLE=worker node build; see README "Scaling out")
   Stop with Ctrl-C (the app and its database stop together; data is kept in .data/).
   If the app process dies it is restarted; the database stays up.
 `);

@@ -59,9 +59,13 @@ test('create variants, override a value, take a part out of one position, see ta
 
 	// The overlays draw one curve per variant, each named (legend and titles).
 	const responses = page.getByTestId('variant-responses');
-	await expect(responses.getByRole('list', { name: 'Legend of the overlaid responses' }).locator('li')).toHaveCount(3);
+	await expect(
+		responses.getByRole('list', { name: 'Legend of the overlaid responses' }).locator('li')
+	).toHaveCount(3);
 	await expect(responses.locator('svg path title')).toHaveCount(6); // magnitude and step, 3 each
-	await expect(page.getByTestId('variant-splane').locator('path title', { hasText: '1000:1: pole' })).not.toHaveCount(0);
+	await expect(
+		page.getByTestId('variant-splane').locator('path title', { hasText: '1000:1: pole' })
+	).not.toHaveCount(0);
 
 	// Pick 1000:1: the trimmer is drawn "out", the result panels show that variant.
 	await page.getByLabel('Range (variant group)').selectOption({ label: '1000:1' });

@@ -143,7 +143,10 @@ describe('results CSV', () => {
 			user: owner,
 			params: { id: sheet.id, file: 'time-constants.csv' }
 		});
-		const [el, k, r0, tau0] = tc.text.trim().split('\r\n')[1].split(',');
+		// By column name: the table gained port columns (members, value) after kind.
+		const [head, first] = tc.text.trim().split('\r\n').map((line) => line.split(','));
+		const col = (name: string) => first[head.indexOf(name)];
+		const [el, k, r0, tau0] = ['element', 'kind', 'open_circuit_resistance_ohm', 'open_circuit_tau_s'].map(col);
 		expect([el, k, Number(r0)]).toEqual(['C1', 'C', 1000]);
 		expect(rel(Number(tau0), 1e-6)).toBeLessThan(1e-9);
 		const resp = await send(results.GET, {

@@ -45,8 +45,8 @@ async function admin(sql: string) {
 	}
 }
 
-function start(name: string, unit: string, instance = '') {
-	const p = startUnit(name, unit, instance, shared);
+function start(name: string, unit: string, instance = '', extra: Record<string, string> = {}) {
+	const p = startUnit(name, unit, instance, { ...shared, ...extra });
 	procs.push(p);
 	return p;
 }
@@ -83,17 +83,36 @@ afterAll(async () => {
 }, 60_000);
 
 describe('several processes behind nginx on one database', () => {
-	it('two migrators started together: one applies, the other waits and finds nothing to do; both exit 0', async () => {
+	it('a process refuses to start on a bad setting (exit 78, naming it) and on a schema older than its code (exit 1, naming the migrations)', async () => {
+		const bad = start('web-bad', 'polewise-web@.service', String(webPorts[0]), {
+			DB_POOL_MAX: 'lots'
+		});
+		expect(await bad.exited).toBe(78);
+		expect(bad.output()).toContain('DB_POOL_MAX must be a whole number from 1 to 1000, not "lots"');
+		const early = start('web-early', 'polewise-web@.service', String(webPorts[0]), {
+			POLEWISE_SCHEMA_WAIT_SECONDS: '0'
+		});
+		expect(await early.exited).toBe(1);
+		expect(early.output()).toMatch(
+			/refusing to start: the database schema is older than this code: \d+ migration\(s\) not applied \(0001-accounts-and-sheets, .*\)\. Run the migrate command first: node build\/migrate\.js/
+		);
+	}, 60_000);
+
+	it('a web process started before the migration waits for it; two migrators started together: one applies, the other waits and finds nothing to do; both exit 0', async () => {
+		const web1 = start('web-1', 'polewise-web@.service', String(webPorts[0]));
+		await waitFor('web-1 to say it waits for the schema', async () =>
+			/waiting up to 60 s: the database schema is older than this code/.test(web1.output())
+		);
 		const a = start('migrate-a', 'polewise-migrate.service');
 		const b = start('migrate-b', 'polewise-migrate.service');
 		expect(await Promise.all([a.exited, b.exited])).toEqual([0, 0]);
 		const said = [a.output(), b.output()];
 		expect(said.filter((s) => /applied 0001-accounts-and-sheets/.test(s))).toHaveLength(1);
 		expect(said.filter((s) => /nothing to do; the schema is at/.test(s))).toHaveLength(1);
-	}, 60_000);
+		await waitFor('web-1 to serve once migrated', healthy(webPorts[0]));
+	}, 90_000);
 
 	it('web and worker processes start from their units; nginx answers for both web processes', async () => {
-		start('web-1', 'polewise-web@.service', String(webPorts[0]));
 		start('web-2', 'polewise-web@.service', String(webPorts[1]));
 		start('worker-a', 'polewise-worker@.service', 'a');
 		nginx = startNginx(Number(new URL(origin).port), webPorts);
@@ -170,6 +189,17 @@ describe('several processes behind nginx on one database', () => {
 		});
 		expect(stale.status).toBe(409);
 		expect(stale.body.latest.number).toBe(3);
+		// Twenty saves on the same base at once, spread over both processes: exactly one wins.
+		const race = await Promise.all(
+			Array.from({ length: 20 }, () =>
+				user.json('PUT', `/api/sheets/${sheetId}/revisions`, {
+					baseRevision: 3,
+					document: digitizerDivider
+				})
+			)
+		);
+		expect(race.map((r) => r.status).sort()).toEqual([201, ...Array(19).fill(409)]);
+		expect(new Set(race.map((r) => r.upstream)).size).toBe(2);
 	}, 60_000);
 
 	it('a live update published by one web process reaches a stream held by the other, through the proxy', async () => {
@@ -183,7 +213,7 @@ describe('several processes behind nginx on one database', () => {
 		let text = '';
 		const arrived = (async () => {
 			const decoder = new TextDecoder();
-			while (!/"kind":"revision"[^\n]*"number":4/.test(text)) {
+			while (!/"kind":"revision"[^\n]*"number":5/.test(text)) {
 				const { value, done } = await reader.read();
 				if (done) break;
 				text += decoder.decode(value, { stream: true });
@@ -194,7 +224,7 @@ describe('several processes behind nginx on one database', () => {
 		// unless something came in between).
 		if (user.last !== streamOn) await user.request('GET', '/api/health');
 		const save = await user.json('PUT', `/api/sheets/${sheetId}/revisions`, {
-			baseRevision: 3,
+			baseRevision: 4,
 			document: digitizerDivider
 		});
 		expect(save.status).toBe(201);
@@ -203,7 +233,7 @@ describe('several processes behind nginx on one database', () => {
 		const timeout = new Promise<string>((_, reject) =>
 			setTimeout(() => reject(new Error(`no revision event within 15 s; got: ${text}`)), 15_000)
 		);
-		expect(await Promise.race([arrived, timeout])).toMatch(/"kind":"revision"[^\n]*"number":4/);
+		expect(await Promise.race([arrived, timeout])).toMatch(/"kind":"revision"[^\n]*"number":5/);
 		await reader.cancel();
 	}, 30_000);
 
@@ -236,9 +266,13 @@ describe('several processes behind nginx on one database', () => {
 		});
 		expect(started.status).toBe(202);
 		const id = started.body.job.id;
-		await waitFor(
-			'the job to run on worker a',
-			async () => (await job(id)).state === 'running',
+		// Killed part-way, once some chunks of runs are done (and saved).
+		const before = await waitFor(
+			'the job to be part-way on worker a',
+			async () => {
+				const j = await job(id);
+				return j.state === 'running' && j.done >= 500 ? j.done : null;
+			},
 			60_000
 		);
 		const a = procs.find((p) => p.name === 'worker-a')!;
@@ -256,16 +290,20 @@ describe('several processes behind nginx on one database', () => {
 		);
 		expect(Date.now() - killedAt).toBeLessThan(60_000);
 		expect(taken.recovery).toMatch(
-			/^attempt 1 stopped \(its process ended\) at \d+ of 4000; restarted from the beginning by another worker$/
+			/^attempt 1 stopped \(its process ended\) at [\d,]+ of 4,000; resumes where it stopped$/
 		);
+		const seen: number[] = [taken.done];
 		const done = await waitFor(
 			'the job to finish',
 			async () => {
 				const j = await job(id);
+				seen.push(j.done);
 				return ['done', 'failed', 'cancelled'].includes(j.state) ? j : null;
 			},
 			120_000
 		);
+		// It resumed after the saved runs: its progress never went back below where it was killed.
+		expect(Math.min(...seen)).toBeGreaterThanOrEqual(before);
 		expect(done).toMatchObject({ state: 'done', done: 4000, attempt: 2 });
 		expect(done.result.runs).toBe(4000);
 	}, 240_000);

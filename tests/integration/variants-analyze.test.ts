@@ -18,7 +18,12 @@ function call(body: object, query = '') {
 		headers: { 'content-type': 'application/json' },
 		body: JSON.stringify(body)
 	});
-	const event = { request, url, params: {}, locals: { user: someone, session: null, auth: 'token' } };
+	const event = {
+		request,
+		url,
+		params: {},
+		locals: { user: someone, session: null, auth: 'token' }
+	};
 	return POST(event as unknown as RequestEvent);
 }
 
@@ -36,7 +41,14 @@ const doc = {
 	variants: {
 		absent: ['RL'],
 		groups: [
-			{ name: 'Range', options: [{ name: 'x1' }, { name: 'x2', values: { R1: '2k' } }, { name: 'x4', values: { R1: '4k' } }] },
+			{
+				name: 'Range',
+				options: [
+					{ name: 'x1' },
+					{ name: 'x2', values: { R1: '2k' } },
+					{ name: 'x4', values: { R1: '4k' } }
+				]
+			},
 			{ name: 'Load', options: [{ name: 'open' }, { name: 'loaded', present: ['RL'] }] }
 		]
 	}

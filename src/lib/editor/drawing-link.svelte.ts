@@ -7,6 +7,7 @@ import { formatEngineering } from '$lib/solver/notation';
 import type { NetworkDocument } from '$lib/network/schema';
 import type { Autosave } from './autosave.svelte';
 import type { EditorState } from './editor-state.svelte';
+import { setOptionValue } from './variant-edits';
 
 export interface DrawingNow {
 	document: NetworkDocument;
@@ -21,6 +22,15 @@ export interface DrawingNow {
 export class DrawingLink {
 	#editor = $state.raw<EditorState | null>(null);
 	#save = $state.raw<Autosave | null>(null);
+	/**
+	 * A result panel asking the design aids to solve for one element's value (a doublet's
+	 * closing change → "flat response"); `nonce` makes a repeated request for the same element count.
+	 */
+	solveRequest = $state.raw<{ element: string; nonce: number } | null>(null);
+
+	requestSolve(element: string): void {
+		this.solveRequest = { element, nonce: (this.solveRequest?.nonce ?? 0) + 1 };
+	}
 
 	/** Returns the detach function (call it when the editor goes away). */
 	attach(editor: EditorState, save: Autosave): () => void {
@@ -48,8 +58,18 @@ export class DrawingLink {
 	}
 
 	/**
+	 * The variant picked above the canvas (name and choice), read-only viewers included, or null
+	 * when the sheet has no variants or no editor is attached. The design aids run on it.
+	 */
+	get variant(): { name: string; choice: number[] } | null {
+		const v = this.#editor?.variant;
+		return v ? { name: v.info.name, choice: v.info.choice } : null;
+	}
+
+	/**
 	 * Write values (SI units, by element name) into the drawing as one undo step; autosave then
-	 * saves it like any edit. Returns the names that changed.
+	 * saves it like any edit. Returns the names that changed. With variants, a value the picked
+	 * variant sets through an option is written to that option; shared values to the drawing.
 	 */
 	setValues(values: Record<string, number>): string[] {
 		const editor = this.#editor;
@@ -58,6 +78,27 @@ export class DrawingLink {
 		const typed = Object.entries(values).map(([name, v]) => [name, formatEngineering(v, '', 6)]);
 		return editor.setValues(Object.fromEntries(typed));
 	}
+
+	/**
+	 * Write one part's value into variant options (a position's own trimmer setting), all in one
+	 * undo step; false when there is no editable drawing.
+	 */
+	setOptionValues(element: string, values: OptionValue[]): boolean {
+		const editor = this.#editor;
+		if (!editor || editor.readonly || values.length === 0) return false;
+		let next = editor.variants;
+		for (const v of values)
+			next = setOptionValue(next, v.group, v.option, element, formatEngineering(v.value, '', 6));
+		editor.setVariants(next);
+		return true;
+	}
+}
+
+/** Values of one part in several options (group index, option index → SI value), one undo step. */
+export interface OptionValue {
+	group: number;
+	option: number;
+	value: number;
 }
 
 const KEY = Symbol('polewise-drawing-link');

@@ -14,7 +14,7 @@ import { planJoin } from './join-net';
 import { buildDocument } from './to-document';
 import { terminalKey, type EditorItem, type Snapshot, type TerminalRef, type Wire } from './types';
 import type { VariantSet } from '$lib/network/variant-schema';
-import { dropElements, renameElement } from './variant-edits';
+import { dropElements, renameElement, setOptionValue } from './variant-edits';
 import { activeVariant } from './variant-pick';
 
 const uid = (p: string) => `${p}-${Math.random().toString(36).slice(2, 10)}`;
@@ -161,15 +161,28 @@ export class EditorState {
 	 */
 	setValues(values: Record<string, string>): string[] {
 		if (this.readonly) return [];
+		// On a sheet with variants the values are those of the picked variant: a part whose value
+		// an option of it sets gets that option's value changed; every other part (shared by the
+		// variants) its drawn value — so snapping keeps shared parts shared.
+		const set = this.variant?.overrides.values;
+		let variants = this.variants;
 		const changed: string[] = [];
 		const items = this.items.map((i) => {
 			if (!hasValue(i.kind) || !Object.hasOwn(values, i.name)) return i;
 			const value = values[i.name].trim();
+			const own = set?.get(i.name);
+			if (own) {
+				if (value !== String(own.value).trim()) {
+					variants = setOptionValue(variants, own.group, this.variant!.info.choice[own.group], i.name, value);
+					changed.push(i.name);
+				}
+				return i;
+			}
 			if (value === i.value.trim()) return i;
 			changed.push(i.name);
 			return { ...i, value };
 		});
-		if (changed.length) this.apply({ items });
+		if (changed.length) this.apply({ items, variants });
 		return changed;
 	}
 

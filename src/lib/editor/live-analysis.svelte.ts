@@ -42,8 +42,10 @@ export type AnalysisStatus = 'idle' | 'waiting' | 'running' | 'done' | 'blocked'
 export const PORT_TABLE_LIMIT = 12;
 
 // The panels draw neither the input-impedance curve (only its DC value), the group delay nor the
-// expansion: leaving them out of the answer cuts its JSON by about 40 %.
-export const ANALYZE_URL = `/api/analyze?points=200&stepPoints=300&omit=impedanceCurve,groupDelay,expansion&matrixPorts=${PORT_TABLE_LIMIT}`;
+// expansion: leaving them out of the answer cuts its JSON by about 40 %. Doublets come up to
+// DOUBLET_RATIO_MAX apart, so the panel's own setting (10 % by default) filters without a new request.
+export const DOUBLET_RATIO_MAX = 0.5;
+export const ANALYZE_URL = `/api/analyze?points=200&stepPoints=300&omit=impedanceCurve,groupDelay,expansion&matrixPorts=${PORT_TABLE_LIMIT}&doubletRatio=${DOUBLET_RATIO_MAX}`;
 
 /** One variant's outcome in a `variants=all` answer (docs/api.md). */
 export interface VariantResult {

@@ -4,7 +4,8 @@
 export const localAnalyzeFetch = (async (url: string, init: RequestInit) => {
 	const { analyze, SolverError } = await import('$lib/solver');
 	const { listVariants, resolveVariant } = await import('$lib/network/variants');
-	const options = { frequency: { points: 240 }, step: { points: 400 } };
+	// Doublets up to 50 % apart, as the editor asks the route (live-analysis.svelte.ts).
+	const options = { frequency: { points: 240 }, step: { points: 400 }, doubletRatio: 0.5 };
 	const failure = (e: unknown) =>
 		e instanceof SolverError
 			? e.toJSON()

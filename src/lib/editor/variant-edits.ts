@@ -45,7 +45,12 @@ export function variantNameProblem(name: string, taken: string[]): string | null
 export function addGroup(v: Variants, name?: string): Variants {
 	const groups = groupsOf(v);
 	const g: VariantGroup = {
-		name: name ?? freshName('Group', groups.map((x) => x.name)),
+		name:
+			name ??
+			freshName(
+				'Group',
+				groups.map((x) => x.name)
+			),
 		options: [{ name: 'as drawn' }, { name: 'option 2' }]
 	};
 	return tidy({ ...(v ?? {}), groups: [...groups, g] });
@@ -58,7 +63,10 @@ export function removeGroup(v: Variants, g: number): Variants {
 
 export function renameGroup(v: Variants, g: number, name: string): Variants {
 	if (!v) return v;
-	return tidy({ ...v, groups: v.groups.map((x, i) => (i === g ? { ...x, name: name.trim() } : x)) });
+	return tidy({
+		...v,
+		groups: v.groups.map((x, i) => (i === g ? { ...x, name: name.trim() } : x))
+	});
 }
 
 function mapOption(
@@ -86,7 +94,14 @@ export function addOption(v: Variants, g: number, name?: string): Variants {
 						...x,
 						options: [
 							...x.options,
-							{ name: name ?? freshName(`option ${x.options.length + 1}`, x.options.map((o) => o.name)) }
+							{
+								name:
+									name ??
+									freshName(
+										`option ${x.options.length + 1}`,
+										x.options.map((o) => o.name)
+									)
+							}
 						]
 					}
 				: x
@@ -102,7 +117,9 @@ export function removeOption(v: Variants, g: number, o: number): Variants {
 	if (group.options.length <= 1) return removeGroup(v, g);
 	return tidy({
 		...v,
-		groups: v.groups.map((x, i) => (i === g ? { ...x, options: x.options.filter((_, k) => k !== o) } : x))
+		groups: v.groups.map((x, i) =>
+			i === g ? { ...x, options: x.options.filter((_, k) => k !== o) } : x
+		)
 	});
 }
 
@@ -156,7 +173,13 @@ export function inOption(v: Variants, g: number, o: number, element: string): bo
 }
 
 /** Make a part present or absent in one option, relative to the base. */
-export function setInOption(v: Variants, g: number, o: number, element: string, present: boolean): Variants {
+export function setInOption(
+	v: Variants,
+	g: number,
+	o: number,
+	element: string,
+	present: boolean
+): Variants {
 	const base = inBase(v, element);
 	return mapOption(v, g, o, (opt) => {
 		const absent = (opt.absent ?? []).filter((id) => id !== element);

@@ -22,6 +22,8 @@ export class ViewState {
 	hoveredElement = $state<string | null>(null);
 	pickedPole = $state<number | null>(null);
 	fault = $state<Fault | null>(null);
+	/** A pole and a zero closer than this fraction of the pole are shown as a doublet. */
+	doubletRatio = $state(0.1);
 	poles = $state.raw<PoleOwnerLike[]>([]);
 
 	/** Element names to light up on the canvas. */

@@ -72,12 +72,59 @@ export const toleranceSettingsSchema = z.object({
 		.default(1)
 });
 
+/**
+ * Specs that only make sense across a sheet's variants (docs/design-aids.md, "Specs across
+ * variants"). `equal`: the figure is the same in every variant within `tolerance` (a fraction of
+ * the smallest value) — across all variants, or, with `group`, across that group's options for
+ * each choice of the other groups (every range position, per cable). `ratio`: within each choice
+ * of the other groups, the figure of each listed option over that of the first listed is the
+ * stated ratio within `tolerance` (attenuation steps 1 : 10 : 100).
+ */
+export const CROSS_FIGURES = [
+	'dcGain',
+	'attenuation',
+	'bandwidth',
+	'riseTime',
+	'overshoot',
+	'settlingTime',
+	'inputResistance',
+	'inputCapacitance'
+] as const;
+export type CrossFigure = (typeof CROSS_FIGURES)[number];
+
+const tolerance = z
+	.number({ error: 'the tolerance must be a number' })
+	.positive('the tolerance must be above 0')
+	.max(10, 'a tolerance above 1000 % says nothing');
+
+export const crossSpecSchema = z.discriminatedUnion('kind', [
+	z.object({
+		kind: z.literal('equal'),
+		figure: z.enum(CROSS_FIGURES),
+		group: z.string().min(1).max(40).optional(),
+		tolerance
+	}),
+	z.object({
+		kind: z.literal('ratio'),
+		figure: z.enum(CROSS_FIGURES),
+		group: z.string().min(1).max(40),
+		/** Option name → ratio; at least two options. */
+		ratios: z
+			.record(z.string().min(1).max(40), positive('a ratio'))
+			.refine((r) => Object.keys(r).length >= 2, 'a ratio spec needs at least two options'),
+		tolerance
+	})
+]);
+export type CrossSpec = z.infer<typeof crossSpecSchema>;
+
 export const designSettingsSchema = z.object({
 	spec: specLimitsSchema.default({}),
+	across: z.array(crossSpecSchema).max(20, 'at most 20 cross-variant specs').optional(),
 	tolerances: toleranceSettingsSchema.default({ elements: [], runs: 1000, seed: 1 })
 });
 
 export type SpecLimits = z.infer<typeof specLimitsSchema>;
+export type { CrossSpec as CrossVariantSpec };
 export type ElementTolerance = z.infer<typeof elementToleranceSchema>;
 export type ToleranceSettings = z.infer<typeof toleranceSettingsSchema>;
 export type DesignSettings = z.infer<typeof designSettingsSchema>;

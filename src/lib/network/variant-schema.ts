@@ -17,7 +17,10 @@ const name = (what: string) =>
 		.string({ error: `${what} must be text` })
 		.trim()
 		.min(1, `${what} is empty`)
-		.max(VARIANT_LIMITS.nameLength, `${what} is too long (at most ${VARIANT_LIMITS.nameLength} characters)`)
+		.max(
+			VARIANT_LIMITS.nameLength,
+			`${what} is too long (at most ${VARIANT_LIMITS.nameLength} characters)`
+		)
 		.refine((s) => !s.includes('·'), `${what} may not contain “·” (it joins option names)`);
 
 const elementId = z.string().min(1).max(64);

@@ -82,7 +82,9 @@ describe('variants: listing and resolving', () => {
 	it('refuses references to parts that are not on the sheet, naming the option', () => {
 		const bad = structuredClone(doc);
 		bad.variants.groups[1].options[1].values = { Cx: '1p' };
-		expect(() => listVariants(bad)).toThrow('variant option "Cable: 2 m": there is no element "Cx"');
+		expect(() => listVariants(bad)).toThrow(
+			'variant option "Cable: 2 m": there is no element "Cx"'
+		);
 		expect(() => validateNetwork(bad)).toThrow(SolverError);
 		try {
 			validateNetwork(bad);
@@ -130,6 +132,8 @@ describe('variants: listing and resolving', () => {
 			{ name: 'A', options: opts },
 			{ name: 'B', options: opts }
 		];
-		expect(() => listVariants(many)).toThrow('the variant groups make 49 combinations; the limit is 36');
+		expect(() => listVariants(many)).toThrow(
+			'the variant groups make 49 combinations; the limit is 36'
+		);
 	});
 });

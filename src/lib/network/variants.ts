@@ -50,8 +50,7 @@ function checkReferences(doc: WithVariants): void {
 	for (const id of baseAbsent) known(id, 'variants.absent');
 	const groupNames = new Set<string>();
 	for (const g of v.groups) {
-		if (groupNames.has(g.name))
-			throw new VariantError(`two variant groups are called "${g.name}"`);
+		if (groupNames.has(g.name)) throw new VariantError(`two variant groups are called "${g.name}"`);
 		groupNames.add(g.name);
 		const optionNames = new Set<string>();
 		for (const o of g.options) {
@@ -121,7 +120,7 @@ export function findVariant(doc: WithVariants, name: string): VariantInfo {
 
 /** What one variant does to each part: the value it sets (and which option set it), or absence. */
 export interface Overrides {
-	values: Map<string, { value: number | string; option: string }>;
+	values: Map<string, { value: number | string; option: string; group: number }>;
 	absent: Set<string>;
 	/** Parts this variant's options put in although the base leaves them out. */
 	present: Set<string>;
@@ -129,7 +128,11 @@ export interface Overrides {
 
 export function overridesOf(doc: WithVariants, choice: number[]): Overrides {
 	const v = doc.variants;
-	const out: Overrides = { values: new Map(), absent: new Set(v?.absent ?? []), present: new Set() };
+	const out: Overrides = {
+		values: new Map(),
+		absent: new Set(v?.absent ?? []),
+		present: new Set()
+	};
 	if (!v) return out;
 	const said = new Map<string, { present: boolean; option: string }>();
 	v.groups.forEach((g, k) => {
@@ -143,7 +146,7 @@ export function overridesOf(doc: WithVariants, choice: number[]): Overrides {
 					`"${earlier.option}" and "${label}" both set the value of ${id}; set it in one group only`,
 					{ element: id }
 				);
-			out.values.set(id, { value, option: label });
+			out.values.set(id, { value, option: label, group: k });
 		}
 		const mark = (id: string, present: boolean) => {
 			const earlier = said.get(id);
@@ -163,6 +166,12 @@ export function overridesOf(doc: WithVariants, choice: number[]): Overrides {
 			out.present.add(id);
 		} else out.absent.add(id);
 	}
+	// In the drawing's order of parts: stored JSON (PostgreSQL's jsonb) does not keep key order.
+	const order = new Map(doc.elements.map((e, i) => [e.id, i]));
+	const byDrawing = (a: string, b: string) => (order.get(a) ?? 0) - (order.get(b) ?? 0);
+	out.values = new Map([...out.values].sort(([a], [b]) => byDrawing(a, b)));
+	out.absent = new Set([...out.absent].sort(byDrawing));
+	out.present = new Set([...out.present].sort(byDrawing));
 	return out;
 }
 
@@ -183,7 +192,11 @@ export function resolveVariant<D extends WithVariants>(
 /** The base network: the drawing minus the parts absent in the base; no overrides. */
 export function baseNetwork<D extends WithVariants>(doc: D): Omit<D, 'variants'> {
 	if (!doc.variants) return doc;
-	return apply(doc, { values: new Map(), absent: new Set(doc.variants.absent ?? []), present: new Set() });
+	return apply(doc, {
+		values: new Map(),
+		absent: new Set(doc.variants.absent ?? []),
+		present: new Set()
+	});
 }
 
 function apply<D extends WithVariants>(doc: D, o: Overrides): Omit<D, 'variants'> {

@@ -5,7 +5,7 @@
 // `expansion` becomes null (its documented "not available" value).
 import { z } from 'zod';
 import type { Analysis, AnalyzeOptions } from '../solver';
-import { ApiProblem } from './api/respond';
+import { ApiProblem } from './api/problem';
 
 export const OMITTABLE = ['impedanceCurve', 'groupDelay', 'expansion'] as const;
 export type Omittable = (typeof OMITTABLE)[number];

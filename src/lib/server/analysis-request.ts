@@ -3,12 +3,15 @@
 import { z } from 'zod';
 import { networkDocumentSchema } from '../network/schema';
 import type { AnalyzeOptions } from '../solver';
-import { ApiProblem } from './api/respond';
+import { ApiProblem } from './api/problem';
 import { config } from './config';
+import { requireInteractive } from './analysis-limits';
+import { INTERACTIVE_ELEMENT_LIMIT } from '../network/limits';
 
 export const LIMITS = {
 	bodyBytes: 1_000_000,
-	elements: 3000,
+	/** Elements per analysis in a request (network/limits.ts; see analysis-limits.ts). */
+	elements: INTERACTIVE_ELEMENT_LIMIT,
 	get timeoutMs() {
 		return config().analysisTimeoutMs;
 	},
@@ -31,10 +34,8 @@ function describeIssue(document: unknown, issue: z.core.$ZodIssue) {
 }
 
 export function checkDocument(document: unknown) {
-	const count = (document as { elements?: unknown[] })?.elements?.length;
-	if (typeof count === 'number' && count > LIMITS.elements) {
-		throw new ApiProblem(413, `the network has ${count} elements; the limit is ${LIMITS.elements}`);
-	}
+	// Too large for a request: refused before the shape check reads every element.
+	requireInteractive(document);
 	const parsed = networkDocumentSchema.safeParse(document);
 	if (!parsed.success) {
 		const { error, ...extra } = describeIssue(document, parsed.error.issues[0]);
@@ -44,8 +45,16 @@ export function checkDocument(document: unknown) {
 }
 
 const positive = (name: string, max: number) =>
-	z.coerce.number({ error: `${name} must be a number` }).int(`${name} must be a whole number`).min(2, `${name} must be at least 2`).max(max, `${name} must be at most ${max}`);
-const frequency = (name: string) => z.coerce.number({ error: `${name} must be a number` }).positive(`${name} must be above 0 Hz`).finite();
+	z.coerce
+		.number({ error: `${name} must be a number` })
+		.int(`${name} must be a whole number`)
+		.min(2, `${name} must be at least 2`)
+		.max(max, `${name} must be at most ${max}`);
+const frequency = (name: string) =>
+	z.coerce
+		.number({ error: `${name} must be a number` })
+		.positive(`${name} must be above 0 Hz`)
+		.finite();
 
 const optionsSchema = z
 	.object({
@@ -55,17 +64,27 @@ const optionsSchema = z
 		stepPoints: positive('stepPoints', LIMITS.stepPoints).optional(),
 		tEnd: z.coerce.number().positive('tEnd must be above 0 s').finite().optional(),
 		response: z.enum(['0', '1']).optional(),
-		step: z.enum(['0', '1']).optional()
+		step: z.enum(['0', '1']).optional(),
+		doubletRatio: z.coerce
+			.number({ error: 'doubletRatio must be a number' })
+			.gt(0, 'doubletRatio must be above 0')
+			.max(1, 'doubletRatio must be at most 1')
+			.optional()
 	})
-	.refine((o) => o.fMin === undefined || o.fMax === undefined || o.fMin < o.fMax, 'fMin must be below fMax');
+	.refine(
+		(o) => o.fMin === undefined || o.fMax === undefined || o.fMin < o.fMax,
+		'fMin must be below fMax'
+	);
 
-/** Response options from the query string: ?points=&fMin=&fMax=&stepPoints=&tEnd=&response=0&step=0 */
+/** Response options from the query string: ?points=&fMin=&fMax=&stepPoints=&tEnd=&response=0&step=0&doubletRatio= */
 export function readOptions(url: URL): AnalyzeOptions {
 	const parsed = optionsSchema.safeParse(Object.fromEntries(url.searchParams));
-	if (!parsed.success) throw new ApiProblem(400, parsed.error.issues[0].message, { code: 'bad_options' });
+	if (!parsed.success)
+		throw new ApiProblem(400, parsed.error.issues[0].message, { code: 'bad_options' });
 	const o = parsed.data;
 	return {
 		frequency: o.response === '0' ? false : { points: o.points, fMin: o.fMin, fMax: o.fMax },
-		step: o.step === '0' ? false : { points: o.stepPoints, tEnd: o.tEnd }
+		step: o.step === '0' ? false : { points: o.stepPoints, tEnd: o.tEnd },
+		...(o.doubletRatio !== undefined ? { doubletRatio: o.doubletRatio } : {})
 	};
 }

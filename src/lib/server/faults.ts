@@ -4,10 +4,12 @@
 // form (22P02, e.g. a malformed id a route forgot to check) is the caller's 400. Anything else
 // stays a 500. Recovery needs nothing: Sequelize's pool opens new connections once the
 // database answers again.
+import { ApiProblem } from './api/respond';
 
 export interface Fault {
-	status: 400 | 503;
-	code: 'unavailable' | 'bad_value';
+	status: number;
+	/** 'unavailable', 'bad_value', or the code of an ApiProblem ('busy', 'too_large', …). */
+	code: string;
 	message: string;
 	retryAfterSeconds?: number;
 }
@@ -51,6 +53,12 @@ function* chain(error: unknown): Generator<Record<string, unknown>> {
 }
 
 export function classifyFault(error: unknown): Fault | null {
+	// A refusal the API would answer with its own status (a busy analysis queue, a network too
+	// large to analyse) keeps that status when a page load meets it, instead of becoming a 500.
+	if (error instanceof ApiProblem && ((error.status >= 400 && error.status < 500) || error.status === 503)) {
+		const retry = error.details.retryAfterSeconds;
+		return { status: error.status, code: String(error.details.code ?? 'refused'), message: error.message, ...(typeof retry === 'number' ? { retryAfterSeconds: retry } : {}) };
+	}
 	for (const e of chain(error)) {
 		const code = typeof e.code === 'string' ? e.code : '';
 		const name = typeof e.name === 'string' ? e.name : '';

@@ -4,7 +4,13 @@
 // that took out the input source) does not hide the others.
 import type { AnalyzeOptions } from '../solver';
 import type { NetworkDocument } from '../network/schema';
-import { findVariant, listVariants, resolveVariant, VariantError, type VariantInfo } from '../network/variants';
+import {
+	findVariant,
+	listVariants,
+	resolveVariant,
+	VariantError,
+	type VariantInfo
+} from '../network/variants';
 import { ApiProblem } from './api/respond';
 import { analyzeManyInPool } from './jobs/analysis-pool';
 import type { AnalyzeOutcome } from './workers/analyze.worker';
@@ -27,9 +33,13 @@ export function readVariantChoice(url: URL): VariantChoice {
 			code: 'bad_options'
 		});
 	if (all !== null && one !== null)
-		throw new ApiProblem(400, 'ask for one variant (variant=NAME) or all of them (variants=all), not both', {
-			code: 'bad_options'
-		});
+		throw new ApiProblem(
+			400,
+			'ask for one variant (variant=NAME) or all of them (variants=all), not both',
+			{
+				code: 'bad_options'
+			}
+		);
 	if (all !== null) return { kind: 'all' };
 	if (one !== null) return { kind: 'one', name: one };
 	return { kind: 'base' };
@@ -46,18 +56,28 @@ export function variantsFor(document: NetworkDocument, choice: VariantChoice): V
 			});
 		return all;
 	} catch (e) {
-		if (e instanceof VariantError) throw new ApiProblem(422, e.message, { code: e.code, ...e.where });
+		if (e instanceof VariantError)
+			throw new ApiProblem(422, e.message, { code: e.code, ...e.where });
 		throw e;
 	}
 }
 
 /** Resolve one variant; a contradiction between its options is its own error, not a throw. */
-function resolved(document: NetworkDocument, v: VariantInfo): { doc: unknown } | { error: VariantOutcome['error'] } {
+function resolved(
+	document: NetworkDocument,
+	v: VariantInfo
+): { doc: unknown } | { error: VariantOutcome['error'] } {
 	try {
 		return { doc: resolveVariant(document, v) };
 	} catch (e) {
 		if (e instanceof VariantError)
-			return { error: { error: e.message, code: e.code, ...(e.where.element ? { element: e.where.element } : {}) } };
+			return {
+				error: {
+					error: e.message,
+					code: e.code,
+					...(e.where.element ? { element: e.where.element } : {})
+				}
+			};
 		throw e;
 	}
 }
@@ -70,13 +90,17 @@ export async function analyzeVariants(
 ): Promise<VariantOutcome[]> {
 	const docs = variants.map((v) => resolved(document, v));
 	const runnable = docs.flatMap((d) => ('doc' in d ? [d.doc] : []));
-	const outcomes: AnalyzeOutcome[] = runnable.length ? await analyzeManyInPool({ documents: runnable, options }) : [];
+	const outcomes: AnalyzeOutcome[] = runnable.length
+		? await analyzeManyInPool({ documents: runnable, options })
+		: [];
 	let k = 0;
 	return variants.map((v, i) => {
 		const d = docs[i];
 		const base = { name: v.name, options: v.options };
 		if ('error' in d) return { ...base, analysis: null, error: d.error };
 		const o = outcomes[k++];
-		return o.ok ? { ...base, analysis: o.analysis, error: null } : { ...base, analysis: null, error: o.error };
+		return o.ok
+			? { ...base, analysis: o.analysis, error: null }
+			: { ...base, analysis: null, error: o.error };
 	});
 }

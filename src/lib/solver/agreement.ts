@@ -1,4 +1,4 @@
-import { logAbs, ratio, solveAt, type DirectSystem } from './direct-solve';
+import { ratio, solveAt, type DirectSystem } from './direct-solve';
 import type { Sweep } from './direct-response';
 import { evalPz, type PzForm } from './frequency-response';
 
@@ -13,17 +13,18 @@ export const AGREE = 1e-6;
  */
 export function disagreement(pz: PzForm | null, s: Sweep): { size: number; f: number } | null {
 	let worst: { size: number; f: number } | null = null;
-	s.points.forEach((p, i) => {
-		if (!p) return;
+	// Every other point: a hundred frequencies spanning every pole and zero are plenty.
+	for (let i = 0; i < s.f.length; i += 2) {
+		if (!s.ok[i]) continue;
 		const w = 2 * Math.PI * s.f[i];
-		const direct = logAbs(p.h);
+		const direct = s.logMag[i];
 		let size: number;
 		if (!pz) size = direct === -Infinity ? 0 : 1;
 		else if (direct === -Infinity) size = 1;
 		else {
 			const v = evalPz(pz, w);
 			const dl = v.logMag - direct;
-			const da = v.arg - Math.atan2(p.h.im, p.h.re);
+			const da = v.arg - s.arg[i];
 			// |e^{dl + j·da} − 1|, exact for small differences and saturating for large ones.
 			const half = Math.sin(da / 2);
 			size =
@@ -34,9 +35,9 @@ export function disagreement(pz: PzForm | null, s: Sweep): { size: number; f: nu
 							Math.exp(dl) * Math.sin(da)
 						);
 		}
-		if (!worst || size > worst.size || Number.isNaN(size))
-			worst = { size: Number.isNaN(size) ? Infinity : size, f: s.f[i] };
-	});
+		if (Number.isNaN(size)) size = Infinity;
+		if (!worst || size > worst.size) worst = { size, f: s.f[i] };
+	}
 	return worst;
 }
 

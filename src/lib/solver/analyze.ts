@@ -1,14 +1,13 @@
 import { byMagnitude, singularity } from './singularity';
 import { computePoles, computeZeros, zerosReducible, type Root } from './poles';
 import { dcInputImpedance } from './input-impedance';
-import { evalModal, modalForm } from './modal';
+import { modalForm } from './modal';
 import { assemble } from './assemble';
 import { directSystem } from './direct-solve';
 import {
 	atInfinity,
 	bandwidthDirect,
 	groupDelay,
-	impedance,
 	magnitudeDb,
 	phaseDeg,
 	sweep
@@ -16,17 +15,18 @@ import {
 import { AGREE, disagreement, zerosAtOrigin } from './agreement';
 import { checkedZeros } from './zero-check';
 import { expansion } from './expansion';
-import { evalPz, logSpace, pzForm, type PzForm } from './frequency-response';
+import { logSpace, pzForm, type PzForm } from './frequency-response';
 import { poleInfo } from './pole-info';
 import { denominatorForEstimates } from './pole-estimates';
 import { groupReactivePorts, withMembers } from './reactive-ports';
 import { resistanceFormulas } from './resistance-formulas';
+import { findDoublets } from './doublets';
 import { portMatrices } from './port-matrices';
-import { portModelFrom } from './port-model';
+import { portModelFrom, type PortModel } from './port-model';
 import { sequentialTimeConstants } from './sequential';
 import { shortCircuitTimeConstantsRC } from './short-circuit-rc';
 import { shiftedModel } from './shift';
-import { stepResponse } from './step-response';
+import { stepInWindow } from './step-choice';
 import {
 	openCircuitPorts,
 	openCircuitTimeConstants,
@@ -96,6 +96,8 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	let pz: PzForm | null = null;
 	let md: ReturnType<typeof modalForm> | null = null;
 	let elementsOfPorts: number[] = [];
+	let portModelUsed: PortModel | null = null;
+	let symmetric = false;
 	// The network equations themselves: ground truth for every response (direct-solve.ts).
 	const assembled = net.reactive.length === 0 ? assemble(net, () => 'pencil') : null;
 	let sys = assembled ? directSystem(assembled) : null;
@@ -119,6 +121,8 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		elementsOfPorts = pm.elements;
 		const poleSolve = computePoles(a, pm);
 		roots = poleSolve.roots;
+		portModelUsed = pm;
+		symmetric = Boolean(poleSolve.sp.basis);
 		md = modalForm(pm, roots, 'transfer');
 		// How many finite zeros there are: poles minus the relative degree, read from the
 		// network equations far above every pole (direct-response.ts), not from residues.
@@ -177,6 +181,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		.sort(byMagnitude)
 		.map((r) => ({ ...singularity(r.re, r.im), cancels: null }));
 	const pairs = pairPolesAndZeros(poles, zeros);
+	const doublets = findDoublets(net, poles, zeros, dcGain, { oc, sc }, options.doubletRatio);
 
 	const range = frequencyRange(poles, zeros, options.frequency || undefined);
 	const freq =
@@ -184,9 +189,10 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 			? null
 			: logSpace(range.fMin, range.fMax, options.frequency?.points ?? 200);
 	// Every analysis sweeps the network equations over frequencies spanning all poles and zeros:
-	// the response grid when there is one, else a coarser grid for the checks alone.
-	const grid = freq ?? logSpace(range.fMin, range.fMax, 100);
-	const sw = sweep(sys!, grid, true);
+	// the response grid when there is one, else 60 points (ten a decade or more) for the checks.
+	const grid = freq ?? logSpace(range.fMin, range.fMax, 60);
+	const vInput = net.elements[net.input].type === 'V';
+	const sw = sweep(sys!, grid, true, vInput);
 	let frequencyResponse: Analysis['frequencyResponse'] = null;
 	if (freq) {
 		const delay = groupDelay(sw);
@@ -213,32 +219,26 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		const fast = Math.max(...poles.map((p) => Math.hypot(p.re, p.im)), 0);
 		const tEnd =
 			options.step?.tEnd ?? (Number.isFinite(slow) ? 10 / slow : fast > 0 ? 10 / fast : 1);
-		step = stepResponse(
-			md,
-			stable ? dcGain : null,
-			tEnd,
-			fast > 0 ? 1 / fast : tEnd,
-			options.step?.points ?? 200
+		const chosen = stepInWindow(
+			{
+				md,
+				pm: portModelUsed,
+				symmetric,
+				finitePoles: roots.length,
+				dInf: inf.value,
+				final: stable ? dcGain : null,
+				tEnd,
+				tFast: fast > 0 ? 1 / fast : tEnd,
+				points: options.step?.points ?? 200,
+				sweep: sw
+			},
+			options.step?.tEnd !== undefined
 		);
-		if (pz && freq) {
-			// The residues rest on eigenvectors; check them against the pole–zero form once.
-			const w = 2 * Math.PI * Math.sqrt(range.fMin * range.fMax);
-			const v = evalModal(md, 0, w);
-			const ref = evalPz(pz, w);
-			const mag = Math.exp(ref.logMag);
-			if (Math.abs(Math.hypot(v.re, v.im) - mag) > 1e-6 * mag + 1e-300) {
-				extra.push({
-					code: 'step_inaccurate',
-					message:
-						'the pole–residue form disagrees with the pole–zero form (near-repeated poles); the step response may be inaccurate'
-				});
-			}
-		}
+		step = chosen.step;
+		extra.push(...chosen.warnings);
 	}
 	const zinDc = dcInputImpedance(net, ocPorts, poleAtZero);
-	const vInput = net.elements[net.input].type === 'V';
-	const zin =
-		freq && options.impedanceCurve !== false ? sw.points.map((p) => impedance(p, vInput)) : [];
+	const zin = freq && options.impedanceCurve !== false ? sw.zin : [];
 	const exp =
 		net.reactive.length && options.expansion !== false
 			? expansion(tcNet, ocPorts, roots, zeroRoots, numeratorScale(pz, roots, zeroRoots, dcGain))
@@ -249,6 +249,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		poles,
 		zeros,
 		pairs,
+		doublets,
 		dcGain,
 		highFrequencyGain: inf.value,
 		timeConstants: {

@@ -14,26 +14,58 @@ import {
  */
 export interface Sweep {
 	f: number[];
-	points: (DirectPoint | null)[];
+	/** 1 where the solve succeeded (G + jωC regular), else 0 (a pole on the jω axis). */
+	ok: Uint8Array;
+	/** ln|H|; −Infinity where H is exactly 0. */
+	logMag: Float64Array;
+	/** arg H in radians, in (−π, π]. */
+	arg: Float64Array;
+	/** H′/H (per rad/s), from the derivative solve; NaN where H = 0 or not asked for. */
+	qRe: Float64Array;
+	qIm: Float64Array;
+	/** Input impedance (null where infinite or undefined). */
+	zin: ({ re: number; im: number } | null)[];
 }
 
-export function sweep(sys: DirectSystem, f: number[], derivative: boolean): Sweep {
-	return { f, points: f.map((x) => solveAt(sys, 0, 2 * Math.PI * x, derivative)) };
+/** One solve (and derivative solve) per frequency, kept as plain numbers. */
+export function sweep(sys: DirectSystem, f: number[], derivative: boolean, vInput: boolean): Sweep {
+	const n = f.length;
+	const out: Sweep = {
+		f,
+		ok: new Uint8Array(n),
+		logMag: new Float64Array(n).fill(-Infinity),
+		arg: new Float64Array(n),
+		qRe: new Float64Array(n).fill(NaN),
+		qIm: new Float64Array(n).fill(NaN),
+		zin: []
+	};
+	for (let i = 0; i < n; i++) {
+		const p = solveAt(sys, 0, 2 * Math.PI * f[i], derivative);
+		out.zin.push(impedance(p, vInput));
+		if (!p) continue;
+		out.ok[i] = 1;
+		if (p.h.re === 0 && p.h.im === 0) continue;
+		out.logMag[i] = logAbs(p.h);
+		out.arg[i] = Math.atan2(p.h.im, p.h.re);
+		if (p.dh) {
+			const q = ratio(p.dh, p.h);
+			out.qRe[i] = q.re;
+			out.qIm[i] = q.im;
+		}
+	}
+	return out;
 }
 
 const finiteOrNull = (x: number) => (Number.isFinite(x) ? x : null);
 
 /** 20·log10|H| per point; null where H is exactly 0 or the network is singular (a pole on jω). */
 export function magnitudeDb(s: Sweep): (number | null)[] {
-	return s.points.map((p) => (p ? finiteOrNull((20 * logAbs(p.h)) / Math.LN10) : null));
+	return Array.from(s.logMag, (v, i) => (s.ok[i] ? finiteOrNull((20 * v) / Math.LN10) : null));
 }
 
 /** τg = −Re(H′/H), with H′ = dH/ds from the derivative solve. */
 export function groupDelay(s: Sweep): (number | null)[] {
-	return s.points.map((p) => {
-		if (!p?.dh || (p.h.re === 0 && p.h.im === 0)) return null;
-		return finiteOrNull(-ratio(p.dh, p.h).re);
-	});
+	return Array.from(s.qRe, (q, i) => (s.ok[i] ? finiteOrNull(-q) : null));
 }
 
 /**
@@ -46,18 +78,16 @@ export function phaseDeg(s: Sweep, delay: (number | null)[]): (number | null)[] 
 	const out: (number | null)[] = [];
 	let prev: number | null = null;
 	let prevIdx = -1;
-	s.points.forEach((p, i) => {
-		if (!p || (p.h.re === 0 && p.h.im === 0)) {
+	for (let i = 0; i < s.f.length; i++) {
+		if (!s.ok[i] || s.logMag[i] === -Infinity) {
 			out.push(null);
-			return;
+			continue;
 		}
-		const raw = (Math.atan2(p.h.im, p.h.re) * 180) / Math.PI;
+		const raw = (s.arg[i] * 180) / Math.PI;
 		let target: number;
 		if (prev === null) {
-			const slope = p.dh ? ratio(p.dh, p.h) : null;
 			// s·H′/H at s = jω: its real part counts zeros minus poles at the origin.
-			const w = 2 * Math.PI * s.f[i];
-			const k = slope ? Math.round(-w * slope.im) : 0;
+			const k = Number.isFinite(s.qIm[i]) ? Math.round(-2 * Math.PI * s.f[i] * s.qIm[i]) : 0;
 			target = k * 90;
 		} else {
 			const d0 = delay[prevIdx];
@@ -69,7 +99,7 @@ export function phaseDeg(s: Sweep, delay: (number | null)[]): (number | null)[] 
 		out.push(v);
 		prev = v;
 		prevIdx = i;
-	});
+	}
 	return out;
 }
 
@@ -79,12 +109,9 @@ export function impedance(
 	vInput: boolean
 ): { re: number; im: number } | null {
 	if (!p) return null;
+	if (vInput && p.zin.re === 0 && p.zin.im === 0) return null;
 	const z = vInput ? ratio({ re: 1, im: 0, ex: 0 }, p.zin) : toComplex(p.zin);
-	return Number.isFinite(z.re) &&
-		Number.isFinite(z.im) &&
-		!(vInput && p.zin.re === 0 && p.zin.im === 0)
-		? z
-		: null;
+	return Number.isFinite(z.re) && Number.isFinite(z.im) ? z : null;
 }
 
 /**
@@ -132,20 +159,11 @@ export function bandwidthDirect(sys: DirectSystem, dcGain: number | null, s: Swe
 		return p ? logAbs(p.h) - target : NaN;
 	};
 	// ln|H| − target and its slope d/d(ln f) = Re(s·H′/H) at each grid point.
-	const val = s.points.map((p) => (p ? logAbs(p.h) - target : NaN));
-	const slope = s.points.map((p, i) => {
-		if (!p?.dh) return NaN;
-		const q = ratio(p.dh, p.h);
-		return -2 * Math.PI * s.f[i] * q.im;
-	});
-	const delay = (i: number) => {
-		const p = s.points[i];
-		if (!p?.dh) return 0;
-		const q = ratio(p.dh, p.h).re;
-		return Number.isFinite(q) ? q : 0;
-	};
+	const val = Array.from(s.logMag, (v, i) => (s.ok[i] ? v - target : NaN));
+	const slope = Array.from(s.qIm, (q, i) => -2 * Math.PI * s.f[i] * q);
+	const delay = (i: number) => (Number.isFinite(s.qRe[i]) ? s.qRe[i] : 0);
 	let prev = -1;
-	for (let i = 0; i < s.points.length; i++) {
+	for (let i = 0; i < s.f.length; i++) {
 		if (!Number.isFinite(val[i])) continue;
 		if (prev >= 0) {
 			const a = Math.log(s.f[prev]);

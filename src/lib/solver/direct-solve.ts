@@ -27,15 +27,21 @@ export interface Wide {
 	ex: number;
 }
 
+/** A sparse vector as parallel typed arrays (read in every solve). */
+interface Functional {
+	idx: Int32Array;
+	val: Float64Array;
+}
+
 export interface DirectSystem {
 	n: number;
 	/** New position of each original unknown. */
 	pos: Int32Array;
 	g: { r: Int32Array; c: Int32Array; v: Float64Array };
 	cap: { r: Int32Array; c: Int32Array; v: Float64Array };
-	b: Sparse;
-	out: Sparse;
-	zin: Sparse;
+	b: Functional;
+	out: Functional;
+	zin: Functional;
 	lu: BandLU;
 	rs: Float64Array;
 	x: WideVector;
@@ -93,7 +99,10 @@ export function directSystem(a: Assembled): DirectSystem {
 			if (d > kl) kl = d;
 			else if (-d > ku) ku = -d;
 		}
-	const remap = (v: Sparse): Sparse => v.map(([r, x]) => [pos[r], x]);
+	const remap = (v: Sparse): Functional => ({
+		idx: Int32Array.from(v, ([r]) => pos[r]),
+		val: Float64Array.from(v, ([, x]) => x)
+	});
 	return {
 		n,
 		pos,
@@ -125,7 +134,10 @@ function factorAt(sys: DirectSystem, sr: number, si: number): boolean {
 	// like with like only after each row's largest entry is 1.
 	for (let i = 0; i < sys.n; i++) {
 		let mx = 0;
-		for (let j = i * w; j < (i + 1) * w; j++) mx = Math.max(mx, Math.abs(re[j]) + Math.abs(im[j]));
+		for (let j = i * w; j < (i + 1) * w; j++) {
+			const v = (re[j] < 0 ? -re[j] : re[j]) + (im[j] < 0 ? -im[j] : im[j]);
+			if (v > mx) mx = v;
+		}
 		const s = mx > 0 ? 1 / mx : 1;
 		rs[i] = s;
 		if (s !== 1)
@@ -138,11 +150,11 @@ function factorAt(sys: DirectSystem, sr: number, si: number): boolean {
 	return !lu.singular;
 }
 
-function load(sys: DirectSystem, v: WideVector, sparse: Sparse) {
+function load(sys: DirectSystem, v: WideVector, f: Functional) {
 	v.re.fill(0);
 	v.im.fill(0);
 	v.ex.fill(0);
-	for (const [r, x] of sparse) v.re[r] += x * sys.rs[r];
+	for (let k = 0; k < f.idx.length; k++) v.re[f.idx[k]] += f.val[k] * sys.rs[f.idx[k]];
 }
 
 /**
@@ -157,17 +169,21 @@ function solveInto(sys: DirectSystem, v: WideVector, rhs: () => void): void {
 }
 
 /** Σ coef·v[r] over a sparse functional, as one wide number. */
-function wideDot(f: Sparse, v: WideVector): Wide {
+function wideDot(f: Functional, v: WideVector): Wide {
 	let ex = -Infinity;
-	for (const [r] of f) if (v.re[r] !== 0 || v.im[r] !== 0) ex = Math.max(ex, v.ex[r]);
+	for (let k = 0; k < f.idx.length; k++) {
+		const r = f.idx[k];
+		if (v.re[r] !== 0 || v.im[r] !== 0) ex = Math.max(ex, v.ex[r]);
+	}
 	if (ex === -Infinity) return { re: 0, im: 0, ex: 0 };
 	let re = 0;
 	let im = 0;
-	for (const [r, x] of f) {
+	for (let k = 0; k < f.idx.length; k++) {
+		const r = f.idx[k];
 		const d = v.ex[r] - ex;
-		const s = d < -1000 ? 0 : 2 ** d;
-		re += x * v.re[r] * s;
-		im += x * v.im[r] * s;
+		const s = d === 0 ? 1 : d < -1000 ? 0 : 2 ** d;
+		re += f.val[k] * v.re[r] * s;
+		im += f.val[k] * v.im[r] * s;
 	}
 	return { re, im, ex };
 }

@@ -9,6 +9,7 @@ export { networkDocumentSchema, type NetworkDocument } from '../network/schema';
 export type {
 	Analysis,
 	AnalyzeOptions,
+	Doublet,
 	PoleEstimate,
 	PoleInfo,
 	ResistanceFormula,

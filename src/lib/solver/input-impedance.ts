@@ -1,6 +1,7 @@
 import type { DcPorts } from './dc-ports';
 import { edgesOnLoops } from './loop-edges';
 import { GROUND } from './types';
+import { UnionFind } from './union-find';
 import type { ResolvedNetwork } from './types';
 
 /**
@@ -31,7 +32,7 @@ export function impedanceFromReading(
  */
 export function drawsNoDcCurrent(net: ResolvedNetwork): boolean {
 	const inp = net.elements[net.input];
-	if (inp.type !== 'V') return false;
+	if (inp.type !== 'V') return seesNoDcPath(net);
 	const edges: [number, number][] = [];
 	let mine = -1;
 	net.elements.forEach((e, k) => {
@@ -40,6 +41,26 @@ export function drawsNoDcCurrent(net: ResolvedNetwork): boolean {
 		edges.push(e.type === 'OPAMP' ? [e.nodes[2], GROUND] : [e.nodes[0], e.nodes[1]]);
 	});
 	return edgesOnLoops(net.nodeNames.length, edges)[mine] === 0;
+}
+
+/**
+ * An I input whose terminals no DC path joins (through resistors, inductors, voltage-defined
+ * branches; capacitors and current outputs open) sees an infinite resistance: its voltage at DC
+ * is unbounded, and the anchored solve of dc-ports.ts would put a finite stand-in there.
+ */
+function seesNoDcPath(net: ResolvedNetwork): boolean {
+	const inp = net.elements[net.input];
+	const uf = new UnionFind(net.nodeNames.length);
+	net.elements.forEach((e, k) => {
+		if (k === net.input || ['C', 'I', 'VCCS', 'CCCS'].includes(e.type)) return;
+		uf.union(
+			...((e.type === 'OPAMP' ? [e.nodes[2], GROUND] : [e.nodes[0], e.nodes[1]]) as [
+				number,
+				number
+			])
+		);
+	});
+	return !uf.connected(inp.nodes[0], inp.nodes[1]);
 }
 
 /** Input impedance at DC from the zero-value (C open, L shorted) configuration. */

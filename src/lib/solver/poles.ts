@@ -31,6 +31,8 @@ export interface Root {
  */
 const MAX_POLISHED = 40;
 const POLISH_ABOVE = 1e-11;
+/** |Re s| / |Im s| below which a root counts as on the jω axis (a Q above 5e11). */
+const ON_AXIS = 1e-12;
 
 function refine(sp: Spectrum, pencil: () => Pencil, withVectors: boolean): Root[] {
 	let maxMu = 0;
@@ -58,6 +60,9 @@ function refine(sp: Spectrum, pencil: () => Pencil, withVectors: boolean): Root[
 			re = 0;
 			im = 0;
 		}
+		// On the jω axis to within rounding (a lossless LC tank): exactly on it, so Q and τ read
+		// as infinite (null) rather than as a 1e13 stand-in, and no "unstable" warning is raised.
+		if (im !== 0 && Math.abs(re) <= ON_AXIS * Math.abs(im)) re = 0;
 		const vectors = withVectors ? (r.vectors ?? vectorsFor(sp, r.muRe, r.muIm)) : null;
 		roots.push({ re, im, muRe: r.muRe, muIm: r.muIm, partner: -1, vectors });
 		if (r.im > 0) {

@@ -1,9 +1,10 @@
-import { dcPorts } from './dc-ports';
+import { assemble, dense, type ReactiveMode } from './assemble';
+import { luFactor, luSolve, luSolveTransposed } from './lu';
+import { SINGULAR_PIVOT } from './port-model';
 import { reduceSeriesParallel, termText, termValue, type SpEdge } from './series-parallel';
-import { openCircuitTimeConstants, shortCircuitTimeConstants } from './time-constants';
 import { branchNodes } from './topology';
 import { UnionFind } from './union-find';
-import type { PortReading, ResistanceFormula, ResolvedNetwork } from './types';
+import { GROUND, type PortReading, type ResistanceFormula, type ResolvedNetwork } from './types';
 
 /**
  * The resistance each port sees, written the way a designer reduces it by hand: for each port of
@@ -12,7 +13,7 @@ import type { PortReading, ResistanceFormula, ResolvedNetwork } from './types';
  * terminals reduced in series and parallel, with their names — "Rtop ∥ (Rsrc + Radc)" — and
  * the value of that formula. Where the resistors do not reduce (a bridge) or a controlled source
  * acts on them, the answer says so and names the resistors the value depends on most
- * (normalized sensitivity S = (∂R/∂r)·(r/R), by central differences of the solver's reading).
+ * (normalized sensitivity S = (∂R/∂r)·(r/R), from the adjoint of the port's DC solve).
  * Runs on the port network (reactive-ports.ts), so parallel capacitors are one port.
  */
 export type Configuration = 'open' | 'short';
@@ -24,8 +25,6 @@ const CONTROLLED = new Set(['VCVS', 'VCCS', 'CCVS', 'CCCS', 'OPAMP']);
  */
 export const FORMULA_PORT_LIMIT = 200;
 export const FORMULA_WORK_LIMIT = 80_000; // ports × resistors
-/** Resistors whose influence is computed at most (two DC solves each). */
-export const INFLUENCE_LIMIT = 40;
 const TOP = 3;
 
 export function resistanceFormulas(
@@ -133,54 +132,73 @@ function controlledSourceOn(
 	return null;
 }
 
-/** Fill the value and the most influential resistors of every port that did not reduce. */
+/**
+ * Fill the value and the most influential resistors of every port that did not reduce. With the
+ * DC equations A·x = e (a unit current into the port) and the port's reading R = eᵀx, the adjoint
+ * x̂ = A⁻ᵀe gives every resistor's effect from one factorization: ∂R/∂g = −v·v̂ (v, v̂ the
+ * resistor's voltage in both solutions), so S = (∂R/∂r)(r/R) = v·v̂/(r·R). For a network of
+ * resistors alone v̂ = v and the S are the resistors' shares of the dissipated power, summing to 1.
+ */
 function addInfluence(
 	net: ResolvedNetwork,
 	config: Configuration,
 	readings: PortReading[],
 	out: ResistanceFormula[]
 ): void {
-	const open = out.map((f, i) => (f.kind === 'not-series-parallel' ? i : -1)).filter((i) => i >= 0);
-	if (open.length === 0) return;
-	for (const i of open) out[i].value = readings[i]?.resistance ?? null;
-	const resistors = net.elements.flatMap((e, k) => (e.type === 'R' ? [k] : []));
-	if (resistors.length > INFLUENCE_LIMIT) {
-		for (const i of open)
-			out[i].reason += ` (influence not computed above ${INFLUENCE_LIMIT} resistors)`;
-		return;
-	}
-	const H = 1e-5;
-	const read = (k: number, factor: number) => {
-		const els = net.elements.map((e, j) => (j === k ? { ...e, value: e.value * factor } : e));
-		const varied = { ...net, elements: els };
-		return config === 'open'
-			? openCircuitTimeConstants(
-					varied,
-					dcPorts(varied, (j) => (els[j].type === 'C' ? 'iport' : 'vport'))
-				)
-			: shortCircuitTimeConstants(
-					varied,
-					dcPorts(varied, (j) => (els[j].type === 'C' ? 'vport' : 'iport'))
-				);
-	};
-	const sens: { element: string; s: number }[][] = open.map(() => []);
-	for (const k of resistors) {
-		const up = read(k, 1 + H);
-		const down = read(k, 1 - H);
-		open.forEach((i, j) => {
-			const r0 = readings[i]?.resistance;
-			const ru = up[i]?.resistance;
-			const rd = down[i]?.resistance;
-			if (r0 == null || ru == null || rd == null || r0 === 0) return;
-			const s = (ru - rd) / (2 * H * r0);
-			if (Number.isFinite(s) && Math.abs(s) > 1e-9)
-				sens[j].push({ element: net.elements[k].id, s });
+	const els = net.elements;
+	net.reactive.forEach((port, i) => {
+		const f = out[i];
+		if (f.kind !== 'not-series-parallel') return;
+		f.value = readings[i]?.resistance ?? null;
+		if (f.value === null || f.value === 0) return;
+		const mode = (k: number): ReactiveMode =>
+			k === port ? 'iport' : (els[k].type === 'C') === (config === 'open') ? 'open' : 'short';
+		const a = assemble(net, mode);
+		anchorFloating(net, a, mode);
+		const lu = luFactor(a.g, a.size, true);
+		if (lu.pivotRatio < SINGULAR_PIVOT) return;
+		const e = dense(a.ports[0].vec, a.size);
+		const x = luSolve(lu, e.slice());
+		const xh = luSolveTransposed(lu, e.slice());
+		const at = (v: Float64Array, n: number) => (n === GROUND ? 0 : v[n]);
+		const s: { element: string; sensitivity: number }[] = [];
+		els.forEach((r) => {
+			if (r.type !== 'R') return;
+			const v = at(x, r.nodes[0]) - at(x, r.nodes[1]);
+			const vh = at(xh, r.nodes[0]) - at(xh, r.nodes[1]);
+			const sk = (v * vh) / (r.value * f.value!);
+			if (Number.isFinite(sk) && Math.abs(sk) > 1e-9) s.push({ element: r.id, sensitivity: sk });
 		});
-	}
-	open.forEach((i, j) => {
-		out[i].influence = sens[j]
-			.sort((x, y) => Math.abs(y.s) - Math.abs(x.s))
-			.slice(0, TOP)
-			.map((x) => ({ element: x.element, sensitivity: x.s }));
+		f.influence = s.sort((p, q) => Math.abs(q.sensitivity) - Math.abs(p.sensitivity)).slice(0, TOP);
 	});
+}
+
+/**
+ * A part of the network with no DC path to ground (a node behind open capacitors) would leave A
+ * singular; one conductance to ground on one of its nodes fixes its potential and, with no other
+ * way out, changes no current — as the time-constant configurations do (dc-ports.ts).
+ */
+function anchorFloating(
+	net: ResolvedNetwork,
+	a: ReturnType<typeof assemble>,
+	mode: (k: number) => ReactiveMode
+): void {
+	const n = net.nodeNames.length;
+	const uf = new UnionFind(n);
+	net.elements.forEach((e, k) => {
+		const reactive = e.type === 'C' || e.type === 'L';
+		if (reactive && mode(k) !== 'short') return;
+		if (e.type === 'I' || e.type === 'VCCS' || e.type === 'CCCS') return;
+		const [p, q] = branchNodes(e);
+		uf.union(p, q);
+	});
+	let scale = 0;
+	for (let i = 0; i < a.size; i++) scale = Math.max(scale, Math.abs(a.g[i * a.size + i]));
+	const done = new Set<number>([uf.groundRoot()]);
+	for (let i = 0; i < n; i++) {
+		const r = uf.find(i);
+		if (done.has(r)) continue;
+		done.add(r);
+		a.g[i * a.size + i] += scale || 1;
+	}
 }

@@ -172,7 +172,18 @@ export function stepMetrics(
 ): StepFigures {
 	const grid = metricsGrid(md, tEnd, Math.min(tFast, tEnd) * 1e-3);
 	const u = (x: number) => at(x) / final;
-	const vals = Array.from(grid, u);
+	return figuresOnGrid(grid, Array.from(grid, u), u);
+}
+
+/**
+ * The three figures from samples `vals` = y/final on an increasing `grid` (fine enough that no
+ * crossing hides between samples), refined with the exact normalized response `u`.
+ */
+export function figuresOnGrid(
+	grid: Float64Array,
+	vals: number[],
+	u: (t: number) => number
+): StepFigures {
 	const cross = (level: number) => {
 		if (vals[0] >= level) return 0;
 		for (let i = 1; i < grid.length; i++) {

@@ -124,6 +124,27 @@ export interface ResistanceFormula {
 	influence: { element: string; sensitivity: number }[];
 }
 
+/**
+ * A pole and a zero closer than the doublet ratio (doublets.ts). The step response then carries
+ * a slow tail: y(t) ≈ final·(1 + tail·e^(−t/tailTau)) after the fast part (tail > 0: it overshoots
+ * and sags back; < 0: it undershoots and creeps up).
+ */
+export interface Doublet {
+	/** Indices into `poles` and `zeros` (a complex pair is listed once, by its upper member). */
+	pole: number;
+	zero: number;
+	/** (z − p)/p for real roots, |z − p|/|p| for complex ones. */
+	separation: number;
+	/** The doublet pole's share of the final value in the step response; null for complex pairs or without a finite DC gain. */
+	tail: number | null;
+	/** −1/Re p, s. */
+	tailTau: number | null;
+	/** Single-element changes that make pole and zero coincide, the suggested one first (at most 3). */
+	closing: { element: string; from: number; to: number; change: number }[];
+	/** Why `closing` is empty, when it is. */
+	closingNote: string | null;
+}
+
 export interface TimeConstant extends PortReading {
 	/** Element ids of the port, document order. */
 	members: string[];
@@ -160,6 +181,8 @@ export interface Analysis {
 	poles: PoleInfo[];
 	zeros: (Singularity & { cancels: number | null })[];
 	pairs: { pole: number; zero: number; distance: number }[];
+	/** Pole–zero doublets closer than the doublet ratio (default 10 %). */
+	doublets: Doublet[];
 	dcGain: number | null;
 	highFrequencyGain: number | null;
 	timeConstants: {
@@ -196,6 +219,8 @@ export interface Analysis {
 		overshoot: number | null;
 		settlingTime: number | null;
 		final: number | null;
+		/** When the poles span more than two decades: samples evenly spaced in log t, for a log time axis. */
+		logSpaced?: { t: number[]; y: number[] };
 	} | null;
 	inputImpedance: {
 		dc: Complex | null;
@@ -233,6 +258,8 @@ export interface AnalyzeOptions {
 	expansion?: false;
 	/** false: skip the input-impedance curve (the DC value is still computed; arrays empty). */
 	impedanceCurve?: false;
+	/** A pole and a zero closer than this fraction of the pole's magnitude are a doublet (default 0.1). */
+	doubletRatio?: number;
 	/**
 	 * The back end: 'auto' (default) takes the sparse path above SPARSE_ABOVE reactive elements
 	 * (analyze.ts); 'dense' and 'sparse' force one (both answer the same questions on the

@@ -47,7 +47,8 @@ export function validateNetwork(doc: unknown): ResolvedNetwork {
 	try {
 		listVariants(parsed.data);
 	} catch (e) {
-		if (e instanceof VariantError) throw new SolverError('bad_variants', e.message, { element: e.where.element });
+		if (e instanceof VariantError)
+			throw new SolverError('bad_variants', e.message, { element: e.where.element });
 		throw e;
 	}
 	const d = baseNetwork(parsed.data);

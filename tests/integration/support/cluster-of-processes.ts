@@ -226,7 +226,8 @@ export class Client {
 		const text = await res.text();
 		return {
 			status: res.status,
-			upstream: this.upstreams.at(-1)!,
+			// This answer's own header (requests may run concurrently).
+			upstream: res.headers.get('x-polewise-upstream') ?? '',
 			body: text ? JSON.parse(text) : null
 		};
 	}

@@ -122,6 +122,31 @@ describe('issue 12 example 3: four equal RC sections between unity-gain buffers 
 	test('H(∞) is exactly 0 (strictly proper: relative degree 4)', () => {
 		expect(a.highFrequencyGain).toBe(0);
 	});
+	// Closed form: y(t) = 1 − e^{−x}(1 + x + x²/2 + x³/6), x = t/RC (the Erlang-4 distribution).
+	const y = (t: number) => {
+		const x = t / 1e-5;
+		return 1 - Math.exp(-x) * (1 + x + (x * x) / 2 + (x * x * x) / 6);
+	};
+	const when = (level: number) => {
+		let lo = 0;
+		let hi = 1e-3;
+		for (let k = 0; k < 200; k++) {
+			const mid = (lo + hi) / 2;
+			if (y(mid) < level) lo = mid;
+			else hi = mid;
+		}
+		return (lo + hi) / 2;
+	};
+	test('step: 10–90 % rise time and 1 % settling time of the closed form (1e-6), no overshoot', () => {
+		expect(a.step).not.toBeNull();
+		expectRel(a.step!.riseTime, when(0.9) - when(0.1), 1e-6, 'rise time');
+		expectRel(a.step!.settlingTime, when(0.99), 1e-6, 'settling time');
+		expect(a.step!.overshoot).toBeLessThan(1e-9);
+		expect(a.warnings.map((w) => w.code)).not.toContain('step_untrusted');
+	});
+	test('step curve: every sample equals the closed form (1e-9 of the final value)', () => {
+		a.step!.t.forEach((t, i) => expect(Math.abs(a.step!.y[i] - y(t))).toBeLessThan(1e-9));
+	});
 	test('the −3 dB bandwidth is √(2^{1/4} − 1)/(2πRC) (closed form for (1 + sRC)⁻⁴; 1e-9)', () => {
 		expectRel(a.bandwidth, Math.sqrt(2 ** 0.25 - 1) / (2 * Math.PI * 1e-5), 1e-9, 'bandwidth');
 	});

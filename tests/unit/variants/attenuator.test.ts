@@ -85,7 +85,8 @@ describe('three-position compensated attenuator (closed forms, common practice)'
 			expect(rel(a.dcGain!, ratio)).toBeLessThan(1e-9);
 			// Flat: every sampled magnitude equals the DC ratio (within 1e-6 dB).
 			const db = 20 * Math.log10(ratio);
-			for (const m of a.frequencyResponse!.magnitudeDb) expect(Math.abs(m! - db)).toBeLessThan(1e-6);
+			for (const m of a.frequencyResponse!.magnitudeDb)
+				expect(Math.abs(m! - db)).toBeLessThan(1e-6);
 			// The pole at −1/τ of the arm time constant sits on a zero.
 			expect(a.poles[0].cancelledBy).not.toBeNull();
 			expect(rel(-a.poles[0].re, 1 / (p.r1 * flatC1(p)))).toBeLessThan(1e-6);

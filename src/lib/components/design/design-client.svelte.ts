@@ -4,18 +4,23 @@
 // with their error message kept for the panel that asked, and the sheet's stored settings.
 import type { DesignSettings } from '$lib/network/design-schema';
 import type { NetworkDocument } from '$lib/network/schema';
-import type { DrawingLink, DrawingNow } from '$lib/editor/drawing-link.svelte';
+import type { DrawingLink, DrawingNow, OptionValue } from '$lib/editor/drawing-link.svelte';
+import { hasVariants, listVariants, resolveVariant, type VariantInfo } from '$lib/network/variants';
 
-/** What a design aid ran on: the canvas (based on a saved revision) or a saved revision. */
-export type DesignSource =
-	{ kind: 'drawing'; base: number; unsaved: boolean } | { kind: 'revision'; number: number };
+/** What a design aid ran on: the canvas (based on a saved revision) or a saved revision, and on
+ * a sheet with variants which variant. */
+export type DesignSource = (
+	| { kind: 'drawing'; base: number; unsaved: boolean }
+	| { kind: 'revision'; number: number }
+) & { variant?: string };
 
 export const sourceLabel = (s: DesignSource): string =>
-	s.kind === 'revision'
+	(s.kind === 'revision'
 		? `saved revision ${s.number}`
 		: s.unsaved
 			? `the drawing as it is now (unsaved edits on revision ${s.base})`
-			: `the drawing as it is now (saved as revision ${s.base})`;
+			: `the drawing as it is now (saved as revision ${s.base})`) +
+	(s.variant ? `, variant ${s.variant}` : '');
 
 export interface CallError {
 	message: string;
@@ -44,16 +49,46 @@ export class DesignClient {
 		return (this.canEdit && this.#link?.now) || null;
 	}
 
-	/** The document the aids see now: the drawing, or the saved revision last fetched. */
-	get document(): NetworkDocument | null {
+	/** The whole document the aids see now (variants included): the drawing, or the saved revision. */
+	get fullDocument(): NetworkDocument | null {
 		return this.drawing?.document ?? this.#saved;
+	}
+
+	/** The variant the aids run on: the one picked above the canvas, else the first. */
+	get variant(): VariantInfo | null {
+		const doc = this.fullDocument;
+		if (!doc || !hasVariants(doc)) return null;
+		try {
+			const all = listVariants(doc);
+			const picked = this.#link?.variant?.name;
+			return all.find((v) => v.name === picked) ?? all[0] ?? null;
+		} catch {
+			return null;
+		}
+	}
+
+	/** The network the aids see now: on a sheet with variants, the picked variant's. */
+	get document(): NetworkDocument | null {
+		const doc = this.fullDocument;
+		return doc ? this.#resolve(doc) : null;
+	}
+
+	#resolve(doc: NetworkDocument): NetworkDocument {
+		const v = this.variant;
+		if (!v) return doc;
+		try {
+			return resolveVariant(doc, v) as NetworkDocument;
+		} catch (e) {
+			throw { message: (e as Error).message } satisfies CallError;
+		}
 	}
 
 	/** Null until the saved revision is known when there is no drawing. */
 	get source(): DesignSource | null {
 		const d = this.drawing;
-		if (d) return { kind: 'drawing', base: d.base, unsaved: d.unsaved };
-		return this.revision ? { kind: 'revision', number: this.revision } : null;
+		const variant = this.variant?.name;
+		if (d) return { kind: 'drawing', base: d.base, unsaved: d.unsaved, variant };
+		return this.revision ? { kind: 'revision', number: this.revision, variant } : null;
 	}
 
 	/** The network to run an aid on, and what it is; refuses a drawing that cannot be analysed yet. */
@@ -61,16 +96,21 @@ export class DesignClient {
 		const d = this.drawing;
 		if (!d) {
 			const document = await this.refresh();
-			return { document, source: { kind: 'revision', number: this.revision } };
+			return { document: this.#resolve(document), source: this.source! };
 		}
 		if (d.problem)
 			throw { message: `The drawing cannot be analysed yet: ${d.problem}` } satisfies CallError;
-		return { document: d.document, source: { kind: 'drawing', base: d.base, unsaved: d.unsaved } };
+		return { document: this.#resolve(d.document), source: this.source! };
 	}
 
 	/** Write values into the drawing as one undo step (autosave saves it); the names changed. */
 	setValues(values: Record<string, number>): string[] {
 		return this.drawing ? this.#link!.setValues(values) : [];
+	}
+
+	/** Write one part's value into variant options (one undo step); false without a drawing. */
+	setOptionValues(element: string, values: OptionValue[]): boolean {
+		return this.drawing ? this.#link!.setOptionValues(element, values) : false;
 	}
 
 	/** Elements whose value a design aid may change, in document order. */
@@ -112,6 +152,43 @@ export class DesignClient {
 	/** POST with the network (the drawing, or the latest saved revision) added to the body. */
 	async withDocument<T>(path: string, body: object): Promise<T & { source: DesignSource }> {
 		const { document, source } = await this.network();
+		return { ...(await this.call<T>('POST', path, { ...body, document })), source };
+	}
+
+	/**
+	 * The same request on every variant's own network, one after another (the design worker runs
+	 * one task at a time); each variant keeps its answer or its error.
+	 */
+	async forEveryVariant<T>(
+		path: string,
+		body: object | ((document: NetworkDocument) => object)
+	): Promise<{ name: string; value: T | null; error: string | null }[]> {
+		const d = this.drawing;
+		if (d?.problem)
+			throw { message: `The drawing cannot be analysed yet: ${d.problem}` } satisfies CallError;
+		const doc = d ? d.document : await this.refresh();
+		const out: { name: string; value: T | null; error: string | null }[] = [];
+		for (const v of hasVariants(doc) ? listVariants(doc) : []) {
+			try {
+				const document = resolveVariant(doc, v) as NetworkDocument;
+				const extra = typeof body === 'function' ? body(document) : body;
+				out.push({ name: v.name, value: await this.call<T>('POST', path, { ...extra, document }), error: null });
+			} catch (e) {
+				out.push({ name: v.name, value: null, error: messageOf(e) });
+			}
+		}
+		return out;
+	}
+
+	/** POST with the whole document, every variant included (for checks across the variants). */
+	async withFullDocument<T>(path: string, body: object): Promise<T & { source: DesignSource }> {
+		const d = this.drawing;
+		if (d?.problem)
+			throw { message: `The drawing cannot be analysed yet: ${d.problem}` } satisfies CallError;
+		const document = d ? d.document : await this.refresh();
+		const source: DesignSource = d
+			? { kind: 'drawing', base: d.base, unsaved: d.unsaved }
+			: { kind: 'revision', number: this.revision };
 		return { ...(await this.call<T>('POST', path, { ...body, document })), source };
 	}
 

@@ -24,6 +24,8 @@ export interface Overlay {
 	name: string;
 	f: number[];
 	magnitudeDb: number[];
+	/** Measured phase in degrees, when the file had a phase column. */
+	phaseDeg?: number[] | null;
 	mark: 'circle' | 'square' | 'triangle' | 'diamond';
 	tone: 'caution' | 'fault' | 'pass' | 'ink';
 }
@@ -75,6 +77,7 @@ export class ExchangeState {
 							name: m.name,
 							f: m.curve.f,
 							magnitudeDb: m.curve.magnitudeDb,
+							phaseDeg: m.curve.phaseDeg,
 							mark: MARKS[i % 4],
 							tone: TONES[Math.floor(i / 4) % 4]
 						}

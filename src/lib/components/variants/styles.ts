@@ -52,6 +52,7 @@ export const filledMarker = (s: MarkerShape) => !['cross', 'plus', 'star'].inclu
 export function markerIndices(n: number, variant: number, count: number, k = 7): number[] {
 	if (n < 2) return n ? [0] : [];
 	const out: number[] = [];
-	for (let j = 0; j < k; j++) out.push(Math.round(((j + (variant + 0.5) / Math.max(1, count)) / k) * (n - 1)));
+	for (let j = 0; j < k; j++)
+		out.push(Math.round(((j + (variant + 0.5) / Math.max(1, count)) / k) * (n - 1)));
 	return [...new Set(out)].filter((i) => i >= 0 && i < n);
 }

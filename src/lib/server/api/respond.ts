@@ -6,21 +6,24 @@ import { AccessDenied, actorOf, type Actor } from '../access';
 import { RevisionConflict, SheetStateError } from '../db/sheets';
 import { MembershipRuleError } from '../db/workspaces';
 import { InvitationError } from '../db/invitations';
+import { ApiProblem } from './problem';
 
 export const BODY_LIMITS = { small: 16_384, document: 2_000_000 };
 
-export class ApiProblem extends Error {
-	constructor(
-		readonly status: number,
-		message: string,
-		readonly details: Record<string, unknown> = {}
-	) {
-		super(message);
-	}
-}
+export { ApiProblem };
 
 export const problem = (status: number, message: string, details: Record<string, unknown> = {}) =>
-	json({ error: message, ...details }, { status, headers: { 'cache-control': 'no-store' } });
+	json(
+		{ error: message, ...details },
+		{
+			status,
+			headers: {
+				'cache-control': 'no-store',
+				// A busy server (503) or a caller over its share (429) says when to come back.
+				...(typeof details.retryAfterSeconds === 'number' ? { 'retry-after': String(details.retryAfterSeconds) } : {})
+			}
+		}
+	);
 
 function toResponse(e: unknown): Response {
 	if (e instanceof ApiProblem) return problem(e.status, e.message, e.details);

@@ -37,6 +37,14 @@ export interface Config {
 	mailFrom: string;
 	analysisThreads: number;
 	analysisTimeoutMs: number;
+	/** The most capacitors and inductors one request may analyse (their count sets the cost; the
+	 * element limit is network/limits.ts's, shared with the editor); beyond, 413 (analysis-limits.ts). */
+	analysisMaxReactive: number;
+	/** Admission control (jobs/admission.ts): analyses waiting per process, analyses one caller
+	 * may have running or waiting, and the longest wait before a waiting one is shed (503). */
+	analysisQueue: number;
+	analysisPerCaller: number;
+	analysisQueueWaitMs: number;
 	designThreads: number;
 	designTimeoutMs: number;
 	uploadLimitBytes: number;
@@ -116,6 +124,10 @@ const schema = z.object({
 		.optional(),
 	ANALYSIS_THREADS: whole(1, 256).optional(),
 	ANALYSIS_TIMEOUT_MS: whole(100, 3_600_000).optional(),
+	ANALYSIS_MAX_REACTIVE: whole(1, 10_000_000).optional(),
+	ANALYSIS_QUEUE: whole(0, 100_000).optional(),
+	ANALYSIS_PER_CALLER: whole(1, 100_000).optional(),
+	ANALYSIS_QUEUE_WAIT_MS: whole(100, 3_600_000).optional(),
 	DESIGN_THREADS: whole(1, 256).optional(),
 	DESIGN_TIMEOUT_MS: whole(100, 3_600_000).optional(),
 	POLEWISE_UPLOAD_LIMIT_BYTES: whole(1024, 1024 * MiB).optional(),
@@ -181,6 +193,10 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
 		mailFrom: e.MAIL_FROM ?? 'Polewise <no-reply@polewise.invalid>',
 		analysisThreads: e.ANALYSIS_THREADS ?? Math.max(1, os.availableParallelism() - 1),
 		analysisTimeoutMs: e.ANALYSIS_TIMEOUT_MS ?? 15_000,
+		analysisMaxReactive: e.ANALYSIS_MAX_REACTIVE ?? 1000,
+		analysisQueue: e.ANALYSIS_QUEUE ?? 16,
+		analysisPerCaller: e.ANALYSIS_PER_CALLER ?? 4,
+		analysisQueueWaitMs: e.ANALYSIS_QUEUE_WAIT_MS ?? 10_000,
 		designThreads: e.DESIGN_THREADS ?? 1,
 		designTimeoutMs: e.DESIGN_TIMEOUT_MS ?? 30_000,
 		uploadLimitBytes,

@@ -1,6 +1,7 @@
 // Data verbs for the design aids: a sheet's spec limits and tolerances, and its tolerance-run
 // jobs. A job's state changes go through the shared runner's verbs (job-rows.ts): single
 // conditional UPDATEs, so a cancel, a finishing worker and a take-over can never both win.
+import { QueryTypes } from 'sequelize';
 import { db } from './connection';
 import { config } from '../config';
 import {
@@ -121,4 +122,36 @@ export async function storedNetworkOf(id: string): Promise<unknown | null> {
 export async function queueIdOf(id: string): Promise<string | null> {
 	const row = await models().DesignJob.findByPk(id, { attributes: ['queueId'] });
 	return row?.queueId ?? null;
+}
+
+/**
+ * Runs a job has finished so far (saved chunk by chunk), in order and without gaps; a worker
+ * that takes the job over continues after them.
+ */
+export async function savedRuns<T>(id: string): Promise<T[]> {
+	const parts = await db().query<{ first: number; count: number; records: T[] }>(
+		`SELECT first, count, records FROM design_job_parts WHERE job_id = :id ORDER BY first`,
+		{ replacements: { id }, type: QueryTypes.SELECT }
+	);
+	const runs: T[] = [];
+	for (const part of parts) {
+		if (part.first !== runs.length) break;
+		runs.push(...part.records);
+	}
+	return runs;
+}
+
+/**
+ * Save one finished chunk of a running job. Runs are reproducible from (seed, run number), so a
+ * chunk written twice (a worker presumed dead that was only slow) is the same chunk: the first
+ * copy stays. Nothing is written once the job has ended.
+ */
+export async function saveRuns(id: string, first: number, records: unknown[]): Promise<void> {
+	await db().query(
+		`INSERT INTO design_job_parts (job_id, first, count, records, created_at)
+		SELECT :id, :first, :count, CAST(:records AS jsonb), now()
+		WHERE EXISTS (SELECT 1 FROM design_jobs WHERE id = :id AND state = 'running')
+		ON CONFLICT DO NOTHING`,
+		{ replacements: { id, first, count: records.length, records: JSON.stringify(records) } }
+	);
 }

@@ -48,13 +48,16 @@ export async function claimJob(
 	jobTable: string,
 	id: string,
 	workerId: string,
-	attempt: number
+	attempt: number,
+	resumable: boolean
 ): Promise<boolean> {
+	// A resumable job keeps the progress it had saved; any other starts from nothing again.
 	const n = await update(
 		`UPDATE ${table(jobTable)} SET state = 'running', attempt = :attempt, worker_id = :workerId,
-			heartbeat_at = now(), started_at = coalesce(started_at, now()), done = 0
+			heartbeat_at = now(), started_at = coalesce(started_at, now()),
+			done = CASE WHEN :resumable THEN done ELSE 0 END
 		WHERE id = :id AND state = 'queued' AND attempt = :attempt - 1 AND NOT cancel_requested`,
-		{ id, workerId, attempt }
+		{ id, workerId, attempt, resumable }
 	);
 	return n === 1;
 }
@@ -126,9 +129,13 @@ export async function finishJob(
 	return n === 1;
 }
 
+/** What the next attempt does with the work done so far, in the words people see. */
+export const nextStart = (resumable: boolean) =>
+	resumable ? 'resumes where it stopped' : 'restarted from the beginning';
+
 /**
  * Hand a running job back to the queue (a worker that is stopping): the attempt does not
- * count, and the next worker starts it again.
+ * count, and the next worker starts it again (or resumes it).
  */
 export async function releaseJob(
 	jobTable: string,
@@ -202,11 +209,12 @@ export async function settleOrphan(
 	jobTable: string,
 	orphan: Orphan,
 	maxAttempts: number,
-	how: string
+	how: string,
+	resumable: boolean
 ): Promise<'cancelled' | 'failed' | 'requeued' | null> {
 	const t = table(jobTable);
 	const where = `WHERE id = :id AND state = 'running' AND attempt = :attempt`;
-	const replacements = { id: orphan.id, attempt: orphan.attempt, how };
+	const replacements = { id: orphan.id, attempt: orphan.attempt, how, next: nextStart(resumable) };
 	if (orphan.cancelRequested) {
 		const n = await update(
 			`UPDATE ${t} SET state = 'cancelled', finished_at = now(),
@@ -225,7 +233,7 @@ export async function settleOrphan(
 	}
 	const n = await update(
 		`UPDATE ${t} SET state = 'queued', worker_id = NULL, queue_id = NULL, heartbeat_at = now(),
-			recovery = 'attempt ' || attempt || ' stopped (' || :how || ') at ' || done || ' of ' || total || '; restarted from the beginning by another worker' ${where}`,
+			recovery = 'attempt ' || attempt || ' stopped (' || :how || ') at ' || to_char(done, 'FM999,999,990') || ' of ' || to_char(total, 'FM999,999,990') || '; ' || :next ${where}`,
 		replacements
 	);
 	return n ? 'requeued' : null;

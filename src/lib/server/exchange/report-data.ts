@@ -17,6 +17,7 @@ import {
 import { deviation, type Deviation } from '../../exchange';
 import type { Analysis } from '../../solver';
 import { revisionAnalysis, revisionFromQuery } from './stored-results';
+import { reportVariants } from './report-variants';
 
 export async function reportData(actor: Actor, sheetId: string, url: URL) {
 	const { sheet, workspace, revision, role } = await revisionFromQuery(actor, sheetId, url, 'read');
@@ -50,6 +51,10 @@ export async function reportData(actor: Actor, sheetId: string, url: URL) {
 		};
 	else spec = { outcome: checkSpec(limits, figuresOfAnalysis(analysis, limits)), note: null };
 
+	// A sheet with variants: each variant's analysis, and every variant against the limits and
+	// the specs across variants (null without variants).
+	const variants = await reportVariants(revision.document, sheetId);
+
 	const { threads } = await commentThreads(actor, sheetId);
 	const open = threads.filter((t) => !t.resolvedAt && !t.deletedAt);
 	const review = await reviewOverview(actor, sheetId);
@@ -67,6 +72,7 @@ export async function reportData(actor: Actor, sheetId: string, url: URL) {
 		},
 		analysis,
 		analysisError,
+		variants,
 		overlays,
 		spec,
 		comments: open.map((t) => ({

@@ -5,6 +5,7 @@ import type { Analysis, AnalyzeOptions } from '../../solver';
 import type { Actor } from '../access';
 import { ApiProblem } from '../api/respond';
 import { analyzeInPool } from '../jobs/analysis-pool';
+import { requireInteractive } from '../analysis-limits';
 import { readRevision } from '../sharing/sheet-actions';
 
 export async function revisionAnalysis(
@@ -12,6 +13,7 @@ export async function revisionAnalysis(
 	revision: number,
 	options?: AnalyzeOptions
 ): Promise<Analysis> {
+	requireInteractive(document, `revision ${revision}`);
 	const outcome = await analyzeInPool({ document, options });
 	if (!outcome.ok) throw new ApiProblem(422, outcome.error.error, { ...outcome.error, revision });
 	return outcome.analysis as Analysis;

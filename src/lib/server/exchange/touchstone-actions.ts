@@ -9,13 +9,14 @@ import {
 	fileStem,
 	frequencyList,
 	TOUCHSTONE_VERSIONS,
-	twoPort,
 	TwoPortError,
 	writeTouchstone,
 	yFromS,
 	zFromS
 } from '../../exchange';
 import { revisionFromQuery } from './stored-results';
+import { runSolverTask } from '../jobs/analysis-pool';
+import type { TwoPortOutcome } from '../workers/analyze.worker';
 
 export const TOUCHSTONE_LIMITS = { points: 1001, elements: 400, listLength: 1001 };
 
@@ -119,8 +120,18 @@ export async function touchstoneAs(actor: Actor, sheetId: string, url: URL, q: T
 		points: q.points,
 		spacing: q.spacing
 	});
+	// In the analysis threads, under the same admission and limits as an analysis: up to a
+	// thousand complex solves must not hold the server's main thread.
+	const outcome = await runSolverTask<TwoPortOutcome>('twoPortTask', {
+		document: revision.document,
+		...ports,
+		z0: q.z0,
+		frequencies
+	});
+	if (!outcome.ok)
+		throw new ApiProblem(422, outcome.error.message, { code: 'bad_ports', ...outcome.error.details, error: outcome.error.message });
 	try {
-		const t = twoPort({ document: revision.document, ...ports, z0: q.z0, frequencies });
+		const t = outcome.result;
 		let values = t.s;
 		if (q.parameter !== 'S') {
 			const c = q.parameter === 'Z' ? zFromS(t) : yFromS(t);

@@ -7,34 +7,48 @@ import { ApiProblem } from '../api/respond';
 import { LIMITS } from '../analysis-request';
 import { workerFile } from './worker-file';
 import { config } from '../config';
+import { requireInteractive } from '../analysis-limits';
+import { currentCaller } from '../request-caller';
+import { Admission, Shed } from './admission';
 
 let pool: Piscina | null = null;
 
 export function analysisPool(): Piscina {
 	if (!pool) {
 		const { filename, execArgv } = workerFile('analyze', import.meta.url);
+		const threads = config().analysisThreads;
 		pool = new Piscina({
 			filename,
 			execArgv,
-			minThreads: 1,
-			maxThreads: config().analysisThreads,
+			// Every thread ready from the start: admission hands a task over only when a thread
+			// is free, and its time limit starts then, so starting a thread must not count.
+			minThreads: threads,
+			maxThreads: threads,
 			idleTimeout: 60_000,
-			// Bounded queue: beyond this the server answers 503 instead of piling up work.
+			// Admission control (below) keeps this queue empty; the bound is a last guard.
 			maxQueue: 64
 		});
 	}
 	return pool;
 }
 
+/** Who may run when: one task per thread, fair share per caller, shedding (jobs/admission.ts). */
+export const analysisAdmission = new Admission('analyses', () => {
+	const c = config();
+	return { concurrency: c.analysisThreads, maxQueue: c.analysisQueue, perCaller: c.analysisPerCaller, maxWaitMs: c.analysisQueueWaitMs };
+});
+
 /**
- * Run one analysis with a time limit; an overrun ends that worker thread (503), and so does a
- * full queue (503 with Retry-After) — the server stays responsive either way.
+ * Run one analysis: refused up front (413) when the network is too large for a request,
+ * admitted by turn (503/429 with Retry-After when the server is busy), then run with a time
+ * limit that counts its own running time only; an overrun ends that worker thread (503).
  */
 export async function analyzeInPool(
 	task: AnalyzeTask,
 	timeoutMs = LIMITS.timeoutMs
 ): Promise<AnalyzeOutcome> {
-	return runInPool(task, undefined, timeoutMs) as Promise<AnalyzeOutcome>;
+	requireInteractive(task.document);
+	return runAdmitted(task, undefined, timeoutMs) as Promise<AnalyzeOutcome>;
 }
 
 /** Several networks (a sheet's variants) as one task, one outcome each, under one time limit. */
@@ -42,10 +56,32 @@ export async function analyzeManyInPool(
 	task: { documents: unknown[]; options?: AnalyzeTask['options'] },
 	timeoutMs = LIMITS.timeoutMs
 ): Promise<AnalyzeOutcome[]> {
-	return runInPool(task, 'runMany', timeoutMs) as Promise<AnalyzeOutcome[]>;
+	task.documents.forEach((d, i) => requireInteractive(d, task.documents.length > 1 ? `network ${i + 1}` : undefined));
+	return runAdmitted(task, 'runMany', timeoutMs) as Promise<AnalyzeOutcome[]>;
 }
 
-async function runInPool(task: unknown, name: string | undefined, timeoutMs: number): Promise<unknown> {
+/** Any other solver task in the analysis threads (e.g. two-port parameters for Touchstone). */
+export async function runSolverTask<T>(name: string, task: { document: unknown; [more: string]: unknown }, timeoutMs = LIMITS.timeoutMs): Promise<T> {
+	requireInteractive(task.document);
+	return runAdmitted(task, name, timeoutMs) as Promise<T>;
+}
+
+async function runAdmitted(task: unknown, name: string | undefined, timeoutMs: number): Promise<unknown> {
+	const caller = currentCaller();
+	try {
+		return await analysisAdmission.run(caller?.key ?? null, () => runTimed(task, name, timeoutMs), caller?.signal);
+	} catch (e) {
+		if (e instanceof Shed) throw new ApiProblem(e.status, e.message, { code: e.code, retryAfterSeconds: e.retryAfterSeconds });
+		throw e;
+	}
+}
+
+async function runTimed(task: unknown, name: string | undefined, timeoutMs: number): Promise<unknown> {
+	// A thread ended by an overrun is replaced, and starting one (loading the solver) must not
+	// count either: a no-op round trip waits until a thread is up. Admission keeps one task per
+	// thread, so the task below then starts at once.
+	await analysisPool().run(null, { name: 'ready' });
+	// The clock starts here, when a thread is free: waiting in line never counts.
 	const signal = AbortSignal.timeout(timeoutMs);
 	try {
 		return await analysisPool().run(task, { signal, ...(name ? { name } : {}) });
@@ -53,13 +89,14 @@ async function runInPool(task: unknown, name: string | undefined, timeoutMs: num
 		if (signal.aborted) {
 			throw new ApiProblem(
 				503,
-				`the analysis took longer than ${timeoutMs / 1000} s and was stopped`,
+				`the analysis ran for ${timeoutMs / 1000} s, the limit for one request, and was stopped: this network takes too long to analyse here`,
 				{ code: 'timeout' }
 			);
 		}
 		if (error instanceof Error && /queue is at limit/i.test(error.message)) {
 			throw new ApiProblem(503, 'the server is busy with other analyses; try again in a moment', {
-				code: 'busy'
+				code: 'busy',
+				retryAfterSeconds: analysisAdmission.retryAfterSeconds()
 			});
 		}
 		throw error;

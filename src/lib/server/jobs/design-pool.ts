@@ -6,6 +6,9 @@ import { workerFile } from './worker-file';
 import type { DesignOutcome, DesignTask } from '../workers/design.worker';
 import { ApiProblem } from '../api/respond';
 import { config } from '../config';
+import { requireInteractive } from '../analysis-limits';
+import { currentCaller } from '../request-caller';
+import { Admission, Shed } from './admission';
 
 let pool: Piscina | null = null;
 
@@ -26,40 +29,92 @@ export function designPool(): Piscina {
 	return pool;
 }
 
-/** One design task under a time limit; a refusal by the solver or the design aids is 422. */
+/** The same admission rules as analyses (jobs/admission.ts), over the design threads. Tolerance
+ * runs from the job queue have no caller: they wait their turn and are never shed. */
+export const designAdmission = new Admission('design runs', () => {
+	const c = config();
+	return {
+		concurrency: c.designThreads,
+		maxQueue: c.analysisQueue,
+		perCaller: c.analysisPerCaller,
+		maxWaitMs: c.analysisQueueWaitMs
+	};
+});
+
+/** One design task: too-large networks refused (413), admitted by turn, then run under a time
+ * limit that counts running time only; a refusal by the solver or the design aids is 422.
+ * `stop`: a background job that must end (cancelled, taken over) leaves the line or ends its
+ * chunk at once. */
 export async function runDesign(
 	task: DesignTask,
 	timeoutMs = config().designTimeoutMs,
-	stop?: AbortSignal
+	stop?: AbortSignal,
+	/** Objects moved to the worker (e.g. a progress MessagePort). */
+	transferList?: Transferable[]
 ): Promise<unknown> {
-	const timeout = AbortSignal.timeout(timeoutMs);
-	// `stop`: a background job that must end (cancelled, taken over) ends its chunk at once.
-	const signal = stop ? AbortSignal.any([timeout, stop]) : timeout;
+	const caller = currentCaller();
+	// Within a request, the interactive size limit; a background job (no caller) is where a
+	// large network belongs, so it is not held to it.
+	if (caller) requireInteractive((task as { document?: unknown }).document);
 	let outcome: DesignOutcome;
 	try {
-		outcome = (await designPool().run(task, { signal })) as DesignOutcome;
-	} catch (error) {
+		outcome = await designAdmission.run(
+			caller?.key ?? null,
+			() => runTimed(task, timeoutMs, stop, transferList),
+			stop ?? caller?.signal
+		);
+	} catch (e) {
 		if (stop?.aborted) throw stop.reason;
-		if (signal.aborted)
-			throw new ApiProblem(
-				503,
-				`the ${task.kind} took longer than ${timeoutMs / 1000} s and was stopped`,
-				{ code: 'timeout' }
-			);
-		if (error instanceof Error && /queue is at limit/i.test(error.message)) {
-			throw new ApiProblem(
-				503,
-				'the server is busy with other design runs; try again in a moment',
-				{ code: 'busy' }
-			);
-		}
-		throw error;
+		if (e instanceof Shed)
+			throw new ApiProblem(e.status, e.message, {
+				code: e.code,
+				retryAfterSeconds: e.retryAfterSeconds
+			});
+		throw e;
 	}
 	if (!outcome.ok) {
 		const { error, ...where } = outcome.error;
 		throw new ApiProblem(422, error, where);
 	}
 	return outcome.value;
+}
+
+async function runTimed(
+	task: DesignTask,
+	timeoutMs: number,
+	stop?: AbortSignal,
+	transferList?: Transferable[]
+): Promise<DesignOutcome> {
+	// A replaced thread's start-up does not count either (see analysis-pool.ts).
+	await designPool().run(null, { name: 'ready' });
+	// The clock starts here, when a thread is free: waiting in line never counts.
+	const timeout = AbortSignal.timeout(timeoutMs);
+	const signal = stop ? AbortSignal.any([timeout, stop]) : timeout;
+	try {
+		return (await designPool().run(task, {
+			signal,
+			...(transferList ? { transferList: transferList as never } : {})
+		})) as DesignOutcome;
+	} catch (error) {
+		if (stop?.aborted) throw stop.reason;
+		if (signal.aborted)
+			throw new ApiProblem(
+				503,
+				`the ${task.kind} ran for ${timeoutMs / 1000} s, the limit for one request, and was stopped`,
+				{ code: 'timeout' }
+			);
+		if (error instanceof Error && /queue is at limit/i.test(error.message)) {
+			throw new ApiProblem(
+				503,
+				'the server is busy with other design runs; try again in a moment',
+				{
+					code: 'busy',
+					retryAfterSeconds: designAdmission.retryAfterSeconds()
+				}
+			);
+		}
+		throw error;
+	}
 }
 
 export async function closeDesignPool(): Promise<void> {

@@ -1,8 +1,9 @@
 // Tolerance runs (Monte Carlo) as background jobs: one job kind of the shared runner
 // (runner.ts: claiming, heartbeat, take-over after a crash, cancel, failure), whose rows are
 // the design_jobs table (what people see: progress, cancel flag, result, revision). The work
-// goes chunk by chunk through the design worker pool, reporting progress after each chunk.
-import { getDesignJob, storedNetworkOf } from '../db/design-jobs';
+// goes chunk by chunk through the design worker pool, saving each chunk (design_job_parts) and
+// reporting progress after it, so a job taken over after a crash resumes where it stopped.
+import { getDesignJob, savedRuns, saveRuns, storedNetworkOf } from '../db/design-jobs';
 import { getRevision } from '../db/sheets';
 import { runDesign } from './design-pool';
 import { ApiProblem } from '../api/respond';
@@ -31,14 +32,18 @@ async function runToleranceJob({
 		(await storedNetworkOf(id)) ?? (await getRevision(job.sheetId, job.revision))?.document;
 	if (!document) throw new Error(`revision ${job.revision} of the sheet no longer exists`);
 	const { request } = job.request as StoredRequest;
-	const records: RunRecord[] = [];
-	for (let from = 0; from < request.runs; from += RUNS_PER_CHUNK) {
+	// A job taken over from a worker that stopped continues after the runs it saved; run i draws
+	// from its own stream of (seed, i), so the result is the one an uninterrupted run gives.
+	const records = await savedRuns<RunRecord>(id);
+	if (records.length) await progress(records.length);
+	for (let from = records.length; from < request.runs; from += RUNS_PER_CHUNK) {
 		const to = Math.min(request.runs, from + RUNS_PER_CHUNK);
 		const chunk = (await runDesign(
 			{ kind: 'mc-chunk', key: id, document, request, from, to },
 			CHUNK_TIMEOUT_MS,
 			signal
 		)) as RunRecord[];
+		await saveRuns(id, from, chunk);
 		records.push(...chunk);
 		await progress(records.length);
 	}
@@ -53,7 +58,8 @@ async function runToleranceJob({
 export const toleranceJobs = defineJobKind({
 	queue: DESIGN_QUEUE,
 	table: 'design_jobs',
-	run: runToleranceJob
+	run: runToleranceJob,
+	resumable: true
 });
 
 export async function enqueueDesignJob(jobId: string): Promise<string> {

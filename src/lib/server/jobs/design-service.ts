@@ -14,6 +14,9 @@ import {
 } from '../db/design-jobs';
 import { requestCancel } from '../db/job-rows';
 import type { DesignSettings, SpecLimits, ElementTolerance } from '../../network/design-schema';
+import type { NetworkDocument } from '../../network/schema';
+import { hasVariants } from '../../network/variants';
+import type { VariantSpecOutcome } from '../../design/variant-spec';
 import { ApiProblem } from '../api/respond';
 import { checkDocument, LIMITS } from '../analysis-request';
 import { runDesign } from './design-pool';
@@ -163,7 +166,12 @@ export async function saveSettingsOf(
 /** Pass/fail of a stored revision against the sheet's spec limits (for comparisons and reviews). */
 export async function specOfRevision(actor: Actor, sheetId: string, number?: number) {
 	const { revision } = await readRevision(actor, sheetId, number, 'analyze');
-	const { spec } = await getDesignSettings(sheetId);
+	const { spec, across } = await getDesignSettings(sheetId);
 	const outcome = await runDesign({ kind: 'spec', document: revision.document, spec });
-	return { sheetId, revision: revision.number, spec, ...(outcome as object) };
+	// A sheet with variants is judged per variant and across them too; the base judgement above
+	// stays for callers that know one network only.
+	const variants = hasVariants(revision.document as NetworkDocument)
+		? ((await runDesign({ kind: 'variant-spec', document: revision.document, spec, across: across ?? [] })) as VariantSpecOutcome)
+		: null;
+	return { sheetId, revision: revision.number, spec, across: across ?? [], ...(outcome as object), variants };
 }

@@ -41,6 +41,11 @@ export interface JobKind {
 	table: string;
 	/** Do the work; resolves to the result stored with the job, or throws the reason it failed. */
 	run(ctx: JobContext): Promise<Record<string, unknown>>;
+	/**
+	 * The kind saves its progress and continues from it when a job is taken over (its `done`
+	 * is kept); otherwise every attempt starts from nothing.
+	 */
+	resumable?: boolean;
 }
 
 export class JobStopped extends Error {
@@ -79,7 +84,8 @@ async function runOne(kind: JobKind, id: string): Promise<void> {
 	if (attempt === null) return; // cancelled meanwhile, or another worker has it
 	// Lock first, then claim: a running row always has its live worker's lock.
 	const release = await holdJobLock(id, attempt);
-	if (!(await rows.claimJob(kind.table, id, WORKER_ID, attempt))) return void (await release());
+	if (!(await rows.claimJob(kind.table, id, WORKER_ID, attempt, !!kind.resumable)))
+		return void (await release());
 	const controller = new AbortController();
 	let why: JobStopped['why'] | null = null;
 	const stop = (reason: JobStopped['why']) => {
@@ -126,7 +132,7 @@ async function runOne(kind: JobKind, id: string): Promise<void> {
 					id,
 					WORKER_ID,
 					attempt,
-					`attempt ${attempt} was handed back by a worker that was stopping; restarted from the beginning by another worker`
+					`attempt ${attempt} was handed back by a worker that was stopping; ${rows.nextStart(!!kind.resumable)}`
 				)
 			)
 				await enqueueJob(kind, id).catch(() => undefined); // the sweep re-sends it otherwise
@@ -152,7 +158,7 @@ async function sweepKind(kind: JobKind, onlyId?: string): Promise<void> {
 		const how = orphan.processEnded
 			? 'its process ended'
 			: `no heartbeat for over ${staleSeconds()} s`;
-		const did = await rows.settleOrphan(kind.table, orphan, jobMaxAttempts, how);
+		const did = await rows.settleOrphan(kind.table, orphan, jobMaxAttempts, how, !!kind.resumable);
 		if (!did) continue;
 		console.log(`jobs: ${kind.queue} ${orphan.id} attempt ${orphan.attempt}: ${how}; ${did}`);
 		// Its old entry is still "active" in pg-boss: close it so the queue's count stays true.

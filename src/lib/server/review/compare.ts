@@ -7,6 +7,7 @@ import { analyzeInPool } from '../jobs/analysis-pool';
 import { readRevision } from '../sharing/sheet-actions';
 import { outputSignature, sameValue, wiring } from './wiring';
 import type { Actor } from '../access';
+import { compareVariants } from './variant-compare';
 
 export interface FieldChange {
 	field: 'type' | 'value' | 'nodes' | 'control';
@@ -94,7 +95,7 @@ export interface Figure {
 	changePct: number | null;
 }
 
-function figures(a: Analysis | null, b: Analysis | null): Figure[] {
+export function figureChanges(a: Analysis | null, b: Analysis | null): Figure[] {
 	const rows: [string, string, string, (x: Analysis) => number | null][] = [
 		['dcGain', 'DC gain', '', (x) => x.dcGain],
 		['highFrequencyGain', 'Gain at high frequency', '', (x) => x.highFrequencyGain],
@@ -132,6 +133,8 @@ export async function compareRevisions(actor: Actor, sheetId: string, from: numb
 		elements: diffElements(da, db),
 		poles: xa && xb ? matchSingularities(xa.poles, xb.poles) : [],
 		zeros: xa && xb ? matchSingularities(xa.zeros, xb.zeros) : [],
-		figures: figures(xa, xb)
+		figures: figureChanges(xa, xb),
+		// A sheet with variants: the same, variant by variant (null without variants).
+		variants: await compareVariants(da, db)
 	};
 }

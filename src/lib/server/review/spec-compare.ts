@@ -7,6 +7,7 @@ import { getDesignSettings } from '../db/design-jobs';
 import { specOfRevision } from '../jobs/design-service';
 import { reviewOverview } from './review-actions';
 import type { Actor } from '../access';
+import type { VariantSpecOutcome } from '../../design/cross-spec';
 
 export interface SpecSide {
 	value: number | null;
@@ -35,6 +36,9 @@ export interface SpecComparison {
 	/** Why a side could not be judged (its network does not analyze), else null. */
 	errorBefore: string | null;
 	errorAfter: string | null;
+	/** A sheet with variants: every variant and the specs across them, on each side (else null). */
+	variantsBefore: VariantSpecOutcome | null;
+	variantsAfter: VariantSpecOutcome | null;
 }
 
 const side = (c: SpecCheck | undefined): SpecSide | null =>
@@ -56,7 +60,7 @@ export function pairSpecChecks(before: SpecCheck[], after: SpecCheck[]): SpecLin
 	});
 }
 
-type Judged = { checks: SpecCheck[]; pass: boolean } | { error: string };
+type Judged = { checks: SpecCheck[]; pass: boolean; variants?: VariantSpecOutcome | null } | { error: string };
 
 // A revision whose network the solver refuses (422) is reported, not thrown: the other side
 // and the rest of the comparison still stand.
@@ -105,7 +109,9 @@ export async function compareSpec(
 		passBefore: verdict(a),
 		passAfter: verdict(b),
 		errorBefore: why(a),
-		errorAfter: why(b)
+		errorAfter: why(b),
+		variantsBefore: a && !('error' in a) ? (a.variants ?? null) : null,
+		variantsAfter: b && !('error' in b) ? (b.variants ?? null) : null
 	};
 }
 

@@ -2,6 +2,7 @@
 // (n1, n2…), so "the same wiring" means each terminal touches the same other terminals, counting
 // only parts both revisions have (a new part is reported as added, not as rewiring everything).
 // Values compare as numbers, so "1n", "1 n" and 1e-9 are the same capacitor.
+import { canonicalJson } from '../../exchange/canonical-json';
 import type { NetworkDocument, NetworkElement } from '../../network/schema';
 import { parseValue } from '../../solver';
 
@@ -51,6 +52,8 @@ export function elementUnchanged(id: string, a: NetworkDocument, b: NetworkDocum
 export function sameNetwork(a: NetworkDocument, b: NetworkDocument): boolean {
 	if (a.elements.length !== b.elements.length || a.input !== b.input) return false;
 	if (!a.elements.every((e) => elementUnchanged(e.id, a, b) === true)) return false;
+	// The variants belong to the design a sign-off covers: a changed override is a changed network.
+	if (canonicalJson(a.variants ?? null) !== canonicalJson(b.variants ?? null)) return false;
 	return outputSignature(a) === outputSignature(b);
 }
 

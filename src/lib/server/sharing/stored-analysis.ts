@@ -4,19 +4,15 @@
 import { json } from '@sveltejs/kit';
 import { problem } from '../api/respond';
 import { analyzeInPool } from '../jobs/analysis-pool';
+import { requireInteractive } from '../analysis-limits';
 import type { Actor } from '../access';
 import { readRevision } from './sheet-actions';
 
-// Stored documents may hold up to 5000 elements; analysis in a request is held to fewer so one
-// call cannot hold the server for long (the POST /api/analyze limit is the same kind of bound).
-export const ANALYSIS_ELEMENT_LIMIT = 3000;
-
 export async function analysisResponse(actor: Actor, sheetId: string, number?: number): Promise<Response> {
 	const { revision } = await readRevision(actor, sheetId, number, 'analyze');
-	const count = (revision.document as { elements?: unknown[] }).elements?.length ?? 0;
-	if (count > ANALYSIS_ELEMENT_LIMIT) {
-		return problem(422, `Revision ${revision.number} has ${count} elements; analysis here is limited to ${ANALYSIS_ELEMENT_LIMIT}.`, { code: 'too_large' });
-	}
+	// Stored documents may hold more than a request may analyse: the same limits as
+	// POST /api/analyze (analysis-limits.ts), 413 with the limit, before anything is queued.
+	requireInteractive(revision.document, `revision ${revision.number}`);
 	// In the worker pool like POST /api/analyze: a large stored network never blocks the server.
 	const outcome = await analyzeInPool({ document: revision.document });
 	if (!outcome.ok) {

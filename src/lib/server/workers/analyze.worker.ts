@@ -2,6 +2,11 @@
 // Errors come back as plain data: class instances do not survive the trip between threads.
 import { analyze, SolverError } from '../../solver';
 import type { AnalyzeOptions } from '../../solver';
+import { twoPort, TwoPortError, type TwoPortRequest, type TwoPortResult } from '../../exchange/two-port';
+import { yieldToServerThread } from './thread-priority';
+
+// Pages and saves first: this thread computes at a lower priority than the server's.
+yieldToServerThread();
 
 export interface AnalyzeTask {
 	document: unknown;
@@ -34,4 +39,24 @@ export function runMany({
 	options?: AnalyzeOptions;
 }): AnalyzeOutcome[] {
 	return documents.map((document) => run({ document, options }));
+}
+
+export type TwoPortOutcome =
+	| { ok: true; result: TwoPortResult }
+	| { ok: false; error: { message: string; details: TwoPortError['details'] } };
+
+/** Two-port parameters over frequency (the Touchstone export): the same threads and limits as
+ * an analysis, because it is the same kind of work (one complex solve per frequency). */
+export function twoPortTask(request: TwoPortRequest): TwoPortOutcome {
+	try {
+		return { ok: true, result: twoPort(request) };
+	} catch (error) {
+		if (error instanceof TwoPortError) return { ok: false, error: { message: error.message, details: error.details } };
+		throw error;
+	}
+}
+
+/** A no-op the pool answers once a thread is up (the pools wait for it before starting a task's clock). */
+export function ready(): boolean {
+	return true;
 }

@@ -18,7 +18,14 @@ import {
 import { evaluateWith, openVariants, type Variants } from '../../design/variants';
 import { checkSpec, optionsFor } from '../../design/spec-limits';
 import { metricsOf } from '../../design/evaluate';
-import type { SpecLimits } from '../../network/design-schema';
+import type { CrossSpec, SpecLimits } from '../../network/design-schema';
+import type { NetworkDocument } from '../../network/schema';
+import { VariantError } from '../../network/variants';
+import { judgeVariants } from '../../design/variant-spec';
+import { yieldToServerThread } from './thread-priority';
+
+// Pages and saves first: this thread computes at a lower priority than the server's.
+yieldToServerThread();
 
 export type DesignTask =
 	| { kind: 'sweep'; document: unknown; request: SweepRequest }
@@ -26,6 +33,7 @@ export type DesignTask =
 	| { kind: 'sensitivity'; document: unknown }
 	| { kind: 'worst-case'; document: unknown; request: WorstCaseRequest }
 	| { kind: 'spec'; document: unknown; spec: SpecLimits }
+	| { kind: 'variant-spec'; document: unknown; spec: SpecLimits; across: CrossSpec[] }
 	| {
 			kind: 'mc-chunk';
 			key: string;
@@ -72,6 +80,9 @@ function run(task: DesignTask): unknown {
 			const m = evaluateWith(openVariants(task.document), {}, optionsFor(task.spec));
 			return { ...checkSpec(task.spec, m), figures: metricsOf(m) };
 		}
+		case 'variant-spec':
+			// The document has passed the front door's shape check (checkDesignNetwork).
+			return judgeVariants(task.document as NetworkDocument, task.spec, task.across);
 		case 'mc-chunk': {
 			const v = variantsFor(task.key, task.document);
 			checkTolerances(v, task.request.tolerances);
@@ -91,6 +102,13 @@ export default function handle(task: DesignTask): DesignOutcome {
 	} catch (error) {
 		if (error instanceof SolverError || error instanceof DesignError)
 			return { ok: false, error: error.toJSON() };
+		if (error instanceof VariantError)
+			return { ok: false, error: { error: error.message, code: error.code, ...(error.where.element ? { element: error.where.element } : {}) } };
 		throw error;
 	}
+}
+
+/** A no-op the pool answers once a thread is up (the pools wait for it before starting a task's clock). */
+export function ready(): boolean {
+	return true;
 }

@@ -194,6 +194,7 @@ export function analyzeLarge(
 		poles,
 		zeros: [],
 		pairs: [],
+		doublets: [], // no zeros at this size, so no doublets
 		dcGain,
 		highFrequencyGain: null,
 		timeConstants: {
@@ -224,7 +225,7 @@ export function analyzeLarge(
 	progress(1, 'done');
 	return {
 		...result,
-		warnings: analysisWarnings(net, result, extra),
+		warnings: capWarnings(analysisWarnings(net, result, extra)),
 		meta: {
 			elements: net.elements.length,
 			nodes: net.nodeNames.length + 1,
@@ -306,7 +307,7 @@ function reducedStep(
 	}
 	if (!factor) return null;
 	let worst = Infinity;
-	for (const q of [30, 60, 120]) {
+	for (const q of [30, 60, 120, 240]) {
 		const md = reducedModal(primaModel(mna, factor, s0, q, net.nodeNames.length));
 		if (!md) continue;
 		worst = reducedModelError(md, sw);
@@ -334,4 +335,24 @@ function reducedStep(
 		message: `the reduced model for the step response misses the direct frequency response by ${Number.isFinite(worst) ? (worst * 100).toPrecision(2) + ' %' : 'an unknown amount'} (more than ${REDUCED_MODEL_TOLERANCE * 100} %); the step response is not reported`
 	});
 	return null;
+}
+
+/** Per warning code, the first WARNINGS_PER_CODE in full, then one line counting the rest: an
+ *  extracted network can have thousands of dangling nodes, and the answer must stay readable. */
+export const WARNINGS_PER_CODE = 20;
+function capWarnings(list: Warning[]): Warning[] {
+	const seen = new Map<string, number>();
+	const out: Warning[] = [];
+	for (const w of list) {
+		const n = (seen.get(w.code) ?? 0) + 1;
+		seen.set(w.code, n);
+		if (n <= WARNINGS_PER_CODE) out.push(w);
+	}
+	for (const [code, n] of seen)
+		if (n > WARNINGS_PER_CODE)
+			out.push({
+				code,
+				message: `${n - WARNINGS_PER_CODE} more warnings of this kind (${code}) are not listed`
+			});
+	return out;
 }

@@ -4,6 +4,7 @@ import { z } from 'zod';
 import {
 	elementToleranceSchema,
 	specLimitsSchema,
+	crossSpecSchema,
 	MONTE_CARLO_MAX_RUNS
 } from '$lib/network/design-schema';
 import { SERIES } from '$lib/design/preferred-values';
@@ -62,6 +63,13 @@ export const worstCaseBody = z.object({
 });
 
 export const specBody = z.object({ document: z.unknown(), spec: specLimitsSchema });
+
+/** Every variant against the limits, and the cross-variant specs (docs/design-aids.md). */
+export const variantSpecBody = z.object({
+	document: z.unknown(),
+	spec: specLimitsSchema.default({}),
+	across: z.array(crossSpecSchema).max(20).default([])
+});
 
 export const monteCarloBody = z.object({
 	sheetId: z.uuid('sheetId must be a sheet id'),

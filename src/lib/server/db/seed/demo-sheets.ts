@@ -1,3 +1,5 @@
+import type { DesignSettings } from '../../../network/design-schema';
+
 // Demo designs of the invented "Kestrel Ridge Instruments" lab. Values are our own, chosen to
 // show what Polewise explains; none is copied from a product or a publication.
 
@@ -94,8 +96,34 @@ export const antiAliasFilter = {
 	output: { node: 'out', reference: 'gnd' }
 };
 
-export const demoSheets = [
-	{ name: 'Digitizer input divider, three ranges', document: digitizerDividerRanges },
+/**
+ * The divider's spec: its limits (every variant) and the specs across its variants — 10 MΩ in
+ * every position and cable, attenuation steps of 1 : 10 : 100, and the same input capacitance
+ * in every range position (per cable). As seeded, the positions are not yet compensated, so the
+ * last one fails until each position's Ctop is solved.
+ */
+export const dividerSettings: DesignSettings = {
+	spec: { bandwidthMin: 20e6, inputResistanceMin: 9e6 },
+	across: [
+		{ kind: 'equal', figure: 'inputResistance', tolerance: 0.001 },
+		{
+			kind: 'ratio',
+			figure: 'attenuation',
+			group: 'Range',
+			ratios: { '10:1': 1, '100:1': 10, '1000:1': 100 },
+			tolerance: 0.005
+		},
+		{ kind: 'equal', figure: 'inputCapacitance', group: 'Range', tolerance: 0.05 }
+	],
+	tolerances: { elements: [], runs: 1000, seed: 1 }
+};
+
+export const demoSheets: {
+	name: string;
+	document: { elements: { id: string; type: string; value?: string | number }[] };
+	settings?: DesignSettings;
+}[] = [
+	{ name: 'Digitizer input divider, three ranges', document: digitizerDividerRanges, settings: dividerSettings },
 	{ name: 'Photodiode TIA, 100 kΩ', document: photodiodeTia },
 	{ name: 'Anti-alias filter, 100 kHz', document: antiAliasFilter }
 ];

@@ -5,6 +5,7 @@ import { db } from '../connection';
 import { models } from '../models';
 import { createSheet } from '../sheets';
 import { demoSheets } from './demo-sheets';
+import { saveDesignSettings } from '../design-jobs';
 
 export const DEMO_USERS = [
 	{ email: 'demo@polewise.test', name: 'Mira Castell', password: 'polewise-demo', role: 'owner' as const },
@@ -27,7 +28,8 @@ export async function seedDemo(): Promise<{ created: boolean }> {
 		return { workspaceId: workspace.id, userId: ownerId };
 	});
 	for (const sheet of demoSheets) {
-		await createSheet({ ...owner, name: sheet.name, document: sheet.document });
+		const made = await createSheet({ ...owner, name: sheet.name, document: sheet.document });
+		if (sheet.settings) await saveDesignSettings(made.sheet.id, owner.userId, sheet.settings);
 	}
 	return { created: true };
 }

@@ -1,0 +1,21 @@
+// Solver threads yield the CPU to the thread that serves requests. Under a saturating analysis
+// load the event loop — pages, saves, /api/health — must still get a core at once; on Linux a
+// thread has its own nice value, so each worker thread lowers its own (the main thread keeps
+// the process's). Elsewhere, or without permission, nothing changes.
+import { readlinkSync } from 'node:fs';
+import { setPriority } from 'node:os';
+
+/** Nice 10: as the shell's `nice -n 10`; the server thread stays at the process's own value. */
+export const WORKER_NICE = 10;
+
+export function yieldToServerThread(nice = WORKER_NICE): boolean {
+	try {
+		// "/proc/thread-self" → "<pid>/task/<tid>": the id of this very thread.
+		const tid = Number(readlinkSync('/proc/thread-self').split('/').pop());
+		if (!Number.isInteger(tid) || tid <= 0) return false;
+		setPriority(tid, nice);
+		return true;
+	} catch {
+		return false;
+	}
+}

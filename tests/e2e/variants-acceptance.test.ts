@@ -1,0 +1,52 @@
+// The issue's acceptance on the lab's divider: three range positions and two cable options as
+// one sheet, all six variants side by side with the specs across them; solving the compensation
+// of every range position at once makes "the same input capacitance in every position" hold on
+// the 1.2 m cable (closed form: C_top in series with the shunt, 6.0 pF in each position).
+import { expect, test } from '@playwright/test';
+import { analysis, newSheet, openSheet, signUpFresh } from './editor-helpers';
+import { digitizerDividerRanges, dividerSettings } from '../../src/lib/server/db/seed/demo-sheets';
+
+test('six variants side by side, specs across them, compensation solved per position', async ({
+	page
+}) => {
+	test.setTimeout(120_000);
+	await signUpFresh(page, 'Mira Okonkwo');
+	const id = await newSheet(page, digitizerDividerRanges, 'Divider, three ranges');
+	const put = await page.request.put(`/api/design/sheets/${id}/settings`, {
+		data: dividerSettings
+	});
+	expect(put.status()).toBe(200);
+	await openSheet(page, id);
+	await expect(analysis(page)).toHaveAttribute('data-analysis-status', 'done');
+
+	const table = page.getByTestId('variant-figures');
+	await expect(table.locator('tbody tr')).toHaveCount(6);
+	await expect(table).toContainText('1000:1 · 2 m cable');
+	const cross = page.getByTestId('cross-spec-live').getByTestId('cross-spec');
+	const cinRow = cross
+		.locator('tr', { hasText: '1.2 m cable' })
+		.filter({ hasText: 'Input capacitance' });
+	// As seeded the tops are off (6.8 p, 6.2 p, 5.6 p): 5.6–6.1 pF across the positions.
+	await expect(cinRow).toContainText('does not hold');
+	await expect(cross.locator('tr', { hasText: 'Attenuation' }).first()).toContainText('holds');
+
+	// Solve Ctop for a flat response in every range position and write each into its position.
+	const aids = page.getByRole('region', { name: 'Design aids' });
+	await aids.getByLabel('Element to adjust').selectOption('Ctop');
+	await aids.getByLabel('Goal').selectOption('flat');
+	await aids.getByRole('button', { name: 'Solve in every Range' }).click();
+	const solved = aids.getByTestId('solve-every-option');
+	await expect(solved.locator('tbody tr')).toHaveCount(3);
+	// Closed form R_top·C_top = R_shunt·C_shunt: 6.667 pF, 6.06 pF, 6.006 pF.
+	await expect(solved.locator('tr', { hasText: '100:1' })).toContainText(/6\.06\d* pF/);
+	await aids.getByRole('button', { name: 'Apply every Range value' }).click();
+	await expect(page.getByTestId('variant-overrides')).toContainText(/Ctop = 6\.666/);
+
+	// Saved, re-analysed and judged again: the 1.2 m cable's positions now agree.
+	await expect(page.getByText(/Saved · revision 2/)).toBeVisible({ timeout: 20_000 });
+	await expect(cinRow).toContainText('holds', { timeout: 20_000 });
+	await expect(cinRow).not.toContainText('does not hold');
+	// A sign-off of this revision covers all six (the review panel says so).
+	await page.reload();
+	await expect(page.getByTestId('review-covers')).toContainText('all 6 variants');
+});
