@@ -308,6 +308,27 @@ function renderTable(a: Analysis): string {
 			`  ${pad(o.element, 20)}  ${pad(f(o.resistance, 'Ω'), 12)}  ${pad(f(o.tau, 's'), 11)}  ${s ? `${pad(f(s.resistance, 'Ω'), 12)}  ${f(s.tau, 's')}` : '—'}`
 		);
 	});
+	// How each resistance seen is made up (the series–parallel formula, or why there is none).
+	const formula = (t: (typeof a.timeConstants.openCircuit)[number], config: string) => {
+		const r = t.formula;
+		const why = r.kind === 'series-parallel' ? `${r.formula} = ${f(r.value, 'Ω')}` : `${r.reason}`;
+		return `  ${pad(t.element, 20)}  ${config}: ${why}`;
+	};
+	lines.push('', 'Resistance seen, how it is made up');
+	for (const t of a.timeConstants.openCircuit) lines.push(formula(t, 'others open   '));
+	for (const t of a.timeConstants.shortCircuit) lines.push(formula(t, 'others shorted'));
+	const doublets = a.doublets ?? [];
+	for (const d of doublets) {
+		const c = d.closing[0];
+		lines.push(
+			'',
+			`Doublet p${d.pole + 1}/z${d.zero + 1}: (z − p)/p = ${(d.separation * 100).toPrecision(3)} %` +
+				(d.tail === null
+					? ''
+					: `, tail ${(d.tail * 100).toPrecision(3)} % with τ ${f(d.tailTau, 's')}`) +
+				(c ? `; closes with ${c.element} → ${f(c.to)} (${(c.change * 100).toPrecision(3)} %)` : '')
+		);
+	}
 	lines.push(
 		'',
 		'Sequential (dominant first): ' +

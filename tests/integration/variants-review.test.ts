@@ -17,6 +17,7 @@ import { reportData } from '../../src/lib/server/exchange/report-data';
 import { closeAnalysisPool } from '../../src/lib/server/jobs/analysis-pool';
 import { closeDesignPool } from '../../src/lib/server/jobs/design-pool';
 import * as variantSpec from '../../src/routes/api/design/variant-spec/+server';
+import * as revisionAnalysis from '../../src/routes/api/sheets/[id=uuid]/revisions/[n=revision]/analysis/+server';
 import type { NetworkDocument } from '../../src/lib/network/schema';
 
 useDatabase();
@@ -149,6 +150,27 @@ describe('variants through review', () => {
 		const sh = 1 / (1e-6 + 1 / 10.1e3);
 		expect(rel(v.analysis!.dcGain!, sh / (50 + 9.99e6 + sh))).toBeLessThan(1e-9);
 		expect(report.variants!.spec!.across).toHaveLength(3);
+	});
+
+	it('a stored revision analyses as its base, one variant or all of them', async () => {
+		const { ana, sheet } = await world();
+		const get = (query: string) =>
+			call(revisionAnalysis.GET, {
+				user: ana,
+				params: { id: sheet.id, n: '1' },
+				path: `/api/sheets/${sheet.id}/revisions/1/analysis${query}`
+			});
+		// Closed form (divider): the base is 10:1, 1M against 9M plus the 50 Ω source.
+		const base = await get('');
+		expect(base.status).toBe(200);
+		expect(rel(base.body.analysis.dcGain, 1e6 / (50 + 9e6 + 1e6))).toBeLessThan(1e-9);
+		const one = await get(`?variant=${encodeURIComponent('100:1 · 2 m cable')}`);
+		expect(one.body.variant).toBe('100:1 · 2 m cable');
+		const sh = 1 / (1e-6 + 1 / 111.1e3);
+		expect(rel(one.body.analysis.dcGain, sh / (50 + 9.9e6 + sh))).toBeLessThan(1e-9);
+		const all = await get('?variants=all');
+		expect(all.body.variants).toHaveLength(6);
+		expect((await get('?variant=nope')).status).toBe(422);
 	});
 
 	it('changing only an override changes the network a sign-off covered', async () => {

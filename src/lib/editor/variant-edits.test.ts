@@ -58,7 +58,9 @@ describe('variant edits', () => {
 		});
 		v = addOption(v, 0);
 		expect(v!.groups[0].options.map((o) => o.name)).toEqual(['as drawn', 'option 2', 'option 3']);
+		v = setInBase(v, 'C1', false);
 		v = removeOption(removeOption(removeOption(v, 0, 2), 0, 1), 0, 0);
+		// The last group gone: the part left out of the base is back in the network.
 		expect(v).toBeNull();
 	});
 

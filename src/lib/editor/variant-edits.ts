@@ -17,8 +17,10 @@ function tidyOption(o: VariantOption): VariantOption {
 
 function tidy(v: VariantSet): Variants {
 	const groups = v.groups.map((g) => ({ ...g, options: g.options.map(tidyOption) }));
+	// Without groups nothing can put a part back: the parts left out of the base return with
+	// the last group (else they would vanish from the network with nothing on screen saying so).
+	if (!groups.length) return null;
 	const absent = v.absent?.length ? v.absent : undefined;
-	if (!groups.length && !absent) return null;
 	return { ...(absent ? { absent } : {}), groups };
 }
 

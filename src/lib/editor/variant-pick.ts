@@ -17,7 +17,17 @@ export interface ActiveVariant {
 
 export function activeVariant(doc: NetworkDocument, pick: number[]): ActiveVariant | null {
 	const groups = doc.variants?.groups ?? [];
-	if (groups.length === 0) return null;
+	if (groups.length === 0) {
+		// A file may leave parts out of the base without any group: the canvas still marks them.
+		const absent = doc.variants?.absent ?? [];
+		if (!absent.length) return null;
+		return {
+			list: [],
+			info: { name: 'the base network', options: [], choice: [] },
+			overrides: { values: new Map(), absent: new Set(absent), present: new Set() },
+			problem: null
+		};
+	}
 	const choice = groups.map((g, i) => Math.max(0, Math.min(pick[i] ?? 0, g.options.length - 1)));
 	const options = choice.map((c, i) => groups[i].options[c].name);
 	const info: VariantInfo = { name: options.join(VARIANT_JOIN), options, choice };

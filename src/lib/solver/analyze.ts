@@ -97,6 +97,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	let md: ReturnType<typeof modalForm> | null = null;
 	let elementsOfPorts: number[] = [];
 	let portModelUsed: PortModel | null = null;
+	let repair: { candidates: Root[]; atOrigin: number; s0: number; h0: number } | null = null;
 	let symmetric = false;
 	// The network equations themselves: ground truth for every response (direct-solve.ts).
 	const assembled = net.reactive.length === 0 ? assemble(net, () => 'pencil') : null;
@@ -129,6 +130,12 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		const top = Math.max(0, ...roots.map((r) => Math.hypot(r.re, r.im))) || s0;
 		inf = atInfinity(sys, top);
 		const expected = inf.degree === null ? null : Math.max(0, roots.length - inf.degree);
+		if (inf.degree === null && inf.value === null)
+			extra.push({
+				code: 'high_frequency_unknown',
+				message:
+					'the behaviour at infinite frequency could not be read from the network equations: H(∞) and the number of finite zeros are unknown'
+			});
 		const atOrigin = zerosAtOrigin(sys, roots);
 		let zpm = pm;
 		// With every port mode finite and no finite zero expected, the zero eigenproblem would
@@ -143,6 +150,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 			if (zpm.pivotRatio > 1e-13) z = computeZeros(a, zpm);
 		}
 		if (z) {
+			repair = { candidates: z, atOrigin, s0: zpm.s0, h0: zpm.h0 };
 			const checked = checkedZeros(sys, z, roots, expected, atOrigin);
 			let zs = checked.zeros;
 			if (expected !== null && zs.length > expected) {
@@ -167,23 +175,8 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 			});
 	}
 
-	const order = roots.map((_, i) => i).sort((i, j) => byMagnitude(roots[i], roots[j]));
-	const poleAtZero = roots.some((r) => r.re === 0 && r.im === 0);
-	const dcGain = poleAtZero || ocPorts.singular ? null : nullIfBad(ocPorts.h0);
-	const b = denominatorForEstimates(
-		oc,
-		ocPorts,
-		order.map((i) => roots[i])
-	);
-	const poles = poleInfo(net, roots, order, sequential, elementsOfPorts, b);
-	const zeros: Analysis['zeros'] = zeroRoots
-		.slice()
-		.sort(byMagnitude)
-		.map((r) => ({ ...singularity(r.re, r.im), cancels: null }));
-	const pairs = pairPolesAndZeros(poles, zeros);
-	const doublets = findDoublets(net, poles, zeros, dcGain, { oc, sc }, options.doubletRatio);
-
-	const range = frequencyRange(poles, zeros, options.frequency || undefined);
+	// Zeros beside poles do not move the range: it can be set before the list is final.
+	const range = frequencyRange(roots, zeroRoots, options.frequency || undefined);
 	const freq =
 		options.frequency === false
 			? null
@@ -203,13 +196,48 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 			groupDelay: delay
 		};
 	}
-	const worst = disagreement(pz, sw);
+	let worst = disagreement(pz, sw);
+	if (worst && worst.size > AGREE && repair && sys) {
+		// Second chance: look for a zero beside every pole, whatever the count said, and keep the
+		// longer list if the pole–zero form then agrees better with the network equations.
+		const again = checkedZeros(sys, repair.candidates, roots, null, repair.atOrigin);
+		if (again.zeros.length > zeroRoots.length) {
+			const zr = again.zeros.map((x) => ({ ...x, muRe: 0, muIm: 0, partner: -1, vectors: null }));
+			const pz2 = pzForm(roots, zr, repair.s0, repair.h0);
+			const w2 = disagreement(pz2, sw);
+			if (w2 && w2.size < worst.size) {
+				zeroRoots = zr;
+				pz = pz2;
+				worst = w2;
+				extra.push({
+					code: 'zero_recovered',
+					message: `${again.found} zero${again.found > 1 ? 's' : ''} beside a pole (near cancellation) recovered from the network equations`
+				});
+			}
+		}
+	}
 	if (worst && worst.size > AGREE) {
 		extra.push({
 			code: 'pole_zero_disagreement',
 			message: `the pole–zero form differs from the network equations by ${worst.size.toPrecision(2)} (relative) at ${worst.f.toPrecision(4)} Hz; the responses come from the network equations, the pole and zero lists may be incomplete there`
 		});
 	}
+	const order = roots.map((_, i) => i).sort((i, j) => byMagnitude(roots[i], roots[j]));
+	const poleAtZero = roots.some((r) => r.re === 0 && r.im === 0);
+	const dcGain = poleAtZero || ocPorts.singular ? null : nullIfBad(ocPorts.h0);
+	const b = denominatorForEstimates(
+		oc,
+		ocPorts,
+		order.map((i) => roots[i])
+	);
+	const poles = poleInfo(net, roots, order, sequential, elementsOfPorts, b);
+	const zeros: Analysis['zeros'] = zeroRoots
+		.slice()
+		.sort(byMagnitude)
+		.map((r) => ({ ...singularity(r.re, r.im), cancels: null }));
+	const pairs = pairPolesAndZeros(poles, zeros);
+	const doublets = findDoublets(net, poles, zeros, dcGain, { oc, sc }, options.doubletRatio);
+
 	const bw = bandwidthDirect(sys!, dcGain, sw);
 
 	let step: Analysis['step'] = null;

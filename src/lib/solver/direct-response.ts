@@ -118,8 +118,9 @@ export function impedance(
  * Behaviour as s → ∞ from two direct solves far above every singularity (at S = 1e6 and 1e7
  * times `top`, on the positive real axis where a stable network has no pole): the relative
  * degree r = −lim s·H′/H (an integer; the two points must agree), and H(∞) — exactly 0 when
- * r ≥ 1, H(S) + S·H′(S) (error O((top/S)²)) when r = 0, null when H grows (r < 0). Null degree
- * when the two points disagree or a solve fails.
+ * r ≥ 1, H(S) + S·H′(S) (error O((top/S)²)) when r = 0, null when H grows (r < 0). When the
+ * two readings disagree (a zero far above the poles), S moves 1000× further out, five times at
+ * most; null degree when they never agree or a solve fails.
  */
 export function atInfinity(
 	sys: DirectSystem,
@@ -133,17 +134,23 @@ export function atInfinity(
 		return { r: -S * q.re, p, S };
 	};
 	const scale = top > 0 && Number.isFinite(top) ? top : 1;
-	const a = reading(scale * 1e6);
-	const b = reading(scale * 1e7);
-	if (!a || !b) return { degree: null, value: null };
-	if (a.r === Infinity && b.r === Infinity) return { degree: null, value: 0 };
-	const ra = Math.round(a.r);
-	if (Math.abs(a.r - ra) > 1e-3 || Math.abs(b.r - ra) > 1e-3) return { degree: null, value: null };
-	if (ra >= 1) return { degree: ra, value: 0 };
-	if (ra < 0) return { degree: ra, value: null };
-	const h = toComplex(b.p.h);
-	const dh = toComplex(b.p.dh!);
-	return { degree: 0, value: finiteOrNull(h.re + b.S * dh.re) };
+	// Zeros can lie far above the poles (a bridging capacitor's zero decades up): while the two
+	// readings are not the same integer, move a thousand times further out (at most five times).
+	for (let k = 0; k < 6; k++) {
+		const S = scale * 1e6 * 1000 ** k;
+		const a = reading(S);
+		const b = reading(S * 10);
+		if (!a || !b) return { degree: null, value: null };
+		if (a.r === Infinity && b.r === Infinity) return { degree: null, value: 0 };
+		const ra = Math.round(a.r);
+		if (Math.abs(a.r - ra) > 1e-3 || Math.abs(b.r - ra) > 1e-3) continue;
+		if (ra >= 1) return { degree: ra, value: 0 };
+		if (ra < 0) return { degree: ra, value: null };
+		const h = toComplex(b.p.h);
+		const dh = toComplex(b.p.dh!);
+		return { degree: 0, value: finiteOrNull(h.re + b.S * dh.re) };
+	}
+	return { degree: null, value: null };
 }
 
 /**

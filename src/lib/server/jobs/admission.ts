@@ -89,6 +89,32 @@ export class Admission {
 	}
 
 	/**
+	 * Would a request from `caller` be refused right now? Lets a route shed before it reads and
+	 * checks a large body: under overload the refusals must cost the server thread next to nothing.
+	 */
+	refusal(caller: string | null): Shed | null {
+		if (caller === null) return null;
+		const limits = this.limits();
+		const mine = this.perCallerCount.get(caller) ?? 0;
+		if (mine >= limits.perCaller)
+			return new Shed(
+				429,
+				`you already have ${mine} ${this.what} running or waiting (at most ${limits.perCaller} at a time); wait for them to finish`,
+				this.retryAfterSeconds(),
+				'fair_share'
+			);
+		const free = this.running < limits.concurrency && this.waitingCount === 0;
+		if (!free && this.waitingCount >= limits.maxQueue)
+			return new Shed(
+				503,
+				`the server is busy with other ${this.what}; try again in a moment`,
+				this.retryAfterSeconds(),
+				'busy'
+			);
+		return null;
+	}
+
+	/**
 	 * Run `work` when a slot is free. `caller` is who asks (a user or an address); null is
 	 * background work. `signal` (the request's) takes a waiting task out of line when the
 	 * client goes away.
@@ -96,27 +122,10 @@ export class Admission {
 	async run<T>(caller: string | null, work: () => Promise<T>, signal?: AbortSignal): Promise<T> {
 		const limits = this.limits();
 		const key = caller ?? BACKGROUND;
-		if (caller !== null) {
-			const mine = this.perCallerCount.get(key) ?? 0;
-			if (mine >= limits.perCaller) {
-				this.shedCount++;
-				throw new Shed(
-					429,
-					`you already have ${mine} ${this.what} running or waiting (at most ${limits.perCaller} at a time); wait for them to finish`,
-					this.retryAfterSeconds(),
-					'fair_share'
-				);
-			}
-			const free = this.running < limits.concurrency && this.waitingCount === 0;
-			if (!free && this.waitingCount >= limits.maxQueue) {
-				this.shedCount++;
-				throw new Shed(
-					503,
-					`the server is busy with other ${this.what}; try again in a moment`,
-					this.retryAfterSeconds(),
-					'busy'
-				);
-			}
+		const refused = this.refusal(caller);
+		if (refused) {
+			this.shedCount++;
+			throw refused;
 		}
 		this.perCallerCount.set(key, (this.perCallerCount.get(key) ?? 0) + 1);
 		try {

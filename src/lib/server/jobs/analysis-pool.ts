@@ -35,7 +35,12 @@ export function analysisPool(): Piscina {
 /** Who may run when: one task per thread, fair share per caller, shedding (jobs/admission.ts). */
 export const analysisAdmission = new Admission('analyses', () => {
 	const c = config();
-	return { concurrency: c.analysisThreads, maxQueue: c.analysisQueue, perCaller: c.analysisPerCaller, maxWaitMs: c.analysisQueueWaitMs };
+	return {
+		concurrency: c.analysisThreads,
+		maxQueue: c.analysisQueue,
+		perCaller: c.analysisPerCaller,
+		maxWaitMs: c.analysisQueueWaitMs
+	};
 });
 
 /**
@@ -56,27 +61,59 @@ export async function analyzeManyInPool(
 	task: { documents: unknown[]; options?: AnalyzeTask['options'] },
 	timeoutMs = LIMITS.timeoutMs
 ): Promise<AnalyzeOutcome[]> {
-	task.documents.forEach((d, i) => requireInteractive(d, task.documents.length > 1 ? `network ${i + 1}` : undefined));
+	task.documents.forEach((d, i) =>
+		requireInteractive(d, task.documents.length > 1 ? `network ${i + 1}` : undefined)
+	);
 	return runAdmitted(task, 'runMany', timeoutMs) as Promise<AnalyzeOutcome[]>;
 }
 
 /** Any other solver task in the analysis threads (e.g. two-port parameters for Touchstone). */
-export async function runSolverTask<T>(name: string, task: { document: unknown; [more: string]: unknown }, timeoutMs = LIMITS.timeoutMs): Promise<T> {
+export async function runSolverTask<T>(
+	name: string,
+	task: { document: unknown; [more: string]: unknown },
+	timeoutMs = LIMITS.timeoutMs
+): Promise<T> {
 	requireInteractive(task.document);
 	return runAdmitted(task, name, timeoutMs) as Promise<T>;
 }
 
-async function runAdmitted(task: unknown, name: string | undefined, timeoutMs: number): Promise<unknown> {
+/** Refuse now, before the body is read, when the analysis would be refused anyway (overload). */
+export function shedEarly(): void {
+	const refused = analysisAdmission.refusal(currentCaller()?.key ?? null);
+	if (refused)
+		throw new ApiProblem(refused.status, refused.message, {
+			code: refused.code,
+			retryAfterSeconds: refused.retryAfterSeconds
+		});
+}
+
+async function runAdmitted(
+	task: unknown,
+	name: string | undefined,
+	timeoutMs: number
+): Promise<unknown> {
 	const caller = currentCaller();
 	try {
-		return await analysisAdmission.run(caller?.key ?? null, () => runTimed(task, name, timeoutMs), caller?.signal);
+		return await analysisAdmission.run(
+			caller?.key ?? null,
+			() => runTimed(task, name, timeoutMs),
+			caller?.signal
+		);
 	} catch (e) {
-		if (e instanceof Shed) throw new ApiProblem(e.status, e.message, { code: e.code, retryAfterSeconds: e.retryAfterSeconds });
+		if (e instanceof Shed)
+			throw new ApiProblem(e.status, e.message, {
+				code: e.code,
+				retryAfterSeconds: e.retryAfterSeconds
+			});
 		throw e;
 	}
 }
 
-async function runTimed(task: unknown, name: string | undefined, timeoutMs: number): Promise<unknown> {
+async function runTimed(
+	task: unknown,
+	name: string | undefined,
+	timeoutMs: number
+): Promise<unknown> {
 	// A thread ended by an overrun is replaced, and starting one (loading the solver) must not
 	// count either: a no-op round trip waits until a thread is up. Admission keeps one task per
 	// thread, so the task below then starts at once.

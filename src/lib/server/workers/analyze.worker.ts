@@ -2,8 +2,14 @@
 // Errors come back as plain data: class instances do not survive the trip between threads.
 import { analyze, SolverError } from '../../solver';
 import type { AnalyzeOptions } from '../../solver';
-import { twoPort, TwoPortError, type TwoPortRequest, type TwoPortResult } from '../../exchange/two-port';
+import {
+	twoPort,
+	TwoPortError,
+	type TwoPortRequest,
+	type TwoPortResult
+} from '../../exchange/two-port';
 import { yieldToServerThread } from './thread-priority';
+import { trimAnalysis, type Omittable } from '../analysis-omit';
 
 // Pages and saves first: this thread computes at a lower priority than the server's.
 yieldToServerThread();
@@ -11,15 +17,27 @@ yieldToServerThread();
 export interface AnalyzeTask {
 	document: unknown;
 	options?: AnalyzeOptions;
+	/** Answer the analysis as JSON text, trimmed so (POST /api/analyze): building and copying
+	 * the answer then happens here, not on the thread that serves every other request. */
+	asJson?: { omit: Omittable[]; matrixPorts: number | null };
 }
 
 export type AnalyzeOutcome =
-	| { ok: true; analysis: unknown }
+	| { ok: true; analysis: unknown; json?: undefined }
+	| { ok: true; json: string; analysis?: undefined }
 	| { ok: false; error: { error: string; code: string; element?: string; node?: string } };
 
-export default function run({ document, options }: AnalyzeTask): AnalyzeOutcome {
+export default function run({ document, options, asJson }: AnalyzeTask): AnalyzeOutcome {
 	try {
-		return { ok: true, analysis: analyze(document, options) };
+		const analysis = analyze(document, options);
+		if (asJson) {
+			const trimmed = trimAnalysis(analysis, {
+				omit: new Set(asJson.omit),
+				matrixPorts: asJson.matrixPorts
+			});
+			return { ok: true, json: JSON.stringify(trimmed) };
+		}
+		return { ok: true, analysis };
 	} catch (error) {
 		if (error instanceof SolverError) return { ok: false, error: error.toJSON() };
 		throw error;
@@ -51,7 +69,8 @@ export function twoPortTask(request: TwoPortRequest): TwoPortOutcome {
 	try {
 		return { ok: true, result: twoPort(request) };
 	} catch (error) {
-		if (error instanceof TwoPortError) return { ok: false, error: { message: error.message, details: error.details } };
+		if (error instanceof TwoPortError)
+			return { ok: false, error: { message: error.message, details: error.details } };
 		throw error;
 	}
 }

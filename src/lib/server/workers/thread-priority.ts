@@ -3,9 +3,10 @@
 // thread has its own nice value, so each worker thread lowers its own (the main thread keeps
 // the process's). Elsewhere, or without permission, nothing changes.
 import { readlinkSync } from 'node:fs';
-import { setPriority } from 'node:os';
+import { getPriority, setPriority } from 'node:os';
 
-/** Nice 10: as the shell's `nice -n 10`; the server thread stays at the process's own value. */
+/** Ten steps nicer than the process (as `nice -n 10`, relative: a server already started under
+ * `nice` keeps the same gap); the server thread stays at the process's own value. */
 export const WORKER_NICE = 10;
 
 export function yieldToServerThread(nice = WORKER_NICE): boolean {
@@ -13,7 +14,7 @@ export function yieldToServerThread(nice = WORKER_NICE): boolean {
 		// "/proc/thread-self" → "<pid>/task/<tid>": the id of this very thread.
 		const tid = Number(readlinkSync('/proc/thread-self').split('/').pop());
 		if (!Number.isInteger(tid) || tid <= 0) return false;
-		setPriority(tid, nice);
+		setPriority(tid, Math.min(19, getPriority(tid) + nice));
 		return true;
 	} catch {
 		return false;

@@ -9,13 +9,15 @@ import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { apiActor, endpoint, problem, readBody } from '$lib/server/api/respond';
 import { checkDocument, LIMITS, readOptions } from '$lib/server/analysis-request';
-import { analyzeInPool } from '$lib/server/jobs/analysis-pool';
+import { analyzeInPool, shedEarly } from '$lib/server/jobs/analysis-pool';
 import { readTrim, skipped, trimAnalysis } from '$lib/server/analysis-omit';
 import { analyzeVariants, readVariantChoice, variantsFor } from '$lib/server/variant-analysis';
 import type { Analysis } from '$lib/solver';
 
 export const POST = endpoint(async (event) => {
 	apiActor(event);
+	// Under overload, refuse before reading and checking the body: shedding must stay cheap.
+	shedEarly();
 	const options = readOptions(event.url);
 	const trim = readTrim(event.url);
 	const choice = readVariantChoice(event.url);
@@ -37,11 +39,15 @@ export const POST = endpoint(async (event) => {
 		}
 		return json(one.analysis);
 	}
-	const outcome = await analyzeInPool({ document, options: solverOptions });
+	// The worker trims and writes the JSON itself: this thread only passes the text on.
+	const outcome = await analyzeInPool({
+		document,
+		options: solverOptions,
+		asJson: { omit: [...trim.omit], matrixPorts: trim.matrixPorts }
+	});
 	if (!outcome.ok) {
 		const { error, ...where } = outcome.error;
 		return problem(422, error, where);
 	}
-	// The worker's outcome is typed `unknown` across the thread boundary; it is analyze()'s result.
-	return json(trimAnalysis(outcome.analysis as Analysis, trim));
+	return new Response(outcome.json, { headers: { 'content-type': 'application/json' } });
 });
