@@ -13,7 +13,12 @@ import { spawnSync } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { loadavg } from 'node:os';
 import { analyze } from '../src/lib/solver/index';
-import { build, ladder } from './lib/large-networks';
+import { build, ladder, mesh } from './lib/large-networks';
+import { denseMesh } from './lib/dense-networks';
+import * as math from 'mathjs';
+import { validateNetwork } from '../src/lib/solver/validate';
+import { sparseMna } from '../src/lib/solver/large/sparse-mna';
+import { luOrder, sparseLu, luSolveSparse } from '../src/lib/solver/kernels/sparse-lu';
 
 const arg = process.argv[2];
 if (arg === '--case') runCase(process.argv[3], Number(process.argv[4]), process.argv[5]);
@@ -86,14 +91,15 @@ function main() {
 	const began = performance.now();
 	const rows: Record<string, unknown>[] = [];
 	const cases: [string, number[]][] = [
-		['ladder', [500, 5000, 50000]],
+		['ladder', [500, 5000, 49999]],
 		['mesh', [1000, 10000, 100000]]
 	];
 	const growth: { family: string; mode: string; from: number; to: number; exponent: number }[] = [];
 	for (const [family, sizes] of cases)
 		for (const mode of ['poles', 'response', 'full']) {
 			let prev: { elements: number; ms: number } | null = null;
-			for (const size of sizes) {
+			// The step (PRIMA) at 100k elements is left to the job queue's own runs.
+			for (const size of mode === 'full' ? sizes.slice(0, 2) : sizes) {
 				const row = measure(family, size, mode);
 				rows.push(row);
 				if (prev)
@@ -121,10 +127,26 @@ function main() {
 		`20,000-section ladder: worst relative error of the 10 poles ${closedForm.toExponential(2)}\n`
 	);
 
+	const crossover = measureCrossover();
+	const kernels = measureKernels();
+	const dense300 = denseMesh(300);
+	const denseRuns: number[] = [];
+	analyze(dense300);
+	for (let r = 0; r < 3; r++) {
+		const t = performance.now();
+		analyze(dense300);
+		denseRuns.push(performance.now() - t);
+	}
+	const dense300Ms = Math.min(...denseRuns);
+	process.stderr.write(
+		`300-capacitor dense mesh, full dense analysis: ${dense300Ms.toFixed(0)} ms (fastest of 3)\n`
+	);
+
 	mkdirSync('bench-results/networks', { recursive: true });
+	writeFileSync('bench-results/networks/dense-mesh-300.json', JSON.stringify(dense300));
 	for (const [family, size] of [
 		['ladder', 20000],
-		['ladder', 50000],
+		['ladder', 49999],
 		['mesh', 10000],
 		['mesh', 100000],
 		['lc-line', 1000]
@@ -161,10 +183,123 @@ function main() {
 				rows,
 				growth,
 				closedForm,
+				crossover,
+				kernels,
+				dense300Ms,
 				seconds: (performance.now() - began) / 1000
 			},
 			null,
 			2
 		) + '\n'
 	);
+}
+
+/**
+ * Where the sparse back end should take over: the dense full analysis against the sparse one
+ * (10 poles, every τ, a 200-point response and the step) on ladders and meshes of 100–800
+ * reactive elements, fastest of a few runs each.
+ */
+function measureCrossover() {
+	const out: { family: string; reactive: number; denseMs: number; sparseMs: number }[] = [];
+	const fastest = (f: () => void, reps: number) => {
+		f();
+		let best = Infinity;
+		for (let r = 0; r < reps; r++) {
+			const t = performance.now();
+			f();
+			best = Math.min(best, performance.now() - t);
+		}
+		return best;
+	};
+	for (const m of [100, 200, 400, 800]) {
+		for (const [family, doc] of [
+			['ladder', ladder(m)],
+			['mesh', mesh(Math.round(m * 2.9))]
+		] as const) {
+			const reactive = doc.elements.filter((e) => e.type === 'C' || e.type === 'L').length;
+			const reps = m <= 200 ? 3 : 1;
+			const denseMs = fastest(() => analyze(doc, { backend: 'dense' }), reps);
+			const sparseMs = fastest(() => analyze(doc, { backend: 'sparse' }), reps);
+			out.push({ family, reactive, denseMs, sparseMs });
+			process.stderr.write(
+				`crossover ${family} ${reactive} reactive: dense ${denseMs.toFixed(0)} ms, sparse ${sparseMs.toFixed(0)} ms\n`
+			);
+		}
+	}
+	return out;
+}
+
+/**
+ * Our sparse LU against mathjs's (slu: the CSparse LU with its AMD column order, then lusolve)
+ * on the modified nodal matrices of meshes: factor and one solve, fastest of three.
+ */
+function measureKernels() {
+	const out: {
+		elements: number;
+		unknowns: number;
+		ownMs: number;
+		mathjsMs: number;
+		agree: number;
+	}[] = [];
+	for (const size of [1000, 10000]) {
+		const m = sparseMna(validateNetwork(mesh(size)));
+		const n = m.size;
+		const b = new Float64Array(n).fill(1);
+		let x: Float64Array = new Float64Array(n);
+		let own = Infinity;
+		for (let r = 0; r < 3; r++) {
+			const t = performance.now();
+			const f = sparseLu({ ...m.pattern, values: m.g }, null, luOrder(m.pattern));
+			x = luSolveSparse(f, b.slice());
+			own = Math.min(own, performance.now() - t);
+		}
+		const rows: number[] = [];
+		const cols: number[] = [];
+		const vals: number[] = [];
+		for (let j = 0; j < n; j++)
+			for (let p = m.pattern.colPtr[j]; p < m.pattern.colPtr[j + 1]; p++)
+				if (m.g[p] !== 0) {
+					rows.push(m.pattern.rowIdx[p]);
+					cols.push(j);
+					vals.push(m.g[p]);
+				}
+		const M = buildSparse(rows, cols, vals, n);
+		let theirs = Infinity;
+		let y: number[] = [];
+		for (let r = 0; r < 3; r++) {
+			const t = performance.now();
+			const f = math.slu(M as never, 1, 0.1);
+			y = (math.lusolve(f as never, Array.from(b)) as unknown as math.Matrix)
+				.toArray()
+				.flat() as number[];
+			theirs = Math.min(theirs, performance.now() - t);
+		}
+		let agree = 0;
+		for (let i = 0; i < n; i++)
+			agree = Math.max(agree, Math.abs(x[i] - y[i]) / Math.max(Math.abs(x[i]), 1e-300));
+		out.push({ elements: size, unknowns: n, ownMs: own, mathjsMs: theirs, agree });
+		process.stderr.write(
+			`sparse LU, ${n} unknowns: own ${own.toFixed(1)} ms, mathjs slu+lusolve ${theirs.toFixed(1)} ms, agree ${agree.toExponential(1)}\n`
+		);
+	}
+	return out;
+}
+
+/** A mathjs SparseMatrix from triplets (its internal CCS arrays, built directly: `set` per entry is quadratic). */
+function buildSparse(rows: number[], cols: number[], vals: number[], n: number) {
+	const order = rows.map((_, i) => i).sort((a, b) => cols[a] - cols[b] || rows[a] - rows[b]);
+	const values: number[] = [];
+	const index: number[] = [];
+	const ptr: number[] = [0];
+	let k = 0;
+	for (let j = 0; j < n; j++) {
+		while (k < order.length && cols[order[k]] === j) {
+			values.push(vals[order[k]]);
+			index.push(rows[order[k]]);
+			k++;
+		}
+		ptr.push(values.length);
+	}
+	const Sparse = (math as unknown as { SparseMatrix: new (data: unknown) => unknown }).SparseMatrix;
+	return new Sparse({ values, index, ptr, size: [n, n], datatype: 'number' });
 }

@@ -4,7 +4,10 @@ import { SetupError, step } from './log.mjs';
 import { isPortFree } from './ports.mjs';
 import { startChild, tsx } from './services.mjs';
 
-async function waitFor(url, child, timeoutMs = 15_000) {
+// Starting means tsx compiling the script and loading smtp-server and mailparser: under a second on
+// a quiet machine, but well over 15 s on a loaded 2-core one with a cold compile cache (a fresh
+// clone). Waiting ends as soon as it answers or exits; the limit is only there against a hang.
+async function waitFor(url, child, timeoutMs = 120_000) {
 	const deadline = Date.now() + timeoutMs;
 	while (Date.now() < deadline) {
 		if (child.exitCode !== null) throw new SetupError('The local mail catcher exited during start-up.');

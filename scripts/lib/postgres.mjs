@@ -162,7 +162,7 @@ export async function startCluster({ dataRoot, port, database, quiet = false }) 
 		if (!existsSync(log)) writeFileSync(log, '');
 		own(log);
 		const [cmd, args, opts] = pg(bin, 'pg_ctl', [
-			'-D', dataDir, '-l', log, '-w', '-t', '30',
+			'-D', dataDir, '-l', log, '-w', '-t', '120',
 			'-o', `-c listen_addresses=127.0.0.1 -p ${port} -k ${sockDir}`, 'start'
 		], { stdio: 'ignore' });
 		const result = spawnSync(cmd, args, opts);

@@ -156,8 +156,9 @@ export class EditorState {
 	/**
 	 * Set several elements' values at once, by element name (the network id), as ONE undo step:
 	 * the way in for tools beside the drawing (the design aids' "apply"). Values are text as a
-	 * person would type it. Returns the names whose value changed; a name not on the sheet, or
-	 * a part without a value, is left alone.
+	 * person would type it. Returns the names whose value changed; a name not on the sheet, a
+	 * part without a value, or a part marked as a fixed value (a cable, a parasitic: not the
+	 * designer's to change) is left alone.
 	 */
 	setValues(values: Record<string, string>): string[] {
 		if (this.readonly) return [];
@@ -168,7 +169,7 @@ export class EditorState {
 		let variants = this.variants;
 		const changed: string[] = [];
 		const items = this.items.map((i) => {
-			if (!hasValue(i.kind) || !Object.hasOwn(values, i.name)) return i;
+			if (!hasValue(i.kind) || i.role === 'fixed' || !Object.hasOwn(values, i.name)) return i;
 			const value = values[i.name].trim();
 			const own = set?.get(i.name);
 			if (own) {

@@ -17,6 +17,7 @@ export {
 	SheetFileError,
 	SHEET_FILE_FORMAT,
 	SHEET_FILE_MAX_BYTES,
+	LARGE_SHEET_FILE_MAX_BYTES,
 	type SheetFileContent
 } from './sheet-file';
 export { resultsCsv, RESULT_TABLES, type ResultTable } from './results-csv';

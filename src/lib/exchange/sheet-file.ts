@@ -9,6 +9,8 @@ import { canonicalJson, type KeyOrder } from './canonical-json';
 export const SHEET_FILE_FORMAT = 'polewise-sheet';
 export const SHEET_FILE_VERSION = 1;
 export const SHEET_FILE_MAX_BYTES = 2_000_000;
+/** A compressed (.json.gz) sheet file may inflate to this much: a 100,000-element network. */
+export const LARGE_SHEET_FILE_MAX_BYTES = 40_000_000;
 
 export interface SheetFileContent {
 	name: string;
@@ -87,9 +89,12 @@ const envelopeSchema = z.object({
  * Read a sheet file (or a bare network document, which imports with an automatic layout).
  * `fallbackName` names a bare document (from its title or the uploaded file's name).
  */
-export function readSheetFile(text: string, fallbackName = 'Imported sheet'): SheetFileContent {
-	if (text.length > SHEET_FILE_MAX_BYTES)
-		throw new SheetFileError(`the file is over ${SHEET_FILE_MAX_BYTES / 1_000_000} MB`);
+export function readSheetFile(
+	text: string,
+	fallbackName = 'Imported sheet',
+	maxBytes = SHEET_FILE_MAX_BYTES
+): SheetFileContent {
+	if (text.length > maxBytes) throw new SheetFileError(`the file is over ${maxBytes / 1_000_000} MB`);
 	let data: unknown;
 	try {
 		data = JSON.parse(text.replace(/^\uFEFF/, ''));

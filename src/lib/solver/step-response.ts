@@ -122,34 +122,41 @@ function bisect(f: (t: number) => number, a: number, b: number): number {
 	return 0.5 * (a + b);
 }
 
-/** Golden-section search around the largest sample: the peak between grid points. */
-function refinePeak(u: (t: number) => number, grid: Float64Array, vals: number[]): number {
-	let i = 0;
-	for (let k = 1; k < vals.length; k++) if (vals[k] > vals[i]) i = k;
-	if (i === 0 || i === vals.length - 1) return vals[i];
-	let a = grid[i - 1];
-	let b = grid[i + 1];
+/** Golden-section search for the maximum of f on [a, b] (f unimodal there). */
+function refineExtremum(
+	f: (t: number) => number,
+	a: number,
+	b: number
+): { t: number; value: number } {
 	const r = (Math.sqrt(5) - 1) / 2;
 	let c = b - r * (b - a);
 	let d = a + r * (b - a);
-	let fc = u(c);
-	let fd = u(d);
+	let fc = f(c);
+	let fd = f(d);
 	for (let k = 0; k < 100 && b - a > 1e-14 * b; k++) {
 		if (fc > fd) {
 			b = d;
 			d = c;
 			fd = fc;
 			c = b - r * (b - a);
-			fc = u(c);
+			fc = f(c);
 		} else {
 			a = c;
 			c = d;
 			fc = fd;
 			d = a + r * (b - a);
-			fd = u(d);
+			fd = f(d);
 		}
 	}
-	return Math.max(vals[i], fc, fd);
+	return fc > fd ? { t: c, value: fc } : { t: d, value: fd };
+}
+
+/** Golden-section search around the largest sample: the peak between grid points. */
+function refinePeak(u: (t: number) => number, grid: Float64Array, vals: number[]): number {
+	let i = 0;
+	for (let k = 1; k < vals.length; k++) if (vals[k] > vals[i]) i = k;
+	if (i === 0 || i === vals.length - 1) return vals[i];
+	return Math.max(vals[i], refineExtremum(u, grid[i - 1], grid[i + 1]).value);
 }
 
 export interface StepFigures {
@@ -203,9 +210,23 @@ export function figuresOnGrid(
 	}
 	let settlingTime: number | null = 0;
 	if (last === grid.length - 1) settlingTime = null;
-	else if (last >= 0) {
-		const side = vals[last] > 1 ? 1.01 : 0.99;
-		settlingTime = bisect((x) => u(x) - side, grid[last], grid[last + 1]);
+	else {
+		// A ringing excursion that leaves the band by less than the sampling can see (24 samples
+		// a period miss up to 0.9 % of a peak) lies between samples: refine every sampled local
+		// extremum after the last exit that comes within 2 % of the band edge, latest first.
+		let exit: { a: number; b: number; side: number } | null =
+			last >= 0 ? { a: grid[last], b: grid[last + 1], side: vals[last] > 1 ? 1.01 : 0.99 } : null;
+		for (let i = grid.length - 2; i > Math.max(0, last); i--) {
+			const d = Math.abs(vals[i] - 1);
+			if (d < 0.0098 || d < Math.abs(vals[i - 1] - 1) || d < Math.abs(vals[i + 1] - 1)) continue;
+			const up = vals[i] > 1;
+			const at = refineExtremum((x) => (up ? u(x) : 2 - u(x)), grid[i - 1], grid[i + 1]);
+			if (at.value - 1 > 0.01) {
+				exit = { a: at.t, b: grid[i + 1], side: up ? 1.01 : 0.99 };
+				break;
+			}
+		}
+		if (exit) settlingTime = bisect((x) => u(x) - exit!.side, exit.a, exit.b);
 	}
 	return {
 		riseTime: t10 !== null && t90 !== null ? t90 - t10 : null,

@@ -265,3 +265,54 @@ describe('a common-source stage: right-half-plane zero at +gm/Cgd', () => {
 		expect(a.warnings.map((w) => w.code)).not.toContain('pole_zero_disagreement');
 	});
 });
+
+describe('a series RLC with Q = 1000 (lightly damped pair)', () => {
+	// Closed form (common practice): ω0 = 1/√(LC), ζ = (R/2)√(C/L); output across C;
+	// y(t) = 1 − e^{−ζω0t}(cos ωd·t + ζ/√(1 − ζ²)·sin ωd·t), ωd = ω0√(1 − ζ²).
+	const [L, C] = [1e-3, 1e-9];
+	const w0 = 1 / Math.sqrt(L * C);
+	const R = (2 * Math.sqrt(L / C)) / 2000; // ζ = 1/(2Q), Q = 1000
+	const zeta = (R / 2) * Math.sqrt(C / L);
+	const wd = w0 * Math.sqrt(1 - zeta * zeta);
+	const y = (t: number) =>
+		1 -
+		Math.exp(-zeta * w0 * t) *
+			(Math.cos(wd * t) + (zeta / Math.sqrt(1 - zeta * zeta)) * Math.sin(wd * t));
+	const doc = net(
+		[
+			el('Vin', 'V', ['in', 'gnd'], 1),
+			el('R1', 'R', ['in', 'a'], R),
+			el('L1', 'L', ['a', 'o'], L),
+			el('C1', 'C', ['o', 'gnd'], C)
+		],
+		'o'
+	);
+	const a = analyze(doc);
+	test('overshoot e^{−πζ/√(1−ζ²)} (closed form; 1e-6 relative)', () => {
+		expect(a.step).not.toBeNull();
+		expectRel(
+			a.step!.overshoot,
+			100 * Math.exp((-Math.PI * zeta) / Math.sqrt(1 - zeta * zeta)),
+			1e-6,
+			'overshoot'
+		);
+	});
+	test('settling time: the last exit from ±1 %, located on the closed form (1e-6)', () => {
+		// Extrema at kπ/ωd have |y − 1| = e^{−ζω0 t}·(1, as cos kπ = ±1, sin kπ = 0).
+		const k = Math.floor((Math.log(100) / (zeta * w0)) * (wd / Math.PI));
+		let lo = (k * Math.PI) / wd;
+		let hi = lo + Math.PI / (2 * wd);
+		const side = y(lo) > 1 ? 1.01 : 0.99;
+		for (let i = 0; i < 200; i++) {
+			const m = (lo + hi) / 2;
+			if ((y(m) - side) * (y(lo) - side) > 0) lo = m;
+			else hi = m;
+		}
+		expectRel(a.step!.settlingTime, (lo + hi) / 2, 1e-6, 'settling time');
+	});
+	test('Q of the pair is 1000 (closed form; 1e-9) and the pair sits at ω0', () => {
+		const p = a.poles.find((x) => x.im > 0)!;
+		expectRel(p.q, 1000, 1e-9, 'Q');
+		expectRel(Math.hypot(p.re, p.im), w0, 1e-12, '|p|');
+	});
+});

@@ -11,6 +11,8 @@ export interface ElementNodeData extends Record<string, unknown> {
 	faultTerminals: string[];
 	/** Terminals with at least one wire (drawn quietly; open ones show as rings). */
 	wiredTerminals: string[];
+	/** Terminals where two or more wires meet the lead: a junction, drawn as a solid dot. */
+	junctionTerminals: string[];
 	isInput: boolean;
 	negWired: boolean;
 	readonly: boolean;
@@ -43,6 +45,7 @@ export function sameNodeData(a: ElementNodeData, b: ElementNodeData): boolean {
 		a.faultMessage === b.faultMessage &&
 		a.faultTerminals.join() === b.faultTerminals.join() &&
 		a.wiredTerminals.join() === b.wiredTerminals.join() &&
+		a.junctionTerminals.join() === b.junctionTerminals.join() &&
 		a.isInput === b.isInput &&
 		a.negWired === b.negWired &&
 		a.readonly === b.readonly &&

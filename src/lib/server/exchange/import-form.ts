@@ -22,7 +22,7 @@ export async function importSheetForm(event: RequestEvent, workspaceId: string) 
 		const upload = await readUpload(event.request, event.url, SHEET_FILE_MAX_BYTES);
 		name = (upload.fields.name ?? '').slice(0, 300);
 		if (upload.bytes.length === 0) throw new ApiProblem(400, 'file: choose a file to upload.');
-		const content = parseSheetFile(upload.bytes, upload.fileName);
+		const content = await parseSheetFile(upload.bytes, upload.fileName);
 		sheetId = (await importSheetAs(actor, workspaceId, content, name)).sheet.id;
 	} catch (e) {
 		if (e instanceof AccessDenied) {

@@ -4,7 +4,9 @@
 import { authorizeWorkspace, type Actor } from '../access';
 import { ApiProblem } from '../api/respond';
 import { createSheet } from '../db/sheets';
+import { gunzipCapped, isGzip } from './gunzip';
 import {
+	LARGE_SHEET_FILE_MAX_BYTES,
 	readSheetFile,
 	SheetFileError,
 	writeSheetFile,
@@ -27,10 +29,19 @@ export async function exportSheetAs(actor: Actor, sheetId: string, url: URL) {
 	};
 }
 
-export function parseSheetFile(bytes: Buffer, fileName: string): SheetFileContent {
-	const text = uploadedText(bytes, 'a sheet file (JSON text)');
+/** A sheet file as uploaded: JSON text, or gzip-compressed JSON for large networks. */
+export async function parseSheetFile(bytes: Buffer, fileName: string): Promise<SheetFileContent> {
+	const compressed = isGzip(bytes);
+	const text = uploadedText(
+		compressed ? await gunzipCapped(bytes, LARGE_SHEET_FILE_MAX_BYTES) : bytes,
+		'a sheet file (JSON text)'
+	);
 	try {
-		return readSheetFile(text, fileName.replace(/\.[^.]+$/, '') || 'Imported sheet');
+		return readSheetFile(
+			text,
+			fileName.replace(/(\.json)?\.gz$/i, '').replace(/\.[^.]+$/, '') || 'Imported sheet',
+			compressed ? LARGE_SHEET_FILE_MAX_BYTES : undefined
+		);
 	} catch (e) {
 		if (e instanceof SheetFileError)
 			throw new ApiProblem(422, e.message, {

@@ -8,7 +8,7 @@ import { ApiProblem } from '../api/respond';
 import { config } from '../config';
 import { requireInteractive } from '../analysis-limits';
 import { currentCaller } from '../request-caller';
-import { Admission, Shed } from './admission';
+import { Admission } from './admission';
 
 let pool: Piscina | null = null;
 
@@ -65,12 +65,7 @@ export async function runDesign(
 		);
 	} catch (e) {
 		if (stop?.aborted) throw stop.reason;
-		if (e instanceof Shed)
-			throw new ApiProblem(e.status, e.message, {
-				code: e.code,
-				retryAfterSeconds: e.retryAfterSeconds
-			});
-		throw e;
+		throw e; // a refusal (Shed) is an ApiProblem already
 	}
 	if (!outcome.ok) {
 		const { error, ...where } = outcome.error;

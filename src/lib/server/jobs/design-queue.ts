@@ -1,4 +1,4 @@
-// Tolerance runs (Monte Carlo) as background jobs: one job kind of the shared runner
+// Tolerance runs (Monte Carlo) and large-network analyses as background jobs: one job kind of the shared runner
 // (runner.ts: claiming, heartbeat, take-over after a crash, cancel, failure), whose rows are
 // the design_jobs table (what people see: progress, cancel flag, result, revision). The work
 // goes chunk by chunk through the design worker pool, saving each chunk (design_job_parts) and
@@ -8,6 +8,7 @@ import { getRevision } from '../db/sheets';
 import { runDesign } from './design-pool';
 import { ApiProblem } from '../api/respond';
 import { defineJobKind, enqueueJob, type JobContext } from './runner';
+import { LARGE_ANALYSIS_KIND, runLargeAnalysisJob } from './large-analysis';
 import type { MonteCarloRequest, RunRecord } from '../../design/tolerance';
 
 export const DESIGN_QUEUE = 'design-tolerance';
@@ -20,13 +21,12 @@ interface StoredRequest {
 }
 
 /** One Monte Carlo job, chunk by chunk in the design worker pool. */
-async function runToleranceJob({
-	id,
-	signal,
-	progress
-}: JobContext): Promise<Record<string, unknown>> {
+async function runToleranceJob(ctx: JobContext): Promise<Record<string, unknown>> {
+	const { id, signal, progress } = ctx;
 	const job = await getDesignJob(id);
 	if (!job) throw new Error('the job no longer exists');
+	// Large-network analyses share the table and the runner (large-analysis.ts).
+	if (job.kind === LARGE_ANALYSIS_KIND) return runLargeAnalysisJob(ctx, job);
 	// A drawing sent with the request runs as sent; otherwise the stored revision's network.
 	const document =
 		(await storedNetworkOf(id)) ?? (await getRevision(job.sheetId, job.revision))?.document;

@@ -2,7 +2,16 @@
 // the server. A Monte Carlo job sends its runs in chunks; the opened network (validated and
 // assembled once) is kept here between chunks of the same job, so the structure is reused
 // across all runs of a job, not rebuilt per chunk.
-import { SolverError } from '../../solver';
+import { analyze, SolverError } from '../../solver';
+import type { MessagePort } from 'node:worker_threads';
+
+/** What a queued large-network analysis asks for (jobs/large-analysis.ts). */
+export interface LargeAnalysisOptions {
+	poles?: number;
+	near?: number;
+	/** Frequency-response points; 0 skips the response and the step. */
+	points?: number;
+}
 import { DesignError } from '../../design/errors';
 import { sweep, type SweepRequest } from '../../design/sweep';
 import { solveForValue, type SolveRequest } from '../../design/solve-for-value';
@@ -41,6 +50,13 @@ export type DesignTask =
 			request: MonteCarloRequest;
 			from: number;
 			to: number;
+	  }
+	| {
+			/** A large network's analysis (the sparse back end), reporting progress on `progress`. */
+			kind: 'large-analysis';
+			document: unknown;
+			options: LargeAnalysisOptions;
+			progress?: MessagePort;
 	  }
 	| {
 			kind: 'mc-summary';
@@ -87,6 +103,22 @@ function run(task: DesignTask): unknown {
 			const v = variantsFor(task.key, task.document);
 			checkTolerances(v, task.request.tolerances);
 			return monteCarloChunk(v, task.request, task.from, task.to);
+		}
+		case 'large-analysis': {
+			const port = task.progress;
+			let last = -1;
+			const value = analyze(task.document, {
+				dominant: { count: task.options.poles, near: task.options.near },
+				frequency: task.options.points === 0 ? false : { points: task.options.points ?? 200 },
+				onProgress: (done, stage) => {
+					// At most one message per percent: the job row records each.
+					const pct = Math.floor(done * 100);
+					if (pct !== last) port?.postMessage({ done: pct, stage });
+					last = pct;
+				}
+			});
+			port?.close();
+			return value;
 		}
 		case 'mc-summary': {
 			const result = summarize(variantsFor(task.key, task.document), task.request, task.records);

@@ -271,3 +271,134 @@ function halfWork(f: Ldl, n: number): Float64Array {
 	if (!w) halfWorks.set(f, (w = new Float64Array(n)));
 	return w;
 }
+
+/**
+ * Complex symmetric LDLᵀ (A = Aᵀ, not Hermitian) on the same symbolic analysis: the network
+ * G + jω·C of a reciprocal network at one frequency. Without pivoting, as for the real factor:
+ * the real part G is positive definite, so no pivot vanishes.
+ */
+export interface LdlComplex {
+	symbolic: LdlSymbolic;
+	lre: Float64Array;
+	lim: Float64Array;
+	dre: Float64Array;
+	dim: Float64Array;
+}
+
+export function ldlNumericComplex(s: LdlSymbolic, re: Float64Array, im: Float64Array): LdlComplex {
+	const { n, colPtr, rowIdx } = s;
+	const bp = s.permuted.colPtr;
+	const bi = s.permuted.rowIdx;
+	const br = permutedValues(s, re);
+	const bim = permutedValues(s, im);
+	const lre = new Float64Array(rowIdx.length);
+	const lim = new Float64Array(rowIdx.length);
+	const dre = new Float64Array(n);
+	const dim = new Float64Array(n);
+	const xr = new Float64Array(n);
+	const xi = new Float64Array(n);
+	const nextInCol = new Int32Array(n);
+	const listHead = new Int32Array(n).fill(-1);
+	const listNext = new Int32Array(n).fill(-1);
+	for (let k = 0; k < n; k++) {
+		let dr = 0;
+		let di = 0;
+		for (let p = bp[k]; p < bp[k + 1]; p++) {
+			const r = bi[p];
+			if (r > k) {
+				xr[r] = br[p];
+				xi[r] = bim[p];
+			} else if (r === k) {
+				dr = br[p];
+				di = bim[p];
+			}
+		}
+		let i = listHead[k];
+		while (i !== -1) {
+			const following = listNext[i];
+			const p = nextInCol[i];
+			const ar = lre[p];
+			const ai = lim[p];
+			// f = l_ki · d_i
+			const fr = ar * dre[i] - ai * dim[i];
+			const fi = ar * dim[i] + ai * dre[i];
+			dr -= ar * fr - ai * fi;
+			di -= ar * fi + ai * fr;
+			for (let q = p + 1; q < colPtr[i + 1]; q++) {
+				const r = rowIdx[q];
+				xr[r] -= lre[q] * fr - lim[q] * fi;
+				xi[r] -= lre[q] * fi + lim[q] * fr;
+			}
+			if (p + 1 < colPtr[i + 1]) {
+				nextInCol[i] = p + 1;
+				const r = rowIdx[p + 1];
+				listNext[i] = listHead[r];
+				listHead[r] = i;
+			}
+			i = following;
+		}
+		dre[k] = dr;
+		dim[k] = di;
+		const d2 = dr * dr + di * di;
+		const ir = d2 > 0 ? dr / d2 : 0;
+		const ii = d2 > 0 ? -di / d2 : 0;
+		for (let q = colPtr[k]; q < colPtr[k + 1]; q++) {
+			const r = rowIdx[q];
+			lre[q] = xr[r] * ir - xi[r] * ii;
+			lim[q] = xr[r] * ii + xi[r] * ir;
+			xr[r] = 0;
+			xi[r] = 0;
+		}
+		if (colPtr[k] < colPtr[k + 1]) {
+			nextInCol[k] = colPtr[k];
+			const r = rowIdx[colPtr[k]];
+			listNext[k] = listHead[r];
+			listHead[r] = k;
+		}
+	}
+	return { symbolic: s, lre, lim, dre, dim };
+}
+
+/** Solves A·x = b in place with a complex LDLᵀ (original numbering). */
+export function ldlSolveComplex(f: LdlComplex, br: Float64Array, bi: Float64Array): void {
+	const { n, order, colPtr, rowIdx } = f.symbolic;
+	const { lre, lim, dre, dim } = f;
+	const yr = new Float64Array(n);
+	const yi = new Float64Array(n);
+	for (let i = 0; i < n; i++) {
+		yr[i] = br[order[i]];
+		yi[i] = bi[order[i]];
+	}
+	for (let j = 0; j < n; j++) {
+		const vr = yr[j];
+		const vi = yi[j];
+		if (vr === 0 && vi === 0) continue;
+		for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+			const r = rowIdx[p];
+			yr[r] -= lre[p] * vr - lim[p] * vi;
+			yi[r] -= lre[p] * vi + lim[p] * vr;
+		}
+	}
+	for (let j = 0; j < n; j++) {
+		const d2 = dre[j] * dre[j] + dim[j] * dim[j];
+		const vr = yr[j];
+		const vi = yi[j];
+		yr[j] = (vr * dre[j] + vi * dim[j]) / d2;
+		yi[j] = (vi * dre[j] - vr * dim[j]) / d2;
+	}
+	for (let j = n - 1; j >= 0; j--) {
+		let sr = yr[j];
+		let si = yi[j];
+		for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+			const r = rowIdx[p];
+			sr -= lre[p] * yr[r] - lim[p] * yi[r];
+			si -= lre[p] * yi[r] + lim[p] * yr[r];
+		}
+		yr[j] = sr;
+		yi[j] = si;
+	}
+	for (let i = 0; i < n; i++) {
+		br[order[i]] = yr[i];
+		bi[order[i]] = yi[i];
+	}
+}

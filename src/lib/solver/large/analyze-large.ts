@@ -22,11 +22,11 @@ import { elmoreDelays } from './elmore';
 import { generalOpenCircuit, generalSequential } from './general-time-constants';
 import { structuralPoleCount } from './pole-count';
 import { generalPoleDetail, rcPoleDetail, type PoleDetail } from './pole-details';
-import { nodalRC, rcDcReadings } from './rc-nodal';
+import { nodalRC, rcDcReadings, symbolicOf } from './rc-nodal';
 import { ldlSolve } from '../kernels/ldl';
 import { reducedModal, reducedModelError } from './reduced-step';
-import { primaModel, sweep, type Sweep } from './response-large';
-import { sparseMna } from './sparse-mna';
+import { primaModel, sweep, sweepRC, type Sweep } from './response-large';
+import { sparseMna, type SparseMna } from './sparse-mna';
 import { rcOpenCircuit, rcSequential } from './time-constants-rc';
 import { luOrder, sparseLu } from '../kernels/sparse-lu';
 
@@ -136,13 +136,20 @@ export function analyzeLarge(
 		backwardError: d.backwardError
 	}));
 
-	// Responses: direct sparse solves on the modified nodal equations.
+	// Responses: direct sparse solves per point — the nodal complex LDLᵀ for reciprocal RC
+	// networks, the LU of the modified nodal equations otherwise (response-large.ts).
 	progress(0.6, 'responses');
-	// Without a curve or a step to draw, the RC factor's DC solve is all that is needed.
-	const needMna = options.frequency !== false || options.step !== false || !dcFromRc;
-	const mna = needMna ? sparseMna(net) : null;
-	const order = mna ? luOrder(mna.pattern) : new Int32Array(0);
-	const dcSweep = mna && !dcFromRc ? sweep(mna, order, [0]) : null;
+	// The modified nodal equations and their column order, built only when something needs them.
+	let mna: SparseMna | null = null;
+	let order: Int32Array | null = null;
+	const mnaNow = () => (mna ??= sparseMna(net));
+	const orderNow = () => (order ??= luOrder(mnaNow().pattern));
+	const inputNodes = net.elements[net.input].nodes as [number, number];
+	const solveAt = (f: number[], onPoint?: (d: number) => void): Sweep =>
+		rc && !rc.floating
+			? sweepRC(rc, symbolicOf(rc), f, inputNodes, onPoint)
+			: sweep(mnaNow(), orderNow(), f, onPoint);
+	const dcSweep = dcFromRc ? null : solveAt([0]);
 	const dc = dcFromRc
 		? { h: { re: dcFromRc.h, im: 0 }, zin: { re: dcFromRc.zin, im: 0 } }
 		: { h: dcSweep!.h[0], zin: dcSweep!.zin[0] };
@@ -151,8 +158,10 @@ export function analyzeLarge(
 	const range = frequencyRange(details, [], options.frequency || undefined);
 	let sw: Sweep | null = null;
 	let frequencyResponse: Analysis['frequencyResponse'] = null;
-	if (mna && options.frequency !== false) {
-		sw = sweep(mna, order, logSpace(range.fMin, range.fMax, options.frequency?.points ?? 200));
+	if (options.frequency !== false) {
+		sw = solveAt(logSpace(range.fMin, range.fMax, options.frequency?.points ?? 200), (d) =>
+			progress(0.6 + 0.2 * d, 'responses')
+		);
 		frequencyResponse = {
 			f: sw.f,
 			magnitudeDb: sw.h.map((v) => nullIfBad((20 * Math.log(Math.hypot(v.re, v.im))) / LN10)),
@@ -160,16 +169,16 @@ export function analyzeLarge(
 			groupDelay: groupDelays(sw)
 		};
 	}
-	const bw = mna && sw && dcGain ? sweptBandwidth(mna, order, sw, dcGain) : null;
+	const bw = sw && dcGain ? sweptBandwidth(solveAt, sw, dcGain) : null;
 
 	progress(0.8, 'step');
 	let step: Analysis['step'] = null;
-	if (mna && options.step !== false && details.length) {
+	if (options.step !== false && details.length) {
 		step = reducedStep(
 			net,
-			mna,
-			order,
-			sw ?? sweep(mna, order, logSpace(range.fMin, range.fMax, 40)),
+			mnaNow(),
+			orderNow(),
+			sw ?? solveAt(logSpace(range.fMin, range.fMax, 40)),
 			details,
 			dcGain,
 			options,
@@ -254,22 +263,18 @@ function groupDelays(sw: Sweep): (number | null)[] {
 }
 
 /** First −3 dB crossing of the sweep, refined by bisection in log f with direct solves. */
-function sweptBandwidth(
-	mna: ReturnType<typeof sparseMna>,
-	order: Int32Array,
-	sw: Sweep,
-	dcGain: number
-): number | null {
+function sweptBandwidth(solveAt: (f: number[]) => Sweep, sw: Sweep, dcGain: number): number | null {
 	const target = Math.abs(dcGain) / Math.SQRT2;
 	const mag = (f: number) => {
-		const v = sweep(mna, order, [f]).h[0];
+		const v = solveAt([f]).h[0];
 		return Math.hypot(v.re, v.im);
 	};
 	for (let i = 1; i < sw.f.length; i++) {
 		if (Math.hypot(sw.h[i].re, sw.h[i].im) < target) {
 			let lo = Math.log(sw.f[i - 1]);
 			let hi = Math.log(sw.f[i]);
-			for (let it = 0; it < 40 && hi - lo > 1e-12; it++) {
+			// 30 halvings of one grid step: f to about 1e-10 relative.
+			for (let it = 0; it < 30 && hi - lo > 1e-12; it++) {
 				const mid = 0.5 * (lo + hi);
 				if (mag(Math.exp(mid)) < target) hi = mid;
 				else lo = mid;

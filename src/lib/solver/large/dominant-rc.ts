@@ -1,7 +1,7 @@
 import { multiplyValues, norm1 } from '../kernels/csc';
-import { ldlHalfBackward, ldlHalfForward, ldlNumeric, ldlSymbolic, type Ldl } from '../kernels/ldl';
+import { ldlHalfBackward, ldlHalfForward, ldlNumeric, type Ldl } from '../kernels/ldl';
 import { largestEigenpairs } from '../kernels/lanczos';
-import type { NodalRC } from './rc-nodal';
+import { symbolicOf, type NodalRC } from './rc-nodal';
 
 /**
  * The k natural frequencies of a reciprocal RC network nearest a real shift σ ≥ 0 (the slowest
@@ -43,7 +43,7 @@ export function rcDominantPoles(
 	const sigma = shift ?? (rc.floating ? smallRate(rc) : 0);
 	const values = Float64Array.from(g, (v, i) => v + sigma * c[i]);
 	const excess = Float64Array.from(rc.gExcess, (v, i) => v + sigma * rc.cExcess[i]);
-	const factor = ldlNumeric(ldlSymbolic(pattern), values, excess);
+	const factor = ldlNumeric(symbolicOf(rc), values, excess);
 	const y = new Float64Array(n);
 	const z = new Float64Array(n);
 	const r = largestEigenpairs(

@@ -1,4 +1,5 @@
 import { Triplets, type Csc } from '../kernels/csc';
+import { ldlSymbolic, type LdlSymbolic } from '../kernels/ldl';
 import { GROUND, type ResolvedNetwork } from '../types';
 import { onUnion } from './sparse-mna';
 
@@ -184,4 +185,15 @@ export function rcDcReadings(
 	}
 	const [p, q] = inputNodes.map((x) => (x === GROUND ? -1 : rc.unknownOf[x]));
 	return { h, zin: at(p) - at(q) };
+}
+
+const symbolicCache = new WeakMap<NodalRC, LdlSymbolic>();
+/** One symbolic analysis (order, tree, pattern) per network: every factor of G + s·C shares it. */
+export function symbolicOf(rc: NodalRC): LdlSymbolic {
+	let s = symbolicCache.get(rc);
+	if (!s) {
+		s = ldlSymbolic(rc.pattern);
+		symbolicCache.set(rc, s);
+	}
+	return s;
 }

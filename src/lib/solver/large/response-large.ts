@@ -3,6 +3,8 @@ import { multiplyValues } from '../kernels/csc';
 import { axpy, dot, normalize } from '../kernels/lanczos';
 import { luSolveSparse, luSolveSparseComplex, sparseLu, type SparseLu } from '../kernels/sparse-lu';
 import type { SparseMna } from './sparse-mna';
+import type { NodalRC } from './rc-nodal';
+import { ldlNumericComplex, ldlSolveComplex, type LdlSymbolic } from '../kernels/ldl';
 
 /**
  * Responses of a large network.
@@ -27,13 +29,20 @@ export interface Sweep {
 	zin: { re: number; im: number }[];
 }
 
-export function sweep(mna: SparseMna, order: Int32Array, f: number[]): Sweep {
+export function sweep(
+	mna: SparseMna,
+	order: Int32Array,
+	f: number[],
+	onPoint?: (done: number) => void
+): Sweep {
 	const { size: n, pattern, g, c } = mna;
 	const h: Sweep['h'] = [];
 	const zin: Sweep['zin'] = [];
 	const br = new Float64Array(n);
 	const bi = new Float64Array(n);
-	for (const freq of f) {
+	for (let k = 0; k < f.length; k++) {
+		const freq = f[k];
+		if (onPoint && k % 10 === 0) onPoint(k / f.length);
 		const w = 2 * Math.PI * freq;
 		const fac = sparseLu(
 			{ ...pattern, values: g },
@@ -113,4 +122,50 @@ export function primaModel(
 		br: Float64Array.from(V, (u) => dot(u, bFull)),
 		lr: Float64Array.from(V, (u) => dot(u, lFull))
 	};
+}
+
+/**
+ * The same sweep for a reciprocal RC network on its reduced nodal form (rc-nodal.ts): one complex
+ * symmetric LDLᵀ of G + jω·C per point on the symbolic analysis the poles already used — about
+ * half the fill of the LU of the modified nodal matrix and no pivot search, 3–5× faster. The
+ * readings are those of the modified nodal functionals (rcDcReadings).
+ */
+export function sweepRC(
+	rc: NodalRC,
+	symbolic: LdlSymbolic,
+	f: number[],
+	inputNodes: [number, number],
+	onPoint?: (done: number) => void
+): Sweep {
+	const n = rc.n;
+	const h: Sweep['h'] = [];
+	const zin: Sweep['zin'] = [];
+	const [ip, iq] = inputNodes.map((x) => (x < 0 ? -1 : rc.unknownOf[x]));
+	const im = new Float64Array(rc.c.length);
+	for (let k = 0; k < f.length; k++) {
+		if (onPoint && k % 10 === 0) onPoint(k / f.length);
+		const w = 2 * Math.PI * f[k];
+		for (let p = 0; p < im.length; p++) im[p] = w * rc.c[p];
+		const fac = ldlNumericComplex(symbolic, rc.g, im);
+		const vr = rc.rhsG.slice();
+		const vi = Float64Array.from(rc.rhsC, (x) => w * x);
+		ldlSolveComplex(fac, vr, vi);
+		const at = (a: Float64Array, i: number) => (i >= 0 ? a[i] : 0);
+		h.push({
+			re: at(vr, rc.out.plus) - at(vr, rc.out.minus) + rc.out.constant,
+			im: at(vi, rc.out.plus) - at(vi, rc.out.minus)
+		});
+		if (rc.inputKind === 'V') {
+			let sr = rc.selfG;
+			let si = w * rc.selfC;
+			for (let i = 0; i < n; i++) {
+				const br = rc.rhsG[i];
+				const bi = w * rc.rhsC[i];
+				sr -= br * vr[i] - bi * vi[i];
+				si -= br * vi[i] + bi * vr[i];
+			}
+			zin.push({ re: sr, im: si });
+		} else zin.push({ re: at(vr, ip) - at(vr, iq), im: at(vi, ip) - at(vi, iq) });
+	}
+	return { f, h, zin };
 }

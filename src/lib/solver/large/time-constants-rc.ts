@@ -1,7 +1,7 @@
 import { ldlNumeric, ldlSolve, type Ldl } from '../kernels/ldl';
 import { inverseEntry, selectedInverse, type SelectedInverse } from '../kernels/selected-inverse';
 import { GROUND, type PortReading, type ResolvedNetwork } from '../types';
-import type { NodalRC } from './rc-nodal';
+import { symbolicOf, type NodalRC } from './rc-nodal';
 
 /**
  * Zero-value (open-circuit) time constants of every capacitor port of a reciprocal RC network
@@ -33,7 +33,7 @@ export function rcOpenCircuit(
 	tcNet: ResolvedNetwork,
 	factorAtZero: Ldl | null
 ): RcOpenCircuit {
-	const factor = factorAtZero ?? anchoredFactor(rc, factorAtZero);
+	const factor = factorAtZero ?? anchoredFactor(rc);
 	const inverse = selectedInverse(factor);
 	const idx = (node: number) => (node === GROUND ? -1 : rc.unknownOf[node]);
 	const comp = (i: number) => (i < 0 ? rc.n : rc.component[i]);
@@ -60,7 +60,7 @@ export function rcOpenCircuit(
 }
 
 /** G with each floating resistive component anchored to the reference at one node. */
-function anchoredFactor(rc: NodalRC, reuse: Ldl | null): Ldl {
+function anchoredFactor(rc: NodalRC): Ldl {
 	const { n, pattern, g } = rc;
 	const values = g.slice();
 	const excess = rc.gExcess.slice();
@@ -80,20 +80,7 @@ function anchoredFactor(rc: NodalRC, reuse: Ldl | null): Ldl {
 		values[diagAt[i]] += scale || 1;
 		excess[i] += scale || 1;
 	}
-	void reuse;
 	return ldlNumeric(symbolicOf(rc), values, excess);
-}
-
-import { ldlSymbolic, type LdlSymbolic } from '../kernels/ldl';
-const symbolicCache = new WeakMap<NodalRC, LdlSymbolic>();
-/** One symbolic analysis per network (the pattern is the same for every value set). */
-export function symbolicOf(rc: NodalRC): LdlSymbolic {
-	let s = symbolicCache.get(rc);
-	if (!s) {
-		s = ldlSymbolic(rc.pattern);
-		symbolicCache.set(rc, s);
-	}
-	return s;
 }
 
 /**

@@ -15,7 +15,7 @@ export const POST = endpoint(async (event) => {
 	const workspaceId = upload.fields.workspaceId ?? upload.fields.workspace ?? '';
 	if (!UUID.test(workspaceId))
 		throw new ApiProblem(400, 'workspaceId: the workspace to import into is required.');
-	const content = parseSheetFile(upload.bytes, upload.fileName);
+	const content = await parseSheetFile(upload.bytes, upload.fileName);
 	const { sheet, revision } = await importSheetAs(actor, workspaceId, content, upload.fields.name);
 	return json({ sheet, revision: { number: revision.number } }, { status: 201 });
 });

@@ -1,0 +1,2 @@
+export { default as NetlistView } from './netlist-view.svelte';
+export { LargeAnalysis } from './large-analysis.svelte';
