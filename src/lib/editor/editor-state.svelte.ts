@@ -10,6 +10,7 @@ import { History } from './history';
 import { KINDS, hasValue, isCircuit, isSource, type ItemKind } from './kinds';
 import { nameProblem, nextName } from './names';
 import { computeNets, netNameProblem, pinAll } from './nets';
+import { planJoin } from './join-net';
 import { buildDocument } from './to-document';
 import { terminalKey, type EditorItem, type Snapshot, type TerminalRef, type Wire } from './types';
 import type { VariantSet } from '$lib/network/variant-schema';
@@ -357,6 +358,27 @@ export class EditorState {
 		const wire: Wire = { id: uid('w'), from, to };
 		this.apply({ wires: [...this.wires, wire] });
 		return wire.id;
+	}
+
+	/** Remove every wire on one terminal (the keyboard's way to delete wires); returns how many. */
+	disconnect(at: TerminalRef): number {
+		const k = terminalKey(at);
+		const keep = this.wires.filter((w) => terminalKey(w.from) !== k && terminalKey(w.to) !== k);
+		const removed = this.wires.length - keep.length;
+		if (removed) this.apply({ wires: keep });
+		return removed;
+	}
+
+	/**
+	 * Join a terminal to the net called `name` (one undo step; see join-net.ts). Returns the
+	 * reason when nothing was changed.
+	 */
+	joinNet(at: TerminalRef, name: string): { problem: string } | { added: string[] } {
+		if (this.readonly) return { problem: 'the sheet is read-only' };
+		const plan = planJoin(this.items, this.wires, at, name, uid);
+		if (!plan.ok) return { problem: plan.problem };
+		this.apply({ items: [...this.items, ...plan.items], wires: [...this.wires, ...plan.wires] });
+		return { added: plan.items.map((i) => i.id) };
 	}
 
 	setInput(id: string): void {

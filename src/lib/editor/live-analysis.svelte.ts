@@ -30,6 +30,12 @@ const nextPaint = () =>
 			})
 		: Promise.resolve();
 
+/** An answer computed with the page (the server's first analysis) and the body it answers. */
+export interface FirstAnalysis {
+	body: string;
+	analysis: Analysis | { variants: VariantResult[] };
+}
+
 export type AnalysisStatus = 'idle' | 'waiting' | 'running' | 'done' | 'blocked' | 'failed';
 
 /** Above this many ports the panels show no port-matrix tables, so the editor asks for none. */
@@ -83,6 +89,23 @@ export class LiveAnalysis {
 		private readonly delayMs = 0,
 		private readonly fetcher: typeof fetch = (...a) => fetch(...a)
 	) {}
+
+	/**
+	 * Take an answer computed elsewhere for `body` (the server's, rendered into the page) as the
+	 * current one: the same drawing is then not sent again, and the panels show it at once.
+	 */
+	seed(body: string, answer: Analysis | { variants: VariantResult[] }): void {
+		this.#lastBody = body;
+		this.status = 'done';
+		if ('variants' in answer) {
+			this.#withVariants = true;
+			this.variants = answer.variants;
+			this.#showChosen();
+		} else {
+			this.result = answer;
+			this.fault = null;
+		}
+	}
 
 	/** Called on every change of the drawing. */
 	update(document: NetworkDocument, problems: BuildProblem[], editedAt = performance.now()): void {

@@ -18,6 +18,10 @@ export interface ElementNodeData extends Record<string, unknown> {
 	readonly: boolean;
 	normalValue?: string;
 	valueError: boolean;
+	/** Each terminal in words, for its accessible name ("R1 terminal 2, on tip with C1"). */
+	terminalNames: Record<string, string>;
+	/** The terminal a keyboard wire starts from, when it is on this item. */
+	pendingTerminal: string | null;
 	/** Accepted but suspicious (a negative R, C or L): said on the symbol. */
 	valueWarning?: string;
 	/** The picked variant sets another value ("6.2p"), and the option that sets it ("Range: 100:1"). */
@@ -54,6 +58,8 @@ export function sameNodeData(a: ElementNodeData, b: ElementNodeData): boolean {
 		a.valueWarning === b.valueWarning &&
 		a.variantValue === b.variantValue &&
 		a.variantOption === b.variantOption &&
-		a.absent === b.absent
+		a.absent === b.absent &&
+		a.pendingTerminal === b.pendingTerminal &&
+		Object.entries(a.terminalNames).every(([k, v]) => b.terminalNames[k] === v)
 	);
 }

@@ -4,6 +4,7 @@ import { requireUser } from '$lib/server/auth/guard';
 import { listRevisions } from '$lib/server/db/sheets';
 import { formAction } from '$lib/server/sharing/form-action';
 import { answerSpec } from '$lib/server/review/spec-compare';
+import { firstAnalysis } from '$lib/server/first-analysis';
 import { requestContext } from '$lib/server/sharing/context';
 import { checkpointsOf, nameRevisionAs, readRevision, renameSheetAs, restoreRevisionAs, trashSheetAs, duplicateSheetAs } from '$lib/server/sharing/sheet-actions';
 import { cancelGuestInvitation, changeGrant, endShareLink, newShareLink, sharingOf, shareWithEmail, unshare } from '$lib/server/sharing/share-actions';
@@ -20,10 +21,13 @@ export const load: PageServerLoad = async ({ params, url, locals }) => {
 	try {
 		const { sheet, workspace, revision, role, can, target } = await readRevision(actor, params.id, number);
 		const viewingOld = revision.number !== sheet.latestRevision;
-		const [history, checkpoints, sharing] = await Promise.all([listRevisions(sheet.id), checkpointsOf(sheet.id), can('share') ? sharingOf(actor, sheet.id) : null]);
+		// The first analysis is rendered into the page (results before any JavaScript; null when
+		// the editor should ask itself, see first-analysis.ts).
+		const [history, checkpoints, sharing, first] = await Promise.all([listRevisions(sheet.id), checkpointsOf(sheet.id), can('share') ? sharingOf(actor, sheet.id) : null, firstAnalysis(revision.document, revision.layout)]);
 		return {
 			sheet,
 			revision,
+			firstAnalysis: first,
 			role,
 			canEdit: can('save') && !viewingOld,
 			viewingOld,
@@ -32,6 +36,12 @@ export const load: PageServerLoad = async ({ params, url, locals }) => {
 			checkpoints,
 			sharing,
 			may: { rename: can('rename'), restore: can('save'), trash: can('trash'), duplicate: can('duplicate'), comment: can('comment') },
+			// Past the long canvas, straight to what a reader came for (drawn by the root layout).
+			skipLinks: [
+				{ href: '#results', label: 'Skip to the results' },
+				{ href: '#review-panel', label: 'Skip to the review' },
+				...(can('comment') ? [{ href: '#new-comment', label: 'Skip to a new comment' }] : [{ href: '#comments', label: 'Skip to the comments' }])
+			],
 			// Streamed (not awaited): the review answer's spec verdicts follow the page in.
 			reviewSpec: answerSpec(actor, sheet.id).catch(() => null)
 		};
