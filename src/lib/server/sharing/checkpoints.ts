@@ -53,7 +53,10 @@ export function groupCheckpoints(
 	references: Map<number, Set<ReferenceKind>>
 ): Checkpoint[] {
 	const asc = [...revisions].sort((a, b) => a.number - b.number);
-	const ends = (r: RevisionForHistory) => !!r.name || !!r.message || references.has(r.number);
+	// Revision 1's automatic "Created" (db/sheets.ts) is not a message anyone wrote: the first
+	// edits after creating a sheet belong with it.
+	const written = (r: RevisionForHistory) => !!r.message && !(r.number === 1 && r.message === 'Created');
+	const ends = (r: RevisionForHistory) => !!r.name || written(r) || references.has(r.number);
 	const groups: RevisionForHistory[][] = [];
 	for (const r of asc) {
 		const g = groups.at(-1);
