@@ -22,6 +22,11 @@ test('six variants side by side, specs across them, compensation solved per posi
 	const table = page.getByTestId('variant-figures');
 	await expect(table.locator('tbody tr')).toHaveCount(6);
 	await expect(table).toContainText('1000:1 · 2 m cable');
+	// Each variant's dominant pole with its estimate, the estimate naming its method.
+	const estimates = page.getByTestId('variant-poles').getByTestId('variant-estimate');
+	await expect(estimates).toHaveCount(12);
+	for (const text of await estimates.allInnerTexts())
+		expect(text).toMatch(/%\)\s*(1\/b1|coefficient ratio|root of|sequential)/);
 	const cross = page.getByTestId('cross-spec-live').getByTestId('cross-spec');
 	const cinRow = cross
 		.locator('tr', { hasText: '1.2 m cable' })
