@@ -25,6 +25,10 @@ test('six variants side by side, specs across them, compensation solved per posi
 	// Each variant's dominant pole with its estimate, the estimate naming its method.
 	const estimates = page.getByTestId('variant-poles').getByTestId('variant-estimate');
 	await expect(estimates).toHaveCount(12);
+	// Edges in picoseconds, tails in microseconds: the overlaid steps are on a log time axis.
+	await expect(
+		page.getByRole('img', { name: /Step responses of 6 variants, overlaid, logarithmic/ })
+	).toBeVisible();
 	for (const text of await estimates.allInnerTexts())
 		expect(text).toMatch(/%\)\s*(1\/b1|coefficient ratio|root of|sequential)/);
 	const cross = page.getByTestId('cross-spec-live').getByTestId('cross-spec');
