@@ -282,7 +282,7 @@ function renderTable(a: Analysis): string {
 			f(p.tau, 's'),
 			p.estimate ? `${f(p.estimate.hz, 'Hz')} (${p.estimate.basis})` : '—',
 			p.relativeError === null ? '—' : `${(p.relativeError * 100).toPrecision(3)} %`,
-			p.owners[0] ? `${p.owners[0].element} ${(p.owners[0].share * 100).toFixed(0)} %` : '—'
+			p.owners[0] ? `${p.owners[0].element} ${Number((p.owners[0].share * 100).toPrecision(2))} %` : '—'
 		]);
 	});
 	const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => [...r[c]].length)) + 2);

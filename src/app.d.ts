@@ -16,7 +16,10 @@ declare global {
 			/** A recognised fault met while answering (set by handleError, read by faultHandle). */
 			fault?: import('$lib/server/faults').Fault | null;
 		}
-		// interface PageData {}
+		interface PageData {
+			/** Extra skip links a page offers first in the tab order (the layout draws them). */
+			skipLinks?: { href: string; label: string }[];
+		}
 		// interface PageState {}
 		// interface Platform {}
 	}

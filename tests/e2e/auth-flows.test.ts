@@ -84,6 +84,31 @@ test('sign up, sign out, sign in, a wrong password, then forget it and reset it 
 	await expect(header.getByText('Ines Varga')).toBeVisible();
 });
 
+test('what is typed before the page has finished loading is kept and sent', async ({ page }) => {
+	// On a slow device (or a loaded test machine) people type before the page's script has
+	// taken over the form; taking over must not reset the fields. The script is held back until
+	// the form is filled, then let through.
+	let release!: () => void;
+	const held = new Promise<void>((ok) => (release = ok));
+	await page.route(/\/_app\/immutable\//, async (route) => {
+		await held;
+		await route.continue();
+	});
+	const email = `early-${Date.now()}@example.test`;
+	await page.goto('/sign-up', { waitUntil: 'domcontentloaded' });
+	await page.getByLabel('Your name').fill('Teodor Early');
+	await page.getByLabel('E-mail address').fill(email);
+	await page.getByLabel('Password').fill('typed before load 42');
+	release();
+	await page.waitForLoadState('networkidle');
+	await expect(page.getByLabel('Your name')).toHaveValue('Teodor Early');
+	await expect(page.getByLabel('E-mail address')).toHaveValue(email);
+	await expect(page.getByLabel('Password')).toHaveValue('typed before load 42');
+	await page.getByRole('button', { name: 'Create account' }).click();
+	await finishSignUp(page, email);
+	await expect(page.getByRole('navigation', { name: 'Main' }).getByText('Teodor Early')).toBeVisible();
+});
+
 test('an API token works on an API route once created and stops when revoked', async ({ page, request }) => {
 	await signIn(page, 'reviewer@polewise.test', 'polewise-review');
 	await page.goto('/account');

@@ -88,7 +88,9 @@ test('snap every part to E12 and see the effect', async ({ page }) => {
 	const table = aids.getByRole('table', { name: 'Preferred values' });
 	// 9 MΩ is not in E12: its neighbours are 8.2 MΩ and 10 MΩ, nearer 8.2 by ratio (IEC 60063 E12, from memory).
 	await expect(table.getByRole('row', { name: /Rtop/ })).toContainText('8.2 MΩ');
-	await expect(table.getByRole('row', { name: /Ccable/ })).toContainText('39 pF');
+	// The cable is a fixed value: not offered for snapping, and said to be left alone.
+	await expect(table.getByRole('row', { name: /Ccable/ })).toHaveCount(0);
+	await expect(aids.getByTestId('snap-skipped')).toHaveText('Left alone: Ccable (fixed value).');
 	await expect(aids.getByTestId('snap-all')).toContainText('All snapped to E12');
 	if (shots) await aids.screenshot({ path: `${shots}/design-snap.png` });
 });
@@ -134,7 +136,9 @@ test('apply snapped values to the drawing: one undo step each, saved like any ed
 
 	await aids.getByRole('button', { name: 'Apply all' }).click();
 	await expect(node(page, 'Rsrc')).toContainText('47 Ω');
-	await expect(node(page, 'Ccable')).toContainText('39 pF');
+	// "Apply all" leaves the cable (a fixed value) as it was.
+	await expect(node(page, 'Ccable')).toContainText('42 pF');
+	await expect(node(page, 'Cadc')).toContainText('18 pF');
 	await expect(saved).toHaveAttribute('data-revision', '3');
 	// One undo takes the whole "apply all" back, and not the single apply before it.
 	await page.getByLabel('Drawing commands').getByRole('button', { name: /Undo/ }).click();

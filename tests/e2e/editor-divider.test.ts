@@ -4,6 +4,8 @@ import { expect, test } from '@playwright/test';
 import { artifact } from './artifacts';
 import {
 	analysis,
+	dividerPolesHz,
+	EMPTY_SHEET as EMPTY,
 	dropPart,
 	newSheet,
 	node,
@@ -15,24 +17,6 @@ import {
 	terminal,
 	wire
 } from './editor-helpers';
-
-const EMPTY = { schema: 1, elements: [], input: 'none', output: { node: 'gnd', reference: 'gnd' } };
-
-/**
- * Closed form of the divider's two-node network (nodal analysis, sources at zero): with
- * Yt = 1/Rt + sCt, Yi = 1/Ri + sCi, Gs = 1/Rs the determinant is Gs(Yt + Yi) + Yt·Yi, i.e.
- *   Ct·Ci s² + (Gs(Ct + Ci) + Ci/Rt + Ct/Ri) s + Gs(1/Rt + 1/Ri) + 1/(Rt·Ri) = 0.
- * Roots by the quadratic formula in its cancellation-free form (s1 = (−b − √D)/2a, s2 = c/(a·s1)).
- */
-function dividerPolesHz(Rs: number, Rt: number, Ct: number, Ri: number, Ci: number): number[] {
-	const Gs = 1 / Rs;
-	const a = Ct * Ci;
-	const b = Gs * (Ct + Ci) + Ci / Rt + Ct / Ri;
-	const c = Gs * (1 / Rt + 1 / Ri) + 1 / (Rt * Ri);
-	const s1 = (-b - Math.sqrt(b * b - 4 * a * c)) / (2 * a);
-	const s2 = c / (a * s1);
-	return [s2, s1].map((s) => Math.abs(s) / (2 * Math.PI)).sort((x, y) => x - y);
-}
 
 test('draw the 10:1 divider from an empty sheet and read its exact poles', async ({ page }) => {
 	test.setTimeout(90_000);

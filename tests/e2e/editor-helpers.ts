@@ -28,8 +28,12 @@ export async function finishSignUp(page: Page, email: string): Promise<void> {
 	if (!inbox) throw new Error('MAIL_INBOX_URL is not set: run through `npm test`');
 	let link: string | undefined;
 	for (let i = 0; i < 100 && !link; i++) {
-		const messages = (await (await fetch(`${inbox}/api/messages?to=${encodeURIComponent(email)}`)).json()) as { text: string }[];
-		link = messages.map((m) => /https?:\/\/\S+\/sign-up\/[a-z2-7]{52}/.exec(m.text)?.[0]).find(Boolean);
+		const messages = (await (
+			await fetch(`${inbox}/api/messages?to=${encodeURIComponent(email)}`)
+		).json()) as { text: string }[];
+		link = messages
+			.map((m) => /https?:\/\/\S+\/sign-up\/[a-z2-7]{52}/.exec(m.text)?.[0])
+			.find(Boolean);
 		if (!link) await new Promise((r) => setTimeout(r, 100));
 	}
 	if (!link) throw new Error(`no sign-up mail for ${email}`);
@@ -128,3 +132,33 @@ export const RC_LOW_PASS = {
 	input: 'Vin',
 	output: { node: 'out', reference: 'gnd' }
 };
+
+/** A sheet with nothing on it. */
+export const EMPTY_SHEET = {
+	schema: 1,
+	elements: [],
+	input: 'none',
+	output: { node: 'gnd', reference: 'gnd' }
+};
+
+/**
+ * Closed form of the divider's two-node network (nodal analysis, sources at zero): with
+ * Yt = 1/Rt + sCt, Yi = 1/Ri + sCi, Gs = 1/Rs the determinant is Gs(Yt + Yi) + Yt·Yi, i.e.
+ *   Ct·Ci s² + (Gs(Ct + Ci) + Ci/Rt + Ct/Ri) s + Gs(1/Rt + 1/Ri) + 1/(Rt·Ri) = 0.
+ * Roots by the quadratic formula in its cancellation-free form (s1 = (−b − √D)/2a, s2 = c/(a·s1)).
+ */
+export function dividerPolesHz(
+	Rs: number,
+	Rt: number,
+	Ct: number,
+	Ri: number,
+	Ci: number
+): number[] {
+	const Gs = 1 / Rs;
+	const a = Ct * Ci;
+	const b = Gs * (Ct + Ci) + Ci / Rt + Ct / Ri;
+	const c = Gs * (1 / Rt + 1 / Ri) + 1 / (Rt * Ri);
+	const s1 = (-b - Math.sqrt(b * b - 4 * a * c)) / (2 * a);
+	const s2 = c / (a * s1);
+	return [s2, s1].map((s) => Math.abs(s) / (2 * Math.PI)).sort((x, y) => x - y);
+}

@@ -29,7 +29,7 @@ test('editor screenshots, light and dark, of the seeded divider', async ({ page 
 		await expect(page.locator('html')).toHaveAttribute('data-theme', theme);
 		await expect(analysis(page)).toHaveAttribute('data-analysis-status', 'done');
 		// Pick the slow pole so its owners light up on the canvas.
-		await page.getByRole('button', { name: 'Show the parts that set pole 1' }).click();
+		await page.getByRole('button', { name: 'p1: show the parts that set this pole' }).click();
 		await expect(page.locator('.pw-symbol-lit').first()).toBeVisible();
 		await page.locator('.pw-canvas').scrollIntoViewIfNeeded();
 		// Every part's comment marker sits clear of every name/value label on the canvas.

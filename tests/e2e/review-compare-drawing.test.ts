@@ -49,11 +49,11 @@ test('compare: both drawings with added, removed and changed parts marked; spec 
 	// Older drawing: RL removed, R1 changed (with its new value); nothing marked as added.
 	await expect(older.locator('[data-part="RL"]')).toHaveAttribute('data-mark', 'removed');
 	await expect(older.locator('[data-part="RL"]')).toContainText('removed');
-	await expect(older.locator('[data-part="R1"]')).toContainText('changed: → 2k');
+	await expect(older.locator('[data-part="R1"]')).toContainText('changed: → 2 kΩ');
 	await expect(older.locator('[data-mark="added"]')).toHaveCount(0);
 	// Newer drawing: C2 added, R1 changed (with its old value); C1 and V1 untouched.
 	await expect(newer.locator('[data-part="C2"]')).toHaveAttribute('data-mark', 'added');
-	await expect(newer.locator('[data-part="R1"]')).toContainText('changed: was 1k');
+	await expect(newer.locator('[data-part="R1"]')).toContainText('changed: was 1 kΩ');
 	await expect(newer.locator('[data-part="C1"], [data-part="V1"]')).toHaveCount(0);
 	await expect(newer.locator('[data-mark="removed"]')).toHaveCount(0);
 

@@ -87,7 +87,8 @@ test('request, comment on a part and a pole, live updates, sign-off, changed sin
 	// B signs off revision 1; A sees it live.
 	const mine = panel(b).getByRole('region', { name: 'Your review' });
 	await mine.getByLabel('Summary').fill('Corner at 159 kHz is fine for this band.');
-	await mine.getByRole('button', { name: 'Sign off revision 1' }).click();
+	await mine.getByRole('button', { name: 'Sign off revision 1…' }).click();
+	await mine.getByRole('button', { name: 'Yes, sign off revision 1' }).click();
 	await expect(panel(a).getByTestId('review-state')).toHaveText(/Signed off\s+—\s+revision 1/);
 	await b.screenshot({ path: artifact('review-b-signed.png'), fullPage: true });
 
@@ -104,7 +105,7 @@ test('request, comment on a part and a pole, live updates, sign-off, changed sin
 	await a.screenshot({ path: artifact('review-a-changed.png'), fullPage: true });
 	await notice.getByRole('link', { name: 'Compare 1 with 2' }).click();
 	await expect(a.getByTestId('element-changes')).toContainText('R1');
-	await expect(a.getByTestId('element-changes')).toContainText('2k');
+	await expect(a.getByTestId('element-changes')).toContainText('2 kΩ');
 	// Closed form: R doubles, so the single pole −1/RC halves (−50 %).
 	await expect(a.getByTestId('p-movement').getByTestId('movement')).toHaveText('−50.0 %');
 	await a.screenshot({ path: artifact('review-compare.png'), fullPage: true });

@@ -25,6 +25,51 @@ async function save(userId: string, sheetId: string, document: unknown) {
 	return saveRevision(userId, sheetId, { document }, latest.number);
 }
 
+// A high-pass (C1 in series, R1 to ground) has DC gain 0 and no step figures; a resistor R2
+// across C1 gives it a DC path (gain R1/(R1 + R2) = 0.5, closed form) and a step that starts at
+// 1 (100 % overshoot of the final 0.5) and decays with τ = (R1 ∥ R2)·C1 = 0.5 µs, settling after
+// about τ·ln 100 ≈ 2.3 µs; without C1 the divider settles at once (settling time 0).
+const highPass = (extra: object[] = [], withC = true) => ({
+	schema: 1,
+	elements: [
+		{ id: 'V1', type: 'V', nodes: ['in', 'gnd'], value: 1 },
+		...(withC ? [{ id: 'C1', type: 'C', nodes: ['in', 'out'], value: '1n' }] : []),
+		{ id: 'R1', type: 'R', nodes: ['out', 'gnd'], value: '1k' },
+		...extra
+	],
+	input: 'V1',
+	output: { node: 'out' }
+});
+
+describe('revision comparison: changes at or near zero, and figures that appear or disappear', () => {
+	it('says absolute changes from zero, no change at zero, and appears/gone in words — never −100 %', async () => {
+		const world = await matrixWorld();
+		const { sheet } = await world.sheet();
+		const r2 = { id: 'R2', type: 'R', nodes: ['in', 'out'], value: '1k' };
+		await save(world.owner.id, sheet.id, highPass()); // 2
+		await save(world.owner.id, sheet.id, highPass([r2])); // 3
+		await save(world.owner.id, sheet.id, highPass([r2], false)); // 4
+		const get = async (from: number, to: number) => {
+			const res = await call(compare.GET, { user: world.viewer, params: { id: sheet.id }, path: `/api/sheets/${sheet.id}/compare?from=${from}&to=${to}` });
+			expect(res.status).toBe(200);
+			return Object.fromEntries(res.body.figures.map((f: { key: string }) => [f.key, f]));
+		};
+		const a = await get(2, 3);
+		expect(a.dcGain).toMatchObject({ unit: 'V/V', before: 0, changePct: null, change: { kind: 'absolute' } });
+		near(a.dcGain.change.absolute, 0.5, 1e-9);
+		expect(a.highFrequencyGain.change).toEqual({ kind: 'same' });
+		expect(a.riseTime.change).toEqual({ kind: 'appears' });
+		expect(a.settlingTime.change).toEqual({ kind: 'appears' });
+		expect(a.bandwidth.change).toEqual({ kind: 'none' });
+		const b = await get(3, 4);
+		// Settling time 2.3 µs → 0: an absolute change, not −100 %.
+		expect(b.settlingTime).toMatchObject({ after: 0, changePct: null, change: { kind: 'absolute' } });
+		expect(b.settlingTime.change.absolute).toBeLessThan(0);
+		expect(b.overshoot).toMatchObject({ changePct: null, change: { kind: 'absolute' } });
+		near(b.overshoot.change.absolute, -100, 1e-9);
+	});
+});
+
 describe('revision comparison', () => {
 	it('R1 1 kΩ → 2 kΩ: exactly R1 changed, the pole moves from −1/RC to −1/(2RC), figures follow', async () => {
 		const world = await matrixWorld();

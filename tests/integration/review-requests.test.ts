@@ -68,10 +68,20 @@ describe('review requests and sign-off', () => {
 		expect(answerMail.text).toContain('Arms match within 1 %.');
 	});
 
+	it('a sign-off without a summary is refused and changes nothing; asking for changes may be brief', async () => {
+		const w = await reviewWorld();
+		const made = await ask(w.author, w.sheet.id, { reviewers: [w.reviewer.id], message: '' });
+		const empty = await reply(w.reviewer, w.sheet.id, made.body.request.id, { decision: 'approve', summary: '   ' });
+		expect(empty.status).toBe(400);
+		expect(empty.body.error).toMatch(/summary: say in a line what you checked before signing off/);
+		expect((await overview(w.author, w.sheet.id)).summary).toMatchObject({ state: 'waiting', answered: 0 });
+		expect((await reply(w.reviewer, w.sheet.id, made.body.request.id, { decision: 'changes' })).status).toBe(200);
+	});
+
 	it('a layout-only save is not a change since approval; a value change is', async () => {
 		const w = await reviewWorld();
 		const made = await ask(w.author, w.sheet.id, { reviewers: [w.reviewer.id], message: '' });
-		await reply(w.reviewer, w.sheet.id, made.body.request.id, { decision: 'approve' });
+		await reply(w.reviewer, w.sheet.id, made.body.request.id, { decision: 'approve', summary: 'Checked.' });
 		await save(w.author.id, w.sheet.id, network('9M'), { items: [{ id: 'R1', x: 10, y: 20 }] });
 		expect((await overview(w.author, w.sheet.id)).summary).toMatchObject({ approvedRevision: 1, latestRevision: 2, changedSinceApproval: false });
 		await save(w.author.id, w.sheet.id, network('9.1M'));
@@ -81,7 +91,7 @@ describe('review requests and sign-off', () => {
 	it('changes asked outweighs an approval; a new request starts over; a withdrawn one no longer counts', async () => {
 		const w = await reviewWorld();
 		const first = await ask(w.author, w.sheet.id, { reviewers: [w.reviewer.email, w.commenter.id] });
-		await reply(w.reviewer, w.sheet.id, first.body.request.id, { decision: 'approve' });
+		await reply(w.reviewer, w.sheet.id, first.body.request.id, { decision: 'approve', summary: 'Checked.' });
 		expect((await overview(w.author, w.sheet.id)).summary.state).toBe('waiting');
 		await reply(w.commenter, w.sheet.id, first.body.request.id, { decision: 'changes', summary: 'R2 runs hot' });
 		expect((await overview(w.author, w.sheet.id)).summary).toMatchObject({ state: 'changes', label: 'Changes asked', approvedRevision: null });
@@ -89,7 +99,7 @@ describe('review requests and sign-off', () => {
 		expect((await overview(w.author, w.sheet.id)).summary).toMatchObject({ state: 'waiting', requestId: second.body.request.id });
 		expect((await call(withdraw.DELETE, { user: w.author, params: { id: w.sheet.id, requestId: second.body.request.id }, method: 'DELETE' })).status).toBe(204);
 		expect((await overview(w.author, w.sheet.id)).summary).toMatchObject({ state: 'changes', requestId: first.body.request.id });
-		const late = await reply(w.reviewer, w.sheet.id, second.body.request.id, { decision: 'approve' });
+		const late = await reply(w.reviewer, w.sheet.id, second.body.request.id, { decision: 'approve', summary: 'Checked.' });
 		expect(late.status).toBe(409);
 	});
 
@@ -120,9 +130,9 @@ describe('who may do what', () => {
 		// A viewer cannot ask for reviews (needs save) nor answer (needs comment and a place on the request).
 		expect((await ask(w.viewer, w.sheet.id, { reviewers: [w.reviewer.id] })).status).toBe(403);
 		expect((await ask(w.reviewer, w.sheet.id, { reviewers: [w.author.id] })).status).toBe(403);
-		expect((await reply(w.viewer, w.sheet.id, requestId, { decision: 'approve' })).status).toBe(403);
+		expect((await reply(w.viewer, w.sheet.id, requestId, { decision: 'approve', summary: 'Checked.' })).status).toBe(403);
 		// An editor who was not asked may not sign off in the reviewer's place.
-		const notAsked = await reply(w.editor, w.sheet.id, requestId, { decision: 'approve' });
+		const notAsked = await reply(w.editor, w.sheet.id, requestId, { decision: 'approve', summary: 'Checked.' });
 		expect(notAsked.status).toBe(403);
 		expect(notAsked.body.error).toBe('You were not asked to review this request.');
 		// Someone from another workspace: the sheet does not exist for them. Signed out: 401.

@@ -32,7 +32,7 @@ async function world() {
 		return made.body.request.id as string;
 	};
 	const reply = (sheetId: string, requestId: string, decision: 'approve' | 'changes') =>
-		call(answer.POST, { user: reviewer, params: { id: sheetId, requestId }, method: 'POST', body: { decision } });
+		call(answer.POST, { user: reviewer, params: { id: sheetId, requestId }, method: 'POST', body: { decision, summary: 'Checked the corner.' } });
 	// Five sheets, one per state.
 	const { sheet: fresh } = await w.sheet('A fresh');
 	const { sheet: waiting } = await w.sheet('B waiting');

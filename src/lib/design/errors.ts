@@ -5,6 +5,7 @@
 export type DesignErrorCode =
 	| 'unknown_element'
 	| 'not_adjustable'
+	| 'fixed_part'
 	| 'bad_value'
 	| 'bad_range'
 	| 'no_solution'

@@ -43,9 +43,9 @@ describe('solve for a value', () => {
 		expect(r.before.figure!).toBeGreaterThan(0.5);
 		expect(r.atRangeEdge).toBe(false);
 		// E24 neighbours of 6.667 pF are 6.2 pF and 6.8 pF (IEC 60063 E24, from memory).
-		expect(r.preferred.below.value).toBeCloseTo(6.2e-12, 20);
-		expect(r.preferred.above.value).toBeCloseTo(6.8e-12, 20);
-		expect(r.preferred.nearest).toBe('above');
+		expect(r.preferred!.below.value).toBeCloseTo(6.2e-12, 20);
+		expect(r.preferred!.above.value).toBeCloseTo(6.8e-12, 20);
+		expect(r.preferred!.nearest).toBe('above');
 		expect(r.response.f).toHaveLength(200);
 		expect(r.step.after.length).toBe(r.step.t.length);
 	});

@@ -14,6 +14,8 @@ import { evaluateWith, nominalOf, openVariants, type Variants } from './variants
 import { logSpace } from '../solver/frequency-response';
 import { frequencyRange } from '../solver/response-range';
 import { formatEngineering } from '../solver/format';
+import { assertSolvable, trimRange, trimmerSetting } from './roles';
+import type { NetworkDocument } from '../network/schema';
 
 /**
  * Solve for one element's value. "flat" minimizes the worst deviation of |H| from its DC value
@@ -53,7 +55,10 @@ export interface SolveResult {
 	atRangeEdge: boolean;
 	before: Variant;
 	after: Variant;
-	preferred: { series: Series; below: Variant; above: Variant; nearest: 'below' | 'above' };
+	/** Preferred-value neighbours; null for a trimmer (it is set by adjustment, not bought). */
+	preferred: { series: Series; below: Variant; above: Variant; nearest: 'below' | 'above' } | null;
+	/** For a trimmer: its range and where the answer sits on it (0 … 1), or that it is outside. */
+	trimmer: { min: number; max: number; position: number; inRange: boolean } | null;
 	response: { f: number[]; beforeDb: (number | null)[]; afterDb: (number | null)[] };
 	step: { t: number[]; before: number[]; after: number[] };
 }
@@ -74,7 +79,12 @@ const SCAN_POINTS = 41;
 export function solveForValue(doc: unknown, req: SolveRequest): SolveResult {
 	const v = openVariants(doc);
 	const x0 = nominalOf(v, req.element);
-	const range = req.range ?? { from: Math.abs(x0) / 10, to: Math.abs(x0) * 10 };
+	const el = (doc as NetworkDocument).elements.find((e) => e.id === req.element)!;
+	assertSolvable(doc as NetworkDocument, req.element);
+	const trim = trimRange(el);
+	// A trimmer's search covers its range and a decade beyond either end, so an answer outside
+	// the range is found and said, not clipped to the end stop.
+	const range = req.range ?? (trim ? { from: Math.min(trim.min, Math.abs(x0)) / 10, to: Math.max(trim.max, Math.abs(x0)) * 10 } : { from: Math.abs(x0) / 10, to: Math.abs(x0) * 10 });
 	if (!(range.from > 0 && range.to > range.from && Number.isFinite(range.to))) {
 		throw new DesignError(
 			'bad_range',
@@ -114,8 +124,6 @@ export function solveForValue(doc: unknown, req: SolveRequest): SolveResult {
 	};
 	const before = variant(x0);
 	const after = variant(value);
-	const below = variant(sign * snapped.below);
-	const above = variant(sign * snapped.above);
 	return {
 		element: req.element,
 		goal: req.goal,
@@ -126,12 +134,15 @@ export function solveForValue(doc: unknown, req: SolveRequest): SolveResult {
 		atRangeEdge: found.edge,
 		before,
 		after,
-		preferred: {
-			series,
-			below,
-			above,
-			nearest: snapped.nearest === snapped.below ? 'below' : 'above'
-		},
+		preferred: trim
+			? null
+			: {
+					series,
+					below: variant(sign * snapped.below),
+					above: variant(sign * snapped.above),
+					nearest: snapped.nearest === snapped.below ? 'below' : 'above'
+				},
+		trimmer: trimmerSetting(el, value),
 		...curves(v, req.element, x0, value)
 	};
 }

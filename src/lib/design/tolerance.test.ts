@@ -168,3 +168,60 @@ describe('worst case', () => {
 		);
 	});
 });
+
+describe('honest statistics (issue 16, item 4)', () => {
+	const tolerances = [{ element: 'R1', tolerance: 0.01, distribution: 'uniform' as const }];
+	it('no spec limits, no yield: Monte Carlo and worst case give no verdict', () => {
+		for (const spec of [undefined, {}]) {
+			const r = monteCarlo(divider, { tolerances, runs: 50, seed: 1, spec });
+			expect(r.yield).toBeNull();
+			const w = worstCase(divider, { method: 'corners', tolerances, spec });
+			expect(w.spec).toBeNull();
+		}
+		// With a limit set there is one.
+		const r = monteCarlo(divider, {
+			tolerances,
+			runs: 50,
+			seed: 1,
+			spec: { dcGain: { min: 0.09, max: 0.11 } }
+		});
+		expect(r.yield).toMatchObject({ pass: 50, runs: 50 });
+	});
+
+	// A 10:1 compensated divider (9 MΩ ∥ Ct over 1 MΩ ∥ 90 pF, common practice) with Ct ±15 %:
+	// over-compensated (Ct ≥ 10 pF) or slightly under, the step jumps past 90 % at once and the
+	// 10–90 % rise time is set by the 50 Ω source (sub-ns); under-compensated by more than about
+	// 10 % the step jumps to Ct/(Ct + 90 pF) of its input, below 90 % of the final 0.1, and creeps
+	// up with τ = (9 MΩ ∥ 1 MΩ)(Ct + 90 pF) ≈ 90 µs — tens of µs. Two populations, decades apart.
+	const probe = {
+		schema: 1,
+		elements: [
+			{ id: 'V1', type: 'V', nodes: ['src', 'gnd'], value: 1 },
+			{ id: 'Rs', type: 'R', nodes: ['src', 'a'], value: '50' },
+			{ id: 'Rt', type: 'R', nodes: ['a', 'b'], value: '9M' },
+			{ id: 'Ct', type: 'C', nodes: ['a', 'b'], value: '10p' },
+			{ id: 'Rin', type: 'R', nodes: ['b', 'gnd'], value: '1M' },
+			{ id: 'Cin', type: 'C', nodes: ['b', 'gnd'], value: '90p' }
+		],
+		input: 'V1',
+		output: { node: 'b' }
+	};
+	it('a rise time split in two clusters is reported as clusters; the gain as one population', () => {
+		const r = monteCarlo(probe, {
+			tolerances: [{ element: 'Ct', tolerance: 0.15, distribution: 'uniform' }],
+			runs: 400,
+			seed: 3
+		});
+		const rise = r.figures.find((f) => f.figure === 'riseTime')!;
+		expect(rise.clusters).toHaveLength(2);
+		const [fast, slow] = rise.clusters!;
+		expect(fast.max).toBeLessThan(1e-8);
+		expect(slow.min).toBeGreaterThan(1e-7);
+		expect(slow.max).toBeGreaterThan(1e-5);
+		// The mean is typical of neither cluster: hundreds of times the fast one's median, a
+		// fraction of the slow one's.
+		expect(rise.stats.mean / fast.p50).toBeGreaterThan(100);
+		expect(slow.p50 / rise.stats.mean).toBeGreaterThan(3);
+		expect(r.figures.find((f) => f.figure === 'dcGain')!.clusters).toBeNull();
+	});
+});

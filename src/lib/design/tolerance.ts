@@ -3,7 +3,8 @@ import { DesignError } from './errors';
 import { metricsOf, type Metrics } from './evaluate';
 import { elementOf } from './prepared';
 import { normal, runStream } from './random';
-import { checkSpec, optionsFor } from './spec-limits';
+import { checkSpec, isEmptySpec, optionsFor } from './spec-limits';
+import { findClusters, type Cluster } from './clusters';
 import { histogram, statistics, type Histogram, type Statistics } from './statistics';
 import { evaluateWith, openVariants, type Variants } from './variants';
 
@@ -46,6 +47,8 @@ export interface FigureSummary {
 	figure: string;
 	stats: Statistics;
 	histogram: Histogram;
+	/** Separate populations (clusters.ts); when set, mean and σ describe no run: show these. */
+	clusters: Cluster[] | null;
 }
 
 export interface MonteCarloResult {
@@ -114,7 +117,7 @@ export function monteCarloChunk(
 				poles: Array.from({ length: k }, (_, i) =>
 					m.poles[i] ? Math.hypot(m.poles[i].re, m.poles[i].im) / (2 * Math.PI) : null
 				),
-				pass: req.spec ? checkSpec(req.spec, m).pass : null
+				pass: hasLimits(req) ? checkSpec(req.spec!, m).pass : null
 			});
 		} catch (e) {
 			out.push({
@@ -140,7 +143,8 @@ export function summarize(
 	const summary = (figure: string, xs: number[]): FigureSummary => ({
 		figure,
 		stats: statistics(xs, records.length),
-		histogram: histogram(xs, 30)
+		histogram: histogram(xs, 30),
+		clusters: findClusters(xs)
 	});
 	const figures = FIGURES.map((f, i) =>
 		summary(
@@ -156,12 +160,13 @@ export function summarize(
 		)
 	).filter((s) => s.stats.count > 0);
 	let yieldResult: MonteCarloResult['yield'] = null;
-	if (req.spec) {
+	// A yield needs limits: with none set, "100 % ± 0 %" would be a verdict on nothing.
+	if (hasLimits(req)) {
 		const pass = records.filter((r) => r.pass).length;
 		const n = records.length;
 		const fraction = n ? pass / n : 0;
 		// Per-check pass fractions from the stored figures, so a failing yield says which limit bites.
-		const checks = checkSpec(req.spec, nominal).checks;
+		const checks = checkSpec(req.spec!, nominal).checks;
 		const byCheck = checks.map((c) => {
 			const idx = FIGURES.indexOf(c.key === 'flatness' ? 'flatnessDb' : (c.key as Figure));
 			const ok = records.filter((r) => {
@@ -191,6 +196,8 @@ export function summarize(
 		nominal: metricsOf(nominal)
 	};
 }
+
+const hasLimits = (req: MonteCarloRequest) => !!req.spec && !isEmptySpec(req.spec);
 
 export const CHUNK = 250;
 

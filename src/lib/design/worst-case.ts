@@ -1,6 +1,6 @@
 import type { ElementTolerance, SpecLimits } from '../network/design-schema';
 import { DesignError } from './errors';
-import { checkSpec, optionsFor, type SpecOutcome } from './spec-limits';
+import { checkSpec, isEmptySpec, optionsFor, type SpecOutcome } from './spec-limits';
 import { FIGURES, checkTolerances, type Figure } from './tolerance';
 import { evaluateWith, openVariants, type Variants } from './variants';
 import type { Metrics } from './evaluate';
@@ -105,7 +105,8 @@ export function worstCase(doc: unknown, req: WorstCaseRequest): WorstCaseResult 
 		return { figure: f, nominal: nominal[f], min, max };
 	}).filter((f) => f.nominal !== null || f.min.value !== null);
 	let spec: WorstCaseResult['spec'] = null;
-	if (req.spec) {
+	// No limits, no verdict: "every vertex meets the limits" would be said of limits nobody set.
+	if (req.spec && !isEmptySpec(req.spec)) {
 		const outcomes = evaluated.map((e) => ({ e, o: e.m ? checkSpec(req.spec!, e.m) : null }));
 		const base = checkSpec(req.spec, nominal);
 		const checks = base.checks.map((c) => {

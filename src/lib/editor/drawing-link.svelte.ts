@@ -3,7 +3,7 @@
 // The sheet page makes one and shares it by context; the workbench attaches its editor and
 // autosave. Panels go through this, never into the editor's internals.
 import { getContext, setContext } from 'svelte';
-import { formatEngineering } from '$lib/solver';
+import { formatEngineering } from '$lib/solver/notation';
 import type { NetworkDocument } from '$lib/network/schema';
 import type { Autosave } from './autosave.svelte';
 import type { EditorState } from './editor-state.svelte';

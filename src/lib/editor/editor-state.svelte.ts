@@ -9,7 +9,8 @@ import { snap, nextRotation } from './geometry';
 import { History } from './history';
 import { KINDS, hasValue, isCircuit, isSource, type ItemKind } from './kinds';
 import { nameProblem, nextName } from './names';
-import { computeNets } from './nets';
+import { computeNets, netNameProblem, pinAll } from './nets';
+import { planJoin } from './join-net';
 import { buildDocument } from './to-document';
 import { terminalKey, type EditorItem, type Snapshot, type TerminalRef, type Wire } from './types';
 import type { VariantSet } from '$lib/network/variant-schema';
@@ -30,6 +31,8 @@ export class EditorState {
 	input = $state<string | null>(null);
 	/** The sheet's variants (part of the drawing: saved, undone and redone with it). */
 	variants = $state.raw<VariantSet | null>(null);
+	/** Net names pinned on terminals (nets.ts): saved, undone and redone with the drawing. */
+	netNames = $state.raw<Record<string, string>>({});
 	/** The option picked in each variant group (a view choice, not part of the history). */
 	pick = $state.raw<number[]>([]);
 	selected = $state.raw<string[]>([]);
@@ -53,7 +56,8 @@ export class EditorState {
 			items: this.items,
 			wires: this.wires,
 			input: this.input,
-			variants: this.variants
+			variants: this.variants,
+			netNames: this.netNames
 		};
 	}
 
@@ -66,7 +70,7 @@ export class EditorState {
 	load(s: Snapshot, { keepHistory = false } = {}): void {
 		if (keepHistory) this.#history.push(this.snapshot);
 		else this.#history.clear();
-		this.#set(s);
+		this.#set(settleNames(s));
 		this.selected = [];
 		this.selectedWires = [];
 	}
@@ -77,6 +81,7 @@ export class EditorState {
 		this.wires = s.wires;
 		this.input = s.input;
 		this.variants = s.variants ?? null;
+		this.netNames = s.netNames ?? {};
 		this.version++;
 		this.#historySize = { past: this.#history.past.length, future: this.#history.future.length };
 	}
@@ -84,7 +89,30 @@ export class EditorState {
 	apply(next: Partial<Snapshot>, key?: string): void {
 		if (this.readonly) return;
 		this.#history.push(this.snapshot, key);
-		this.#set({ ...this.snapshot, ...next });
+		const merged = { ...this.snapshot, ...next };
+		// Nets keep their names through the change (new nets get theirs now, in the same step).
+		this.#set(sameShape(this.snapshot, merged) ? merged : settleNames(merged));
+	}
+
+	/**
+	 * Rename a net (one undo step): every terminal on it carries the new name; net-name marks on
+	 * it follow. Returns the reason when the name is refused.
+	 */
+	renameNet(current: string, name: string): string | null {
+		const nets = this.built.nets;
+		const problem = netNameProblem(nets, current, name);
+		if (problem) return problem;
+		const n = name.trim();
+		const net = nets.nets.find((x) => x.name === current);
+		if (!net || net.grounded || n === current) return null;
+		const on = new Set(net.terminals);
+		const netNames = { ...this.netNames };
+		for (const t of net.terminals) netNames[t] = n;
+		const items = this.items.map((i) =>
+			i.kind === 'LABEL' && on.has(`${i.id}:t`) ? { ...i, name: n } : i
+		);
+		this.apply({ netNames, items });
+		return null;
 	}
 
 	undo(): void {
@@ -155,8 +183,9 @@ export class EditorState {
 	/**
 	 * Set several elements' values at once, by element name (the network id), as ONE undo step:
 	 * the way in for tools beside the drawing (the design aids' "apply"). Values are text as a
-	 * person would type it. Returns the names whose value changed; a name not on the sheet, or
-	 * a part without a value, is left alone.
+	 * person would type it. Returns the names whose value changed; a name not on the sheet, a
+	 * part without a value, or a part marked as a fixed value (a cable, a parasitic: not the
+	 * designer's to change) is left alone.
 	 */
 	setValues(values: Record<string, string>): string[] {
 		if (this.readonly) return [];
@@ -167,12 +196,18 @@ export class EditorState {
 		let variants = this.variants;
 		const changed: string[] = [];
 		const items = this.items.map((i) => {
-			if (!hasValue(i.kind) || !Object.hasOwn(values, i.name)) return i;
+			if (!hasValue(i.kind) || i.role === 'fixed' || !Object.hasOwn(values, i.name)) return i;
 			const value = values[i.name].trim();
 			const own = set?.get(i.name);
 			if (own) {
 				if (value !== String(own.value).trim()) {
-					variants = setOptionValue(variants, own.group, this.variant!.info.choice[own.group], i.name, value);
+					variants = setOptionValue(
+						variants,
+						own.group,
+						this.variant!.info.choice[own.group],
+						i.name,
+						value
+					);
 					changed.push(i.name);
 				}
 				return i;
@@ -239,7 +274,9 @@ export class EditorState {
 		const s = new Set(this.selected);
 		const sw = new Set(this.selectedWires);
 		if (s.size === 0 && sw.size === 0) return;
-		const gone = new Set(this.items.filter((i) => s.has(i.id) && isCircuit(i.kind)).map((i) => i.name));
+		const gone = new Set(
+			this.items.filter((i) => s.has(i.id) && isCircuit(i.kind)).map((i) => i.name)
+		);
 		this.apply({
 			items: this.items.filter((i) => !s.has(i.id)),
 			wires: this.wires.filter((w) => !sw.has(w.id) && !s.has(w.from.item) && !s.has(w.to.item)),
@@ -323,6 +360,27 @@ export class EditorState {
 		return wire.id;
 	}
 
+	/** Remove every wire on one terminal (the keyboard's way to delete wires); returns how many. */
+	disconnect(at: TerminalRef): number {
+		const k = terminalKey(at);
+		const keep = this.wires.filter((w) => terminalKey(w.from) !== k && terminalKey(w.to) !== k);
+		const removed = this.wires.length - keep.length;
+		if (removed) this.apply({ wires: keep });
+		return removed;
+	}
+
+	/**
+	 * Join a terminal to the net called `name` (one undo step; see join-net.ts). Returns the
+	 * reason when nothing was changed.
+	 */
+	joinNet(at: TerminalRef, name: string): { problem: string } | { added: string[] } {
+		if (this.readonly) return { problem: 'the sheet is read-only' };
+		const plan = planJoin(this.items, this.wires, at, name, uid);
+		if (!plan.ok) return { problem: plan.problem };
+		this.apply({ items: [...this.items, ...plan.items], wires: [...this.wires, ...plan.wires] });
+		return { added: plan.items.map((i) => i.id) };
+	}
+
 	setInput(id: string): void {
 		const item = this.items.find((i) => i.id === id);
 		if (item && isSource(item.kind) && this.input !== id) this.apply({ input: id });
@@ -330,7 +388,7 @@ export class EditorState {
 
 	/** Point the output marker's terminal ('pos' or 'neg') at a net; places the marker if needed. */
 	setOutputTerminal(which: 'pos' | 'neg', net: string): void {
-		const nets = computeNets(this.items, this.wires);
+		const nets = computeNets(this.items, this.wires, this.netNames);
 		let items = this.items;
 		let probe = items.find((i) => i.kind === 'PROBE');
 		const target = nets.nets
@@ -364,6 +422,21 @@ export class EditorState {
 		}
 		this.apply({ items, wires });
 	}
+}
+
+/** Same parts and wires (only values, names or positions changed): net names cannot move. */
+function sameShape(a: Snapshot, b: Snapshot): boolean {
+	if (a.wires !== b.wires || a.netNames !== b.netNames || a.items.length !== b.items.length)
+		return false;
+	return a.items.every((x, i) => {
+		const y = b.items[i];
+		return x.id === y.id && x.kind === y.kind && (x.kind !== 'LABEL' || x.name === y.name);
+	});
+}
+
+/** Pin every terminal on its net's current name (dropping pins of terminals that are gone). */
+function settleNames(s: Snapshot): Snapshot {
+	return { ...s, netNames: pinAll(computeNets(s.items, s.wires, s.netNames)) };
 }
 
 const KEY = Symbol('polewise-editor');

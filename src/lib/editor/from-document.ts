@@ -5,6 +5,7 @@ import type { NetworkDocument } from '$lib/network/schema';
 import { autoLayout } from './auto-layout';
 import { buildDocument } from './to-document';
 import type { SheetLayout, Snapshot } from './types';
+import { isCircuit, KINDS } from './kinds';
 
 export function isSheetLayout(raw: unknown): raw is SheetLayout {
 	const l = raw as SheetLayout | null;
@@ -52,7 +53,31 @@ export function fromDocument(doc: NetworkDocument, layout?: unknown): Snapshot {
 			input: layout.input,
 			variants
 		};
-		if (sameNetwork(buildDocument(restored).document, doc)) return restored;
+		if (sameNetwork(buildDocument(restored).document, doc)) return withDocumentNames(restored, doc);
 	}
-	return { ...autoLayout(doc), variants };
+	return withDocumentNames({ ...autoLayout(doc), variants }, doc);
+}
+
+/**
+ * The document's node names pinned on the drawing's terminals: its nets are called what the
+ * document calls them (tip, adc), in the editor, its pickers and everything saved after —
+ * one naming everywhere. Each part's terminal i lies on the document's node i; the output
+ * marker's terminals on the output node and reference.
+ */
+export function withDocumentNames(s: Snapshot, doc: NetworkDocument): Snapshot {
+	const byName = new Map(doc.elements.map((e) => [e.id, e]));
+	const netNames: Record<string, string> = {};
+	const pin = (key: string, node: string | number | undefined) => {
+		const n = node === undefined ? '' : String(node);
+		if (n && n !== 'gnd' && n !== '0') netNames[key] = n;
+	};
+	for (const it of s.items) {
+		const e = isCircuit(it.kind) ? byName.get(it.name) : undefined;
+		if (e) KINDS[it.kind].terminals.forEach((t, i) => pin(`${it.id}:${t.name}`, e.nodes[i]));
+		if (it.kind === 'PROBE') {
+			pin(`${it.id}:pos`, doc.output.node);
+			pin(`${it.id}:neg`, doc.output.reference);
+		}
+	}
+	return { ...s, netNames };
 }

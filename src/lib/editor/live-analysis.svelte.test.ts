@@ -102,4 +102,20 @@ describe('LiveAnalysis without a pause', () => {
 		await wait(20);
 		expect(live.lastAfterEdit).toBe(true);
 	});
+
+	it('after an edit it never says "to open the sheet" again (issue 16, item 7)', async () => {
+		const { fetcher } = slowServer(1);
+		const live = new LiveAnalysis(0, fetcher);
+		// A sheet that opened blocked (half drawn): its first analysis follows an edit.
+		live.update(doc('1k'), [{ message: 'place the output marker on the node to observe' }]);
+		live.update(doc('1k'), []);
+		await wait(20);
+		expect(live.status).toBe('done');
+		expect(live.lastAfterEdit).toBe(true);
+		// An edit that only moves the drawing: nothing to analyse, and it is said.
+		live.update(doc('1k'), []);
+		expect(live.unchangedByEdit).toBe(true);
+		live.update(doc('2k'), []);
+		expect(live.unchangedByEdit).toBe(false);
+	});
 });

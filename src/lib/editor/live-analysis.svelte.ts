@@ -30,6 +30,12 @@ const nextPaint = () =>
 			})
 		: Promise.resolve();
 
+/** An answer computed with the page (the server's first analysis) and the body it answers. */
+export interface FirstAnalysis {
+	body: string;
+	analysis: Analysis | { variants: VariantResult[] };
+}
+
 export type AnalysisStatus = 'idle' | 'waiting' | 'running' | 'done' | 'blocked' | 'failed';
 
 /** Above this many ports the panels show no port-matrix tables, so the editor asks for none. */
@@ -64,8 +70,12 @@ export class LiveAnalysis {
 	lastPhases = $state.raw<AnalysisPhases | null>(null);
 	/** False while the shown result is the one the sheet opened with (no edit measured yet). */
 	lastAfterEdit = $state(false);
+	/** The last edit moved the drawing but left the network as it was (nothing to analyse). */
+	unchangedByEdit = $state(false);
 	/** How many requests were actually sent (tests check a bad value sends none). */
 	sent = $state(0);
+	/** Calls of `update` so far: the first is the document the sheet opened with. */
+	#updates = 0;
 	#timer: ReturnType<typeof setTimeout> | undefined;
 	#controller: AbortController | null = null;
 	#lastBody = '';
@@ -80,6 +90,23 @@ export class LiveAnalysis {
 		private readonly fetcher: typeof fetch = (...a) => fetch(...a)
 	) {}
 
+	/**
+	 * Take an answer computed elsewhere for `body` (the server's, rendered into the page) as the
+	 * current one: the same drawing is then not sent again, and the panels show it at once.
+	 */
+	seed(body: string, answer: Analysis | { variants: VariantResult[] }): void {
+		this.#lastBody = body;
+		this.status = 'done';
+		if ('variants' in answer) {
+			this.#withVariants = true;
+			this.variants = answer.variants;
+			this.#showChosen();
+		} else {
+			this.result = answer;
+			this.fault = null;
+		}
+	}
+
 	/** Called on every change of the drawing. */
 	update(document: NetworkDocument, problems: BuildProblem[], editedAt = performance.now()): void {
 		// The caller's effect must depend on the drawing only: reading `status` here would re-run
@@ -89,6 +116,10 @@ export class LiveAnalysis {
 
 	#update(document: NetworkDocument, problems: BuildProblem[], editedAt: number): void {
 		clearTimeout(this.#timer);
+		// Only the very first document is "the sheet as opened"; anything after it is an edit,
+		// also when the sheet opened blocked (an empty or half-drawn sheet) and the first
+		// analysis follows an edit.
+		const opening = this.#updates++ === 0;
 		if (problems.length) {
 			this.#controller?.abort();
 			this.problems = problems;
@@ -98,29 +129,37 @@ export class LiveAnalysis {
 		}
 		this.problems = [];
 		const body = JSON.stringify(document);
-		if (body === this.#lastBody && this.status !== 'failed') return; // moved a part: same network
+		if (body === this.#lastBody && this.status !== 'failed') {
+			// Moved a part: same network, nothing to analyse — but say so rather than leave an
+			// older timing ("to open the sheet") standing as if it described this edit.
+			if (!opening) this.unchangedByEdit = true;
+			return;
+		}
+		this.unchangedByEdit = false;
 		this.#withVariants = (document.variants?.groups.length ?? 0) > 0;
 		this.status = 'waiting';
-		if (this.delayMs <= 0) void this.#run(body, editedAt);
-		else this.#timer = setTimeout(() => this.#run(body, editedAt), this.delayMs);
+		if (this.delayMs <= 0) void this.#run(body, editedAt, opening);
+		else this.#timer = setTimeout(() => this.#run(body, editedAt, opening), this.delayMs);
 	}
 
-	async #run(body: string, editedAt: number): Promise<void> {
+	async #run(body: string, editedAt: number, opening: boolean): Promise<void> {
 		this.#controller?.abort();
 		const controller = new AbortController();
 		this.#controller = controller;
 		this.#lastBody = body;
 		this.status = 'running';
-		const opening = this.sent === 0;
 		this.sent++;
 		const sent = performance.now() - editedAt;
 		try {
-			const res = await this.fetcher(this.#withVariants ? `${ANALYZE_URL}&variants=all` : ANALYZE_URL, {
-				method: 'POST',
-				headers: { 'content-type': 'application/json' },
-				body,
-				signal: controller.signal
-			});
+			const res = await this.fetcher(
+				this.#withVariants ? `${ANALYZE_URL}&variants=all` : ANALYZE_URL,
+				{
+					method: 'POST',
+					headers: { 'content-type': 'application/json' },
+					body,
+					signal: controller.signal
+				}
+			);
 			const answered = performance.now() - editedAt;
 			const data = await res.json();
 			if (controller.signal.aborted) return;

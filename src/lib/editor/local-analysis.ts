@@ -9,7 +9,10 @@ export const localAnalyzeFetch = (async (url: string, init: RequestInit) => {
 	const failure = (e: unknown) =>
 		e instanceof SolverError
 			? e.toJSON()
-			: { error: `the analysis failed: ${(e as Error).message}`, code: (e as { code?: string }).code };
+			: {
+					error: `the analysis failed: ${(e as Error).message}`,
+					code: (e as { code?: string }).code
+				};
 	try {
 		const body = JSON.parse(String(init.body));
 		if (new URL(url, 'http://local').searchParams.get('variants') === 'all') {

@@ -24,7 +24,7 @@ export interface Built {
 }
 
 export function buildDocument(s: Snapshot): Built {
-	const nets = computeNets(s.items, s.wires);
+	const nets = computeNets(s.items, s.wires, s.netNames);
 	const problems: BuildProblem[] = [];
 	const elements: NetworkElement[] = [];
 	const itemByElement = new Map<string, string>();
@@ -116,7 +116,8 @@ export function buildDocument(s: Snapshot): Built {
 		version: 1,
 		items: s.items,
 		wires: s.wires,
-		input: s.input
+		input: s.input,
+		...(s.netNames && Object.keys(s.netNames).length ? { netNames: s.netNames } : {})
 	};
 	return { document, layout, problems, nets, itemByElement };
 }

@@ -47,6 +47,8 @@ export interface Snapshot {
 	input: string | null;
 	/** The sheet's variants (network-format.md), by element name; null or absent: none. */
 	variants?: VariantSet | null;
+	/** Net names pinned on terminals ("item:terminal" → name); see nets.ts. */
+	netNames?: Record<string, string>;
 }
 
 /** What is stored in a revision's `layout` column beside the network document. */
@@ -56,6 +58,8 @@ export interface SheetLayout {
 	items: EditorItem[];
 	wires: Wire[];
 	input: string | null;
+	/** Net names pinned on terminals, so nets keep the names people and documents gave them. */
+	netNames?: Record<string, string>;
 }
 
 export const terminalKey = (r: TerminalRef) => `${r.item}:${r.terminal}`;

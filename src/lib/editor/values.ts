@@ -1,6 +1,6 @@
 // Reading values exactly as the network format does (the solver's own parser), and showing
 // them back in normal form so a person can see what was understood: "9.1M" → "9.1 MΩ".
-import { formatEngineering, parseValue, SolverError } from '$lib/solver';
+import { formatEngineering, parseValue, SolverError } from '$lib/solver/notation';
 import { KINDS, type ItemKind } from './kinds';
 
 /**

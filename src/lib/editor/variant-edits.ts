@@ -3,7 +3,7 @@
 // lists and maps are dropped, so a block with nothing left in it becomes null (no `variants`
 // key in the document: a sheet without variants stays byte-for-byte what it was).
 import type { VariantGroup, VariantOption, VariantSet } from '$lib/network/variant-schema';
-import { VARIANT_LIMITS } from '$lib/network/variant-schema';
+import { VARIANT_LIMITS } from '$lib/network/variant-limits';
 
 export type Variants = VariantSet | null;
 

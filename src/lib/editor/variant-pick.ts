@@ -2,7 +2,7 @@
 // exist), that variant's name, and what it overrides — for the canvas marks, the override list
 // and the result panels. Resolved with the pure variants module: no solver code in the page.
 import type { NetworkDocument } from '$lib/network/schema';
-import { VARIANT_JOIN } from '$lib/network/variant-schema';
+import { VARIANT_JOIN } from '$lib/network/variant-limits';
 import { listVariants, overridesOf, type Overrides, type VariantInfo } from '$lib/network/variants';
 
 export interface ActiveVariant {

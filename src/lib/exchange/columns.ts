@@ -3,9 +3,9 @@
 // person confirms or corrects the guess in the preview before anything is stored.
 import { z } from 'zod';
 import { cellNumber, type CsvTable } from './csv-table';
+import { FREQUENCY_UNITS, type FrequencyUnit } from './frequency-units';
 
-export const FREQUENCY_UNITS = { Hz: 1, kHz: 1e3, MHz: 1e6, GHz: 1e9 } as const;
-export type FrequencyUnit = keyof typeof FREQUENCY_UNITS;
+export { FREQUENCY_UNITS, type FrequencyUnit };
 export type MagnitudeKind = 'dB' | 'linear';
 export type PhaseUnit = 'deg' | 'rad';
 

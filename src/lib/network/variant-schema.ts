@@ -8,10 +8,9 @@ import { z } from 'zod';
  * and the element at fault.
  */
 
-/** Joins the option names of a combination into the variant's name ("100:1 · 2 m cable"). */
-export const VARIANT_JOIN = ' · ';
+import { VARIANT_JOIN, VARIANT_LIMITS } from './variant-limits';
 
-export const VARIANT_LIMITS = { groups: 4, options: 12, combinations: 36, nameLength: 40 };
+export { VARIANT_JOIN, VARIANT_LIMITS };
 
 const name = (what: string) =>
 	z

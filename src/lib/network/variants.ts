@@ -9,12 +9,8 @@
 // may not disagree about the same part (both set its value, or one puts it in and one takes it
 // out): which should win is the designer's decision, so it is an error naming both.
 import type { NetworkDocument, NetworkElement } from './schema';
-import {
-	VARIANT_JOIN,
-	VARIANT_LIMITS,
-	type VariantOption,
-	type VariantSet
-} from './variant-schema';
+import type { VariantOption, VariantSet } from './variant-schema';
+import { VARIANT_JOIN, VARIANT_LIMITS } from './variant-limits';
 
 export interface VariantInfo {
 	/** The option names joined with " · " — the variant's name in tables, legends and the API. */

@@ -7,7 +7,10 @@ import { clientAddress } from './auth/client-address';
 
 interface Caller {
 	key: string;
-	signal: AbortSignal;
+	/** Not the request's own signal: adapter-node aborts that one spuriously for a GET whose
+	 * (absent) body was never read, and never once a POST body has arrived, so it cannot tell
+	 * whether a client went away. Waiting tasks are bounded by the queue's wait limit instead. */
+	signal?: AbortSignal;
 }
 
 const store = new AsyncLocalStorage<Caller>();
@@ -15,16 +18,13 @@ const store = new AsyncLocalStorage<Caller>();
 export const currentCaller = (): Caller | null => store.getStore() ?? null;
 
 /** Run `fn` as `key` (tests and scripts; the hook below does it for requests). */
-export const asCaller = <T>(key: string, fn: () => T, signal = new AbortController().signal): T =>
+export const asCaller = <T>(key: string, fn: () => T, signal?: AbortSignal): T =>
 	store.run({ key, signal }, fn);
 
 /** After the auth handle: a signed-in person (cookie or token) is one caller wherever they
  * come from; anyone else (a read-only link, signed out) is their address. */
 export const callerHandle: Handle = ({ event, resolve }) =>
 	store.run(
-		{
-			key: event.locals.user ? `user:${event.locals.user.id}` : `address:${clientAddress(event)}`,
-			signal: event.request.signal
-		},
+		{ key: event.locals.user ? `user:${event.locals.user.id}` : `address:${clientAddress(event)}` },
 		() => resolve(event)
 	);

@@ -27,8 +27,8 @@ const CLOSE_WITHIN = DEFAULT_DOUBLET_RATIO;
 const CANDIDATES = 3;
 const ADJUSTABLE = new Set(['R', 'C', 'L']);
 /** Each probe is a full pole and zero solve: above these sizes closing changes are not computed. */
-export const CLOSING_MAX_REACTIVE = 40;
-const SCAN_AT_MOST = 16;
+export const CLOSING_MAX_REACTIVE = 12;
+const SCAN_AT_MOST = 8;
 
 export function findDoublets(
 	net: ResolvedNetwork,

@@ -24,10 +24,16 @@ export function compareBackends(doc: ReturnType<typeof randomNetwork>) {
 			note('slowest set', Math.max(0, Math.hypot(p.re, p.im) / kth - 1));
 	}
 	const byId = new Map(dense.timeConstants.openCircuit.map((t) => [t.element, t]));
+	// Relative to each τ, but never below 1e-12 of the network's largest: a τ that is exactly 0
+	// on one side (an inductor seeing an open) is round-off (1e-25 s) on the other.
+	let tauMax = 0;
+	for (const t of dense.timeConstants.openCircuit)
+		if (t.tau !== null) tauMax = Math.max(tauMax, Math.abs(t.tau));
 	for (const t of sparse.timeConstants.openCircuit) {
 		const d = byId.get(t.element)!;
 		if (d.tau === null || t.tau === null) note('τ null agreement', d.tau === t.tau ? 0 : 1);
-		else note('τ open', Math.abs(t.tau - d.tau) / Math.max(Math.abs(d.tau), 1e-300));
+		else
+			note('τ open', Math.abs(t.tau - d.tau) / Math.max(Math.abs(d.tau), 1e-12 * tauMax, 1e-300));
 	}
 	sparse.timeConstants.sequential.forEach((s, i) => {
 		const d = dense.timeConstants.sequential[i];

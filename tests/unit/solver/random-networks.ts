@@ -2,7 +2,7 @@ import type { El } from './helpers';
 
 /**
  * Random networks for comparing the two back ends (sparse-vs-dense.test.ts and
- * scripts/bench-large.ts): a grid-like mesh of `elements` elements in one of four classes.
+ * scripts/check-backends.ts, scripts/bench-large.ts): a grid-like mesh of `elements` elements in one of four classes.
  * - rc: resistor mesh, capacitors to ground and across neighbours (extracted-RC-like), leaks;
  * - rc-floating: as rc, plus an island joined to the rest only through capacitors;
  * - rlc: as rc with some resistors replaced by an inductor in series with a resistor;

@@ -6,7 +6,7 @@ import { el, net, type El } from './helpers';
 /**
  * The sparse back end (src/lib/solver/large/) against outside sources and against the dense
  * back end. Sizes are modest here; the 20,000-section ladder, the 100,000-element mesh and 200
- * random networks of 200–1,000 elements run in `npm run bench` (scripts/bench-large.ts).
+ * random networks of 200–1,000 elements run in `npm run bench` (scripts/bench-large.ts, scripts/check-backends.ts).
  */
 
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);

@@ -8,7 +8,7 @@ import { randomNetwork, type NetworkClass } from './random-networks';
  * steps, DC gain, the frequency response on one grid, bandwidth and the owners of the dominant
  * pole, to 1e-9. The dense path is the independent computation here (QR on the port model);
  * a handful of networks in the unit run, 200 networks of 200–1,000 elements in
- * scripts/bench-large.ts.
+ * scripts/check-backends.ts.
  */
 const cases: [NetworkClass, number, number][] = [
 	['rc', 220, 11],

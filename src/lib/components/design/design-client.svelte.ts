@@ -3,7 +3,7 @@
 // (read-only viewers, pages without an editor) on the latest saved revision. Also: JSON calls
 // with their error message kept for the panel that asked, and the sheet's stored settings.
 import type { DesignSettings } from '$lib/network/design-schema';
-import type { NetworkDocument } from '$lib/network/schema';
+import type { NetworkDocument, PartRole } from '$lib/network/schema';
 import type { DrawingLink, DrawingNow, OptionValue } from '$lib/editor/drawing-link.svelte';
 import { hasVariants, listVariants, resolveVariant, type VariantInfo } from '$lib/network/variants';
 
@@ -114,7 +114,7 @@ export class DesignClient {
 	}
 
 	/** Elements whose value a design aid may change, in document order. */
-	get adjustable(): { id: string; type: string; value?: string | number }[] {
+	get adjustable(): { id: string; type: string; value?: string | number; role?: PartRole }[] {
 		return (this.document?.elements ?? []).filter((e) =>
 			['R', 'C', 'L', 'VCCS', 'VCVS', 'CCCS', 'CCVS'].includes(e.type)
 		);

@@ -1,4 +1,4 @@
-import { formatEngineering, parseValue } from '$lib/solver';
+import { formatEngineering, parseValue } from '$lib/solver/notation';
 
 /** Units of each element type's value, for display and for reading typed values. */
 export const UNIT: Record<string, string> = {

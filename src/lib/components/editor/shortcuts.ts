@@ -8,13 +8,31 @@ export const SHORTCUTS: { keys: string; what: string }[] = [
 	{ keys: 'Ctrl+A', what: 'Select everything' },
 	{ keys: 'R', what: 'Turn the selection a quarter turn clockwise' },
 	{ keys: 'M', what: 'Mirror the selection' },
-	{ keys: 'Arrow keys', what: 'Nudge the selection one grid step (Shift: four)' },
-	{ keys: 'Tab, then Enter', what: 'Walk through the parts on the canvas and select one' },
+	{
+		keys: 'Tab',
+		what: 'The canvas is one stop: Tab enters it at the part last used, and leaves it'
+	},
+	{ keys: 'Arrow keys', what: 'Go to the nearest part that way (it is selected)' },
+	{ keys: 'Home / End', what: 'Go to the first / last part' },
+	{ keys: 'Page Down / Page Up', what: 'Go to the next / previous part in reading order' },
+	{ keys: 'Alt+arrow keys', what: 'Nudge the selection one grid step (Shift: four)' },
+	{ keys: 'Enter', what: 'Edit the part’s value (Escape comes back to the part)' },
+	{ keys: 'T', what: 'Go to the part’s terminals; arrow keys between them; T or Escape back' },
+	{
+		keys: 'Enter or Space on a terminal',
+		what: 'Start a wire there; on a second terminal, end it'
+	},
+	{
+		keys: 'N on a terminal',
+		what: 'Join it to a net by name (gnd: ground; a new name places a net name)'
+	},
+	{ keys: 'Delete on a terminal', what: 'Remove the wires on that terminal' },
+	{ keys: 'C', what: 'Comment on the part' },
 	{ keys: 'Shift+drag', what: 'Select with a box' },
 	{ keys: 'Shift+click', what: 'Add to or remove from the selection' },
 	{ keys: 'F', what: 'Fit the drawing to the view' },
 	{ keys: '+ / −', what: 'Zoom in / out (or the mouse wheel)' },
-	{ keys: 'Escape', what: 'Clear the selection, close this panel' },
+	{ keys: 'Escape', what: 'Cancel a wire being drawn; clear the selection; close this panel' },
 	{ keys: '?', what: 'Show or hide this panel' }
 ];
 

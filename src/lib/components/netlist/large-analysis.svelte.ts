@@ -29,6 +29,8 @@ export class LargeAnalysis {
 	jobId = $state<string | null>(null);
 	startedAt = $state<number | null>(null);
 	#timer: ReturnType<typeof setTimeout> | null = null;
+	/** Bumped by every start: an answer for an older request (a resume in flight) is dropped. */
+	#generation = 0;
 
 	constructor(
 		readonly sheetId: string,
@@ -41,6 +43,8 @@ export class LargeAnalysis {
 
 	async start(options: { poles: number; points: number }) {
 		this.stop();
+		const generation = ++this.#generation;
+		this.jobId = null;
 		this.error = null;
 		this.analysis = null;
 		this.percent = 0;
@@ -51,7 +55,7 @@ export class LargeAnalysis {
 				method: 'POST',
 				body: JSON.stringify({ sheetId: this.sheetId, revision: this.revision, ...options })
 			});
-			this.#take(answer);
+			if (generation === this.#generation) this.#take(answer);
 		} catch (e) {
 			this.state = 'failed';
 			this.error = (e as Error).message;
@@ -63,6 +67,7 @@ export class LargeAnalysis {
 	 * someone else while it runs): follow it if it is still going, show it if it is done.
 	 */
 	async resume() {
+		const generation = this.#generation;
 		try {
 			const res = await fetch(`/api/design/sheets/${this.sheetId}/jobs`);
 			if (!res.ok) return;
@@ -70,9 +75,12 @@ export class LargeAnalysis {
 				jobs: { id: string; kind: string; revision: number; state: JobState }[];
 			};
 			const mine = jobs.find((j) => j.kind === 'large-analysis' && j.revision === this.revision);
-			if (!mine || mine.state === 'failed' || mine.state === 'cancelled' || this.jobId) return;
+			if (!mine || mine.state === 'failed' || mine.state === 'cancelled') return;
+			const answer = await this.#call(`/api/design/jobs/${mine.id}`);
+			// The person pressed Analyze meanwhile: their new job is the one to follow.
+			if (generation !== this.#generation || this.jobId) return;
 			this.startedAt = null;
-			this.#take(await this.#call(`/api/design/jobs/${mine.id}`));
+			this.#take(answer);
 		} catch {
 			// Nothing to resume is the same as nothing found.
 		}
@@ -108,8 +116,10 @@ export class LargeAnalysis {
 
 	async #poll() {
 		if (!this.jobId) return;
+		const id = this.jobId;
 		try {
-			this.#take(await this.#call(`/api/design/jobs/${this.jobId}`));
+			const answer = await this.#call(`/api/design/jobs/${id}`);
+			if (id === this.jobId) this.#take(answer);
 		} catch (e) {
 			// A network blip: try again on the next tick rather than giving up on a long job.
 			this.error = (e as Error).message;

@@ -1,7 +1,7 @@
 // Axis ticks for our plots: decades (with 2 and 5 between when few) on log axes, d3's nice
 // linear ticks elsewhere; labels in engineering notation.
 import { scaleLinear, scaleLog } from 'd3-scale';
-import { formatEngineering } from '$lib/solver';
+import { formatEngineering } from '$lib/solver/notation';
 
 export function logScale(domain: [number, number], range: [number, number]) {
 	return scaleLog().domain(domain).range(range).clamp(true);

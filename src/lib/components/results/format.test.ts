@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { pct } from './format';
+import { estimateMethod, formulaLine, pct } from './format';
 
 describe('percentages in the result panels', () => {
 	it('reads round-off as below the last shown digit, not in exponent notation', () => {
@@ -9,5 +9,39 @@ describe('percentages in the result panels', () => {
 		expect(pct(0.0123)).toBe('1.2 %');
 		expect(pct(12)).toBe('1200 %');
 		expect(pct(null)).toBe('—');
+	});
+});
+
+describe('how a resistance seen and an estimate are told', () => {
+	it('a series–parallel formula with its value; otherwise the reason and what matters most', () => {
+		const base = { reason: null, influence: [] };
+		expect(
+			formulaLine({
+				...base,
+				kind: 'series-parallel',
+				formula: 'Rtop ∥ (Rsrc + Radc)',
+				value: 900040.5
+			})
+		).toBe('Rtop ∥ (Rsrc + Radc) = 900 kΩ');
+		expect(
+			formulaLine({ ...base, kind: 'open', formula: null, value: null, reason: 'no DC path' })
+		).toBe('∞ — no DC path');
+		expect(
+			formulaLine({
+				kind: 'not-series-parallel',
+				formula: null,
+				value: 1234,
+				reason: 'a bridge',
+				influence: [{ element: 'R5', sensitivity: 0.4213 }]
+			})
+		).toBe('not series–parallel (a bridge): 1.234 kΩ from the solver; matters most: R5 (S = 0.42)');
+	});
+	it('each estimate names its method', () => {
+		const e = (method: string, basis = '', element: string | null = null) =>
+			estimateMethod({ method, basis, element });
+		expect(e('b1')).toBe('1/b1, b1 = Σ τ open');
+		expect(e('ratio', 'b2/b3')).toBe('coefficient ratio b2/b3');
+		expect(e('two-pole')).toBe('root of 1 + b1·s + b2·s²');
+		expect(e('sequential', 'port C1', 'C1')).toBe('sequential, port C1');
 	});
 });

@@ -1,6 +1,6 @@
 // Number formatting for the result panels: engineering notation from the solver's formatter,
 // with a dash where a value does not exist (infinite resistance, no Q for a real pole).
-import { formatEngineering } from '$lib/solver';
+import { formatEngineering } from '$lib/solver/notation';
 
 export const eng = (v: number | null | undefined, unit = '', digits = 4) =>
 	v === null || v === undefined || !Number.isFinite(v)

@@ -20,6 +20,8 @@ export interface RevisionRecord {
 	document: unknown;
 	layout: unknown;
 	message: string | null;
+	/** A person's label for the revision (null: none). */
+	name?: string | null;
 	createdAt: Date;
 }
 
@@ -89,7 +91,7 @@ export async function listRevisions(sheetId: string): Promise<RevisionSummary[]>
 	const { SheetRevision, User } = models();
 	const rows = await SheetRevision.findAll({
 		where: { sheetId },
-		attributes: ['id', 'sheetId', 'number', 'authorId', 'message', 'createdAt'],
+		attributes: ['id', 'sheetId', 'number', 'authorId', 'message', 'name', 'createdAt'],
 		include: [{ model: User, as: 'author', attributes: ['name'] }],
 		order: [['number', 'DESC']]
 	});
@@ -97,6 +99,40 @@ export async function listRevisions(sheetId: string): Promise<RevisionSummary[]>
 		const { author, ...rest } = plain<Omit<RevisionRecord, 'document' | 'layout'> & { author: { name: string } | null }>(r);
 		return { ...rest, authorName: author?.name ?? null };
 	});
+}
+
+/** Name a revision (a checkpoint), and give it a message if it has none; null clears the name. */
+export async function nameRevision(sheetId: string, number: number, name: string | null, message?: string | null): Promise<boolean> {
+	const { SheetRevision } = models();
+	const row = await SheetRevision.findOne({ where: { sheetId, number } });
+	if (!row) return false;
+	row.name = name;
+	if (message && !row.message) row.message = message;
+	await row.save({ fields: ['name', 'message'] });
+	return true;
+}
+
+/** Every revision with its document, oldest first, for grouping the history into checkpoints. */
+export async function revisionsForHistory(sheetId: string) {
+	const [rows] = await db().query(
+		`SELECT r.number, r.author_id AS "authorId", u.name AS "authorName", r.created_at AS "createdAt", r.message, r.name, r.document
+		   FROM sheet_revisions r LEFT JOIN users u ON u.id = r.author_id WHERE r.sheet_id = :sheetId ORDER BY r.number`,
+		{ replacements: { sheetId } }
+	);
+	return rows as { number: number; authorId: string | null; authorName: string | null; createdAt: Date; message: string | null; name: string | null; document: unknown }[];
+}
+
+/** Which revisions something points at: comments, review requests (and their sign-offs), meeting items. */
+export async function revisionReferences(sheetId: string): Promise<Map<number, Set<'comment' | 'review' | 'meeting'>>> {
+	const [rows] = (await db().query(
+		`SELECT revision_number AS n, 'comment' AS kind FROM comments WHERE sheet_id = :sheetId
+		 UNION SELECT revision_number, 'review' FROM review_requests WHERE sheet_id = :sheetId
+		 UNION SELECT revision_number, 'meeting' FROM meeting_items WHERE sheet_id = :sheetId`,
+		{ replacements: { sheetId } }
+	)) as [{ n: number; kind: 'comment' | 'review' | 'meeting' }[], unknown];
+	const out = new Map<number, Set<'comment' | 'review' | 'meeting'>>();
+	for (const r of rows) (out.get(r.n) ?? out.set(r.n, new Set()).get(r.n)!).add(r.kind);
+	return out;
 }
 
 /**

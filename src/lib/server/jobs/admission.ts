@@ -13,6 +13,7 @@
 //   turn in the same rotation, so a long tolerance run cannot starve interactive requests.
 //
 // Plain TypeScript with no pool inside: the work is a function, so the tests drive it directly.
+import { ApiProblem } from '../api/problem';
 
 export interface AdmissionLimits {
 	concurrency: number;
@@ -21,14 +22,15 @@ export interface AdmissionLimits {
 	maxWaitMs: number;
 }
 
-export class Shed extends Error {
+/** A refusal, already in the API's terms (status, `code`, `retryAfterSeconds` → Retry-After). */
+export class Shed extends ApiProblem {
 	constructor(
-		readonly status: 429 | 503,
+		status: 429 | 503,
 		message: string,
 		readonly retryAfterSeconds: number,
 		readonly code: 'busy' | 'fair_share'
 	) {
-		super(message);
+		super(status, message, { code, retryAfterSeconds });
 	}
 }
 

@@ -9,7 +9,7 @@ import { workerFile } from './worker-file';
 import { config } from '../config';
 import { requireInteractive } from '../analysis-limits';
 import { currentCaller } from '../request-caller';
-import { Admission, Shed } from './admission';
+import { Admission } from './admission';
 
 let pool: Piscina | null = null;
 
@@ -80,11 +80,7 @@ export async function runSolverTask<T>(
 /** Refuse now, before the body is read, when the analysis would be refused anyway (overload). */
 export function shedEarly(): void {
 	const refused = analysisAdmission.refusal(currentCaller()?.key ?? null);
-	if (refused)
-		throw new ApiProblem(refused.status, refused.message, {
-			code: refused.code,
-			retryAfterSeconds: refused.retryAfterSeconds
-		});
+	if (refused) throw refused;
 }
 
 async function runAdmitted(
@@ -93,20 +89,12 @@ async function runAdmitted(
 	timeoutMs: number
 ): Promise<unknown> {
 	const caller = currentCaller();
-	try {
-		return await analysisAdmission.run(
-			caller?.key ?? null,
-			() => runTimed(task, name, timeoutMs),
-			caller?.signal
-		);
-	} catch (e) {
-		if (e instanceof Shed)
-			throw new ApiProblem(e.status, e.message, {
-				code: e.code,
-				retryAfterSeconds: e.retryAfterSeconds
-			});
-		throw e;
-	}
+	// A refusal (Shed) is an ApiProblem already: 503 busy or 429 with Retry-After.
+	return analysisAdmission.run(
+		caller?.key ?? null,
+		() => runTimed(task, name, timeoutMs),
+		caller?.signal
+	);
 }
 
 async function runTimed(

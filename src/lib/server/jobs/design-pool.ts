@@ -8,7 +8,7 @@ import { ApiProblem } from '../api/respond';
 import { config } from '../config';
 import { requireInteractive } from '../analysis-limits';
 import { currentCaller } from '../request-caller';
-import { Admission, Shed } from './admission';
+import { Admission } from './admission';
 
 let pool: Piscina | null = null;
 
@@ -41,6 +41,12 @@ export const designAdmission = new Admission('design runs', () => {
 	};
 });
 
+/** Refuse now, before a (up to 2 MB) body is read, when the run would be refused anyway. */
+export function shedDesignEarly(): void {
+	const refused = designAdmission.refusal(currentCaller()?.key ?? null);
+	if (refused) throw refused;
+}
+
 /** One design task: too-large networks refused (413), admitted by turn, then run under a time
  * limit that counts running time only; a refusal by the solver or the design aids is 422.
  * `stop`: a background job that must end (cancelled, taken over) leaves the line or ends its
@@ -65,12 +71,7 @@ export async function runDesign(
 		);
 	} catch (e) {
 		if (stop?.aborted) throw stop.reason;
-		if (e instanceof Shed)
-			throw new ApiProblem(e.status, e.message, {
-				code: e.code,
-				retryAfterSeconds: e.retryAfterSeconds
-			});
-		throw e;
+		throw e; // a refusal (Shed) is an ApiProblem already
 	}
 	if (!outcome.ok) {
 		const { error, ...where } = outcome.error;

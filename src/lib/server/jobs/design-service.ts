@@ -171,7 +171,19 @@ export async function specOfRevision(actor: Actor, sheetId: string, number?: num
 	// A sheet with variants is judged per variant and across them too; the base judgement above
 	// stays for callers that know one network only.
 	const variants = hasVariants(revision.document as NetworkDocument)
-		? ((await runDesign({ kind: 'variant-spec', document: revision.document, spec, across: across ?? [] })) as VariantSpecOutcome)
+		? ((await runDesign({
+				kind: 'variant-spec',
+				document: revision.document,
+				spec,
+				across: across ?? []
+			})) as VariantSpecOutcome)
 		: null;
-	return { sheetId, revision: revision.number, spec, across: across ?? [], ...(outcome as object), variants };
+	return {
+		sheetId,
+		revision: revision.number,
+		spec,
+		across: across ?? [],
+		...(outcome as object),
+		variants
+	};
 }

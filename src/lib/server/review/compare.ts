@@ -7,6 +7,7 @@ import { analyzeInPool } from '../jobs/analysis-pool';
 import { readRevision } from '../sharing/sheet-actions';
 import { outputSignature, sameValue, wiring } from './wiring';
 import type { Actor } from '../access';
+import { figureChange, zeroFloor, type FigureChange } from '../../review/figure-change';
 import { compareVariants } from './variant-compare';
 
 export interface FieldChange {
@@ -92,13 +93,20 @@ export interface Figure {
 	unit: string;
 	before: number | null;
 	after: number | null;
+	/** Relative change in per cent; null where it means nothing (a side at or near zero, or absent). */
 	changePct: number | null;
+	/** The change as it should be read: relative, absolute (in `unit`), same, appears, disappears. */
+	change: FigureChange;
 }
 
-export function figureChanges(a: Analysis | null, b: Analysis | null): Figure[] {
+/** The transfer function's unit: the output is a voltage; the input a voltage or a current. */
+export const gainUnit = (doc: NetworkDocument) =>
+	doc.elements.find((e) => e.id === doc.input)?.type === 'I' ? 'V/A' : 'V/V';
+
+export function figureChanges(a: Analysis | null, b: Analysis | null, gain = 'V/V'): Figure[] {
 	const rows: [string, string, string, (x: Analysis) => number | null][] = [
-		['dcGain', 'DC gain', '', (x) => x.dcGain],
-		['highFrequencyGain', 'Gain at high frequency', '', (x) => x.highFrequencyGain],
+		['dcGain', 'DC gain', gain, (x) => x.dcGain],
+		['highFrequencyGain', 'Gain at high frequency', gain, (x) => x.highFrequencyGain],
 		['bandwidth', 'Bandwidth (−3 dB)', 'Hz', (x) => x.bandwidth],
 		['riseTime', 'Rise time (10–90 %)', 's', (x) => x.step?.riseTime ?? null],
 		['overshoot', 'Overshoot', '%', (x) => x.step?.overshoot ?? null], // the solver reports it in per cent already
@@ -107,8 +115,8 @@ export function figureChanges(a: Analysis | null, b: Analysis | null): Figure[] 
 	return rows.map(([key, label, unit, get]) => {
 		const before = a ? get(a) : null;
 		const after = b ? get(b) : null;
-		const changePct = before !== null && after !== null && before !== 0 ? ((after - before) / Math.abs(before)) * 100 : null;
-		return { key, label, unit, before, after, changePct };
+		const change = figureChange(before, after, zeroFloor(unit));
+		return { key, label, unit, before, after, changePct: change.kind === 'relative' ? change.pct : null, change };
 	});
 }
 
@@ -133,7 +141,7 @@ export async function compareRevisions(actor: Actor, sheetId: string, from: numb
 		elements: diffElements(da, db),
 		poles: xa && xb ? matchSingularities(xa.poles, xb.poles) : [],
 		zeros: xa && xb ? matchSingularities(xa.zeros, xb.zeros) : [],
-		figures: figureChanges(xa, xb),
+		figures: figureChanges(xa, xb, gainUnit(db)),
 		// A sheet with variants: the same, variant by variant (null without variants).
 		variants: await compareVariants(da, db)
 	};

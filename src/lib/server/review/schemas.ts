@@ -22,10 +22,17 @@ export const reviewRequestBody = z.object({
 	dueOn: isoDate('dueOn').nullable().optional(),
 	revision
 });
-export const reviewAnswerBody = z.object({
-	decision: z.enum(['approve', 'changes'], { error: 'decision must be approve or changes' }),
-	summary: z.string().trim().max(2000, 'summary is too long (at most 2000 characters)').default('')
-});
+// A sign-off is a reviewer's word that the revision is right: it says what was checked. An
+// empty one (a stray click) is refused; asking for changes may say why in the comments instead.
+export const reviewAnswerBody = z
+	.object({
+		decision: z.enum(['approve', 'changes'], { error: 'decision must be approve or changes' }),
+		summary: z.string().trim().max(2000, 'summary is too long (at most 2000 characters)').default('')
+	})
+	.refine((b) => b.decision !== 'approve' || b.summary.length > 0, {
+		path: ['summary'],
+		message: 'say in a line what you checked before signing off'
+	});
 
 export const compareQuery = z.object({
 	from: z.coerce.number({ error: 'from must be a revision number' }).int().min(1, 'from must be a revision number'),

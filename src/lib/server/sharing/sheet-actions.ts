@@ -13,8 +13,12 @@ import {
 	restoreSheet,
 	saveRevision,
 	trashSheet,
+	nameRevision,
+	revisionsForHistory,
+	revisionReferences,
 	type SheetListQuery
 } from '../db/sheets';
+import { groupCheckpoints, type RevisionForHistory } from './checkpoints';
 import { AccessDenied } from '../access';
 import { sheetsWithReview } from './sheet-list';
 import type { ListReviewFilter } from '../review/state';
@@ -82,6 +86,18 @@ export async function saveSheetAs(
 export async function restoreRevisionAs(actor: UserActor, sheetId: string, number: number, baseRevision?: number) {
 	const { sheet } = await authorizeSheet(actor, sheetId, 'save');
 	return restoreRevision(actor.id, sheetId, number, baseRevision ?? sheet.latestRevision);
+}
+
+/** Name a revision as a checkpoint (with a message if it has none); needs the right to save. */
+export async function nameRevisionAs(actor: UserActor, sheetId: string, number: number, name: string | null, message: string | null) {
+	await authorizeSheet(actor, sheetId, 'save');
+	if (!(await nameRevision(sheetId, number, name, message))) throw new AccessDenied(404, `Revision ${number} does not exist.`);
+}
+
+/** The history grouped into checkpoints (checkpoints.ts), newest first. */
+export async function checkpointsOf(sheetId: string) {
+	const [revisions, refs] = await Promise.all([revisionsForHistory(sheetId), revisionReferences(sheetId)]);
+	return groupCheckpoints(revisions as RevisionForHistory[], refs);
 }
 
 export async function revisionHistory(actor: Actor, sheetId: string) {

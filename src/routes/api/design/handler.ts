@@ -5,7 +5,7 @@ import { json, type RequestHandler } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { apiActor, BODY_LIMITS, endpoint, readBody } from '$lib/server/api/respond';
 import { checkDesignNetwork } from '$lib/server/jobs/design-service';
-import { runDesign } from '$lib/server/jobs/design-pool';
+import { runDesign, shedDesignEarly } from '$lib/server/jobs/design-pool';
 import type { DesignTask } from '$lib/server/workers/design.worker';
 
 export function designEndpoint<S extends z.ZodType<{ document: unknown }>>(
@@ -15,6 +15,8 @@ export function designEndpoint<S extends z.ZodType<{ document: unknown }>>(
 ): RequestHandler {
 	return endpoint(async (event) => {
 		apiActor(event);
+		// Under overload, refuse before reading and checking the body (as POST /api/analyze).
+		shedDesignEarly();
 		const body = await readBody(event.request, schema, BODY_LIMITS.document);
 		const document = checkDesignNetwork(body.document);
 		return respond(await runDesign(task(body, document)), event.url);

@@ -5,7 +5,7 @@ const diff = {
 	added: [{ id: 'C2' }],
 	removed: [{ id: 'RL' }],
 	changed: [
-		{ id: 'R1', changes: [{ field: 'value', from: '1k', to: '2k' }] },
+		{ id: 'R1', type: 'R', changes: [{ field: 'value', from: '1k', to: '2k' }] },
 		{
 			id: 'C1',
 			changes: [
@@ -20,7 +20,7 @@ describe('partMarks', () => {
 	it('older side: removed parts and where a change went', () => {
 		expect([...partMarks(diff, 'older')]).toEqual([
 			['RL', { kind: 'removed', words: 'removed' }],
-			['R1', { kind: 'changed', words: 'changed: → 2k' }],
+			['R1', { kind: 'changed', words: 'changed: → 2 kΩ' }],
 			['C1', { kind: 'changed', words: 'changed: wiring, kind → L' }]
 		]);
 	});
@@ -28,7 +28,7 @@ describe('partMarks', () => {
 	it('newer side: added parts and where a change came from', () => {
 		expect([...partMarks(diff, 'newer')]).toEqual([
 			['C2', { kind: 'added', words: 'added' }],
-			['R1', { kind: 'changed', words: 'changed: was 1k' }],
+			['R1', { kind: 'changed', words: 'changed: was 1 kΩ' }],
 			['C1', { kind: 'changed', words: 'changed: wiring, kind was C' }]
 		]);
 	});

@@ -1,6 +1,7 @@
 // Which parts to outline on each side of a comparison, and in what words. The older drawing
 // shows what went away and what a change started from; the newer one what came and what it
-// became. Words carry the values so the drawing says as much as the table.
+// became. Words carry the values, with their units, so the drawing says as much as the table.
+import { valueText } from '$lib/review/value-text';
 export type MarkKind = 'added' | 'removed' | 'changed';
 export interface PartMark {
 	kind: MarkKind;
@@ -10,7 +11,7 @@ export interface PartMark {
 interface Diff {
 	added: { id: string }[];
 	removed: { id: string }[];
-	changed: { id: string; changes: { field: string; from: string | null; to: string | null }[] }[];
+	changed: { id: string; type?: string; changes: { field: string; from: string | null; to: string | null }[] }[];
 }
 
 /** Tone (Tailwind text colour), outline dash and badge sign per kind: never colour alone. */
@@ -29,10 +30,11 @@ const fieldWords: Record<string, string> = {
 	control: 'control '
 };
 
-function changeWords(changes: Diff['changed'][number]['changes'], side: 'older' | 'newer'): string {
-	const parts = changes.map((c) => {
+function changeWords(e: Diff['changed'][number], side: 'older' | 'newer'): string {
+	const parts = e.changes.map((c) => {
 		if (c.field === 'nodes') return 'wiring';
-		const v = side === 'older' ? c.to : c.from;
+		const raw = side === 'older' ? c.to : c.from;
+		const v = c.field === 'value' && e.type ? valueText(e.type, raw) : raw;
 		return `${fieldWords[c.field] ?? ''}${side === 'older' ? '→ ' : 'was '}${v ?? '—'}`;
 	});
 	return `changed: ${parts.join(', ')}`;
@@ -47,6 +49,6 @@ export function partMarks(diff: Diff, side: 'older' | 'newer'): Map<string, Part
 			words: side === 'older' ? 'removed' : 'added'
 		});
 	for (const e of diff.changed)
-		out.set(e.id, { kind: 'changed', words: changeWords(e.changes, side) });
+		out.set(e.id, { kind: 'changed', words: changeWords(e, side) });
 	return out;
 }

@@ -9,6 +9,8 @@ export class SheetRevision extends Model<InferAttributes<SheetRevision>, InferCr
 	declare document: unknown;
 	declare layout: unknown;
 	declare message: string | null;
+	/** A person's label for the revision (a checkpoint); migration 0010. */
+	declare name: CreationOptional<string | null>;
 	declare createdAt: CreationOptional<Date>;
 }
 
@@ -22,6 +24,7 @@ export function initSheetRevision(sequelize: Sequelize) {
 			document: { type: DataTypes.JSONB, allowNull: false },
 			layout: { type: DataTypes.JSONB, allowNull: true },
 			message: { type: DataTypes.STRING(200), allowNull: true },
+			name: { type: DataTypes.STRING(80), allowNull: true },
 			createdAt: DataTypes.DATE
 		},
 		{ sequelize, tableName: 'sheet_revisions', updatedAt: false }

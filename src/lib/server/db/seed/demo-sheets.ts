@@ -13,7 +13,8 @@ export const digitizerDivider = {
 		{ id: 'Rsrc', type: 'R', nodes: ['src', 'tip'], value: '50' },
 		{ id: 'Rtop', type: 'R', nodes: ['tip', 'adc'], value: '9M' },
 		{ id: 'Ctop', type: 'C', nodes: ['tip', 'adc'], value: '6.8p' },
-		{ id: 'Ccable', type: 'C', nodes: ['adc', 'gnd'], value: '42p' },
+		// The cable is given, not chosen: a fixed value the design aids leave alone.
+		{ id: 'Ccable', type: 'C', nodes: ['adc', 'gnd'], value: '42p', role: 'fixed' as const },
 		{ id: 'Radc', type: 'R', nodes: ['adc', 'gnd'], value: '1M' },
 		{ id: 'Cadc', type: 'C', nodes: ['adc', 'gnd'], value: '18p' }
 	],

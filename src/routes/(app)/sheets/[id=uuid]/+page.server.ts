@@ -4,8 +4,9 @@ import { requireUser } from '$lib/server/auth/guard';
 import { listRevisions } from '$lib/server/db/sheets';
 import { formAction } from '$lib/server/sharing/form-action';
 import { answerSpec } from '$lib/server/review/spec-compare';
+import { firstAnalysis } from '$lib/server/first-analysis';
 import { requestContext } from '$lib/server/sharing/context';
-import { readRevision, renameSheetAs, restoreRevisionAs, trashSheetAs, duplicateSheetAs } from '$lib/server/sharing/sheet-actions';
+import { checkpointsOf, nameRevisionAs, readRevision, renameSheetAs, restoreRevisionAs, trashSheetAs, duplicateSheetAs } from '$lib/server/sharing/sheet-actions';
 import { cancelGuestInvitation, changeGrant, endShareLink, newShareLink, sharingOf, shareWithEmail, unshare } from '$lib/server/sharing/share-actions';
 import * as schema from './schema';
 import type { Actions, PageServerLoad } from './$types';
@@ -20,17 +21,27 @@ export const load: PageServerLoad = async ({ params, url, locals }) => {
 	try {
 		const { sheet, workspace, revision, role, can, target } = await readRevision(actor, params.id, number);
 		const viewingOld = revision.number !== sheet.latestRevision;
-		const [history, sharing] = await Promise.all([listRevisions(sheet.id), can('share') ? sharingOf(actor, sheet.id) : null]);
+		// The first analysis is rendered into the page (results before any JavaScript; null when
+		// the editor should ask itself, see first-analysis.ts).
+		const [history, checkpoints, sharing, first] = await Promise.all([listRevisions(sheet.id), checkpointsOf(sheet.id), can('share') ? sharingOf(actor, sheet.id) : null, firstAnalysis(revision.document, revision.layout)]);
 		return {
 			sheet,
 			revision,
+			firstAnalysis: first,
 			role,
 			canEdit: can('save') && !viewingOld,
 			viewingOld,
 			workspace: { id: workspace.id, name: workspace.name, member: target.workspaceRole !== null },
 			history,
+			checkpoints,
 			sharing,
 			may: { rename: can('rename'), restore: can('save'), trash: can('trash'), duplicate: can('duplicate'), comment: can('comment') },
+			// Past the long canvas, straight to what a reader came for (drawn by the root layout).
+			skipLinks: [
+				{ href: '#results', label: 'Skip to the results' },
+				{ href: '#review-panel', label: 'Skip to the review' },
+				...(can('comment') ? [{ href: '#new-comment', label: 'Skip to a new comment' }] : [{ href: '#comments', label: 'Skip to the comments' }])
+			],
 			// Streamed (not awaited): the review answer's spec verdicts follow the page in.
 			reviewSpec: answerSpec(actor, sheet.id).catch(() => null)
 		};
@@ -50,6 +61,11 @@ export const actions: Actions = {
 		formAction(event, 'history', schema.restoreSchema, async ({ number }, actor) => {
 			const revision = await restoreRevisionAs(actor, event.params.id, number);
 			redirect(303, `/sheets/${event.params.id}?restored=${number}&as=${revision.number}`);
+		}),
+	nameRevision: (event) =>
+		formAction(event, 'history', schema.nameRevisionSchema, async ({ number, name, message }, actor) => {
+			await nameRevisionAs(actor, event.params.id, number, name || null, message || null);
+			return { message: name ? `Revision ${number} is now “${name}”.` : `Revision ${number} has no name now.` };
 		}),
 	trash: (event) =>
 		formAction(event, 'sheet', schema.emptySchema, async (_d, actor) => {

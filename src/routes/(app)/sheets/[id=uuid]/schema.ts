@@ -10,3 +10,9 @@ export const linkSchema = z.object({ label: z.string().trim().max(80, 'Label is 
 export const linkIdSchema = z.object({ linkId: z.uuid('Choose a link') });
 export const invitationIdSchema = z.object({ invitationId: z.uuid('Choose an invitation') });
 export const emptySchema = z.object({});
+// Naming a revision (a checkpoint): a short name, an optional message; an empty name clears it.
+export const nameRevisionSchema = z.object({
+	number: z.coerce.number().int().min(1, 'Choose a revision'),
+	name: z.string().trim().max(80, 'A name has at most 80 characters').default(''),
+	message: z.string().trim().max(200, 'A message has at most 200 characters').default('')
+});
