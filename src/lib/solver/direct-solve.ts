@@ -277,7 +277,9 @@ export function solveAt(
 	derivative = false
 ): DirectPoint | null {
 	// The zero checks ask for the same points twice when the analysis takes its second look for
-	// zeros beside poles (analyze.ts): answers are kept per s (a derivative answer serves both).
+	// zeros beside poles (analyze.ts): answers are kept per s (a derivative answer serves both),
+	// from a size where a solve costs far more than the look-up.
+	if (sys.n < KEEP_FROM) return solveFresh(sys, sr, si, derivative);
 	const key = `${sr} ${si}`;
 	const kept = sys.kept.get(key);
 	if (kept && (kept.p === null || !derivative || kept.p.dh)) return kept.p;
@@ -288,6 +290,7 @@ export function solveAt(
 
 /** Answers kept per system; enough for every solve of an analysis of the dense back end. */
 const KEEP_AT_MOST = 8192;
+const KEEP_FROM = 40;
 
 function solveFresh(
 	sys: DirectSystem,
