@@ -120,7 +120,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		md = { direct: ocPorts.h0, poles: [] };
 	} else {
 		const { a, pm, s0 } = shiftedModel(net, oc, sc);
-		sys = directSystem(a);
+		sys = directSystem(a, s0);
 		elementsOfPorts = pm.elements;
 		const poleSolve = computePoles(a, pm);
 		roots = poleSolve.roots;
