@@ -177,9 +177,10 @@ export function analyzeLarge(
 		};
 		const direct = asDirectSweep(sw);
 		const delay = Array.from(direct.qRe, (q, i) => (direct.ok[i] ? nullIfBad(-q) : null));
-		// Following the phase may cost up to three times the sweep's own time (and 10 solves a
-		// point); past that the phase is left out above where it stopped, with a warning.
-		const until = performance.now() + 3 * sweepMs;
+		// Following the phase may cost as much time as the sweep itself (and 10 solves a point):
+		// a large analysis runs as a job with a time limit. Past that the phase is left out above
+		// where it stopped, with a warning.
+		const until = performance.now() + sweepMs;
 		const phase = phaseDeg(direct, delay, {
 			probe,
 			resonances: resonancesOf(details),
