@@ -52,12 +52,14 @@ for (const theme of ['light', 'dark'] as const) {
 		await page.setViewportSize({ width: 1440, height: 1000 });
 		await context.addCookies([{ name: 'pw-theme', value: theme, url: baseURL! }]);
 
-		for (const url of ['/', '/sign-in', '/sign-up', '/forgot-password']) {
+		for (const url of ['/', '/credits', '/sign-in', '/sign-up', '/forgot-password']) {
 			await visit(page, url);
 			await audit(page, `${url} (${theme})`);
 		}
 		await visit(page, `/reset-password/${NO_TOKEN}`);
 		await audit(page, `reset password, unknown token (${theme})`);
+		await visit(page, `/sign-up/${NO_TOKEN}`);
+		await audit(page, `sign-up link, unknown token (${theme})`);
 
 		await signUpFresh(page, 'Ines Okafor');
 		const demo = demoSheets[0];
@@ -95,6 +97,7 @@ for (const theme of ['light', 'dark'] as const) {
 			`${ws}/meetings/${meetingId}/summary`,
 			'/account',
 			'/notifications',
+			'/sign-out',
 			`${sheet}/report`,
 			`${sheet}/compare?from=1&to=2`,
 			`/invitations/${NO_TOKEN}`

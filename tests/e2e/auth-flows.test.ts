@@ -95,7 +95,9 @@ test('what is typed before the page has finished loading is kept and sent', asyn
 		await route.continue();
 	});
 	const email = `early-${Date.now()}@example.test`;
-	await page.goto('/sign-up', { waitUntil: 'domcontentloaded' });
+	// Not 'domcontentloaded': that event waits for the page's module scripts, which are held.
+	await page.goto('/sign-up', { waitUntil: 'commit' });
+	await expect(page.getByLabel('Your name')).toBeVisible();
 	await page.getByLabel('Your name').fill('Teodor Early');
 	await page.getByLabel('E-mail address').fill(email);
 	await page.getByLabel('Password').fill('typed before load 42');

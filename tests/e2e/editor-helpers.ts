@@ -84,6 +84,12 @@ export const terminal = (page: Page, nodeLocator: ReturnType<typeof node>, t: st
 /** Drag a part from the parts list onto the canvas at (x, y) relative to the canvas' top-left. */
 export async function dropPart(page: Page, title: string, x: number, y: number) {
 	const canvas = page.getByRole('application', { name: 'Schematic canvas', exact: true });
+	// A drag whose target is below the fold scrolls the page halfway through the drag and the
+	// drop is lost: bring the whole canvas into view first (the review panel sits above it).
+	await canvas.evaluate((el) => {
+		const r = el.getBoundingClientRect();
+		if (r.top < 0 || r.bottom > window.innerHeight) el.scrollIntoView({ block: 'center' });
+	});
 	await page
 		.getByRole('button', { name: `Place ${title}` })
 		.dragTo(canvas, { targetPosition: { x, y } });

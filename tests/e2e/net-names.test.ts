@@ -36,7 +36,7 @@ test('net names: the same everywhere, shown on the canvas, renamed from a wire',
 
 	// Select a wire on adc and rename the net.
 	await page
-		.locator('.pw-canvas .svelte-flow__edge[aria-label="Wire on net adc"]')
+		.locator('.pw-canvas .svelte-flow__edge[aria-label^="Wire on adc,"]')
 		.first()
 		.click({ force: true });
 	const field = props.getByLabel('Net name');

@@ -118,4 +118,21 @@ describe('LiveAnalysis without a pause', () => {
 		live.update(doc('2k'), []);
 		expect(live.unchangedByEdit).toBe(false);
 	});
+	it('an answer computed with the page is said to be so until an edit is timed', async () => {
+		const { fetcher } = slowServer(1);
+		const live = new LiveAnalysis(0, fetcher);
+		const body = JSON.stringify(doc('1k'));
+		live.seed(body, { poles: [] } as unknown as Parameters<LiveAnalysis['seed']>[1]);
+		expect(live.status).toBe('done');
+		expect(live.seeded).toBe(true);
+		expect(live.lastMs).toBeNull();
+		// The editor then reports the drawing it opened with: the same network, nothing is sent.
+		live.update(doc('1k'), []);
+		expect(live.sent).toBe(0);
+		expect(live.seeded).toBe(true);
+		live.update(doc('2k'), []);
+		await wait(20);
+		expect(live.seeded).toBe(false);
+		expect(live.lastAfterEdit).toBe(true);
+	});
 });

@@ -72,6 +72,8 @@ export class LiveAnalysis {
 	lastAfterEdit = $state(false);
 	/** The last edit moved the drawing but left the network as it was (nothing to analyse). */
 	unchangedByEdit = $state(false);
+	/** The shown result is the one computed with the page (`seed`): nothing was timed here. */
+	seeded = $state(false);
 	/** How many requests were actually sent (tests check a bad value sends none). */
 	sent = $state(0);
 	/** Calls of `update` so far: the first is the document the sheet opened with. */
@@ -97,6 +99,7 @@ export class LiveAnalysis {
 	seed(body: string, answer: Analysis | { variants: VariantResult[] }): void {
 		this.#lastBody = body;
 		this.status = 'done';
+		this.seeded = true;
 		if ('variants' in answer) {
 			this.#withVariants = true;
 			this.variants = answer.variants;
@@ -184,6 +187,7 @@ export class LiveAnalysis {
 				this.lastPhases = { sent, answered, parsed, shown, painted };
 				this.lastMs = painted;
 				this.lastAfterEdit = !opening;
+				this.seeded = false;
 				this.status = this.variants && this.variantFailed ? 'failed' : 'done';
 			} else {
 				this.fault = {

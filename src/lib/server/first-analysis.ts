@@ -4,7 +4,8 @@
 // the same document built from the same drawing, the same options — so the editor takes it as
 // its own answer and sends nothing until the first edit (a sheet with variants: all of them, as
 // the editor asks). Anything unusual (a drawing with a problem, a large or slow network, a
-// solver error) is left to the editor: null.
+// solver error) is left to the editor: null. So is a busy server: the page never waits in line
+// behind other people's analyses (a sheet page must answer fast under load, docs/performance.md).
 import { fromDocument } from '$lib/editor/from-document';
 import { buildDocument } from '$lib/editor/to-document';
 import { ANALYZE_URL } from '$lib/editor/live-analysis.svelte';
@@ -13,7 +14,7 @@ import type { FirstAnalysis, VariantResult } from '$lib/editor/live-analysis.sve
 import type { Analysis } from '$lib/solver';
 import { readOptions } from './analysis-request';
 import { readTrim, skipped, trimAnalysis } from './analysis-omit';
-import { analyzeInPool } from './jobs/analysis-pool';
+import { analysisAdmission, analyzeInPool } from './jobs/analysis-pool';
 import { analyzeVariants, variantsFor } from './variant-analysis';
 
 /** Larger networks answer later than a page should wait; the editor asks for them itself. */
@@ -32,6 +33,7 @@ export async function firstAnalysis(
 		const built = buildDocument(fromDocument(document as NetworkDocument, layout));
 		const doc = built.document;
 		if (built.problems.length || doc.elements.length > MAX_ELEMENTS) return null;
+		if (!analysisAdmission.hasFreeSlot()) return null;
 		const url = new URL(ANALYZE_URL, 'http://polewise.local');
 		const trim = readTrim(url);
 		const options = { ...readOptions(url), ...skipped(trim) };

@@ -10,6 +10,8 @@ import {
 	groupDelay,
 	magnitudeDb,
 	phaseDeg,
+	phaseProbe,
+	resonancesOf,
 	sweep
 } from './direct-response';
 import { AGREE, disagreement, zerosAtOrigin } from './agreement';
@@ -118,7 +120,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		md = { direct: ocPorts.h0, poles: [] };
 	} else {
 		const { a, pm, s0 } = shiftedModel(net, oc, sc);
-		sys = directSystem(a);
+		sys = directSystem(a, s0);
 		elementsOfPorts = pm.elements;
 		const poleSolve = computePoles(a, pm);
 		roots = poleSolve.roots;
@@ -189,10 +191,19 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	let frequencyResponse: Analysis['frequencyResponse'] = null;
 	if (freq) {
 		const delay = groupDelay(sw);
+		const phase = phaseDeg(sw, delay, {
+			probe: phaseProbe(sys!),
+			resonances: resonancesOf(roots, zeroRoots)
+		});
+		if (phase.unresolvedAt !== null)
+			extra.push({
+				code: 'phase_unresolved',
+				message: `the phase could not be followed above ${phase.unresolvedAt.toPrecision(4)} Hz (it turns faster than the solves could track); it is left out there`
+			});
 		frequencyResponse = {
 			f: freq,
 			magnitudeDb: magnitudeDb(sw),
-			phaseDeg: phaseDeg(sw, delay),
+			phaseDeg: phase.phaseDeg,
 			groupDelay: delay
 		};
 	}

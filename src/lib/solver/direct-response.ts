@@ -68,39 +68,118 @@ export function groupDelay(s: Sweep): (number | null)[] {
 	return Array.from(s.qRe, (q, i) => (s.ok[i] ? finiteOrNull(-q) : null));
 }
 
+/** arg H (radians) and the group delay (s) at one frequency; null where the solve fails or H = 0. */
+export type PhaseProbe = (f: number) => { arg: number; delay: number } | null;
+
+/** A probe by one more solve (and derivative solve) of the network equations. */
+export function phaseProbe(sys: DirectSystem): PhaseProbe {
+	return (f) => {
+		const p = solveAt(sys, 0, 2 * Math.PI * f, true);
+		if (!p || !p.dh || (p.h.re === 0 && p.h.im === 0)) return null;
+		const q = ratio(p.dh, p.h);
+		return Number.isFinite(q.re) ? { arg: Math.atan2(p.h.im, p.h.re), delay: -q.re } : null;
+	};
+}
+
+/** Where the phase turns fast: a pole or zero at |Im| (Hz) with relative width |Re|/|Im|. */
+export interface Resonance {
+	f: number;
+	width: number;
+}
+
+export function resonancesOf(...lists: { re: number; im: number }[][]): Resonance[] {
+	const out: Resonance[] = [];
+	for (const list of lists)
+		for (const r of list)
+			if (r.im > 0 && Number.isFinite(r.im))
+				out.push({ f: r.im / (2 * Math.PI), width: Math.abs(r.re) / r.im });
+	return out;
+}
+
+/** Extra solves one phase may spend on following the phase between grid points. */
+const PROBE_BUDGET = 4000;
+/** Intervals narrower than this (relative) are not split further. */
+const MIN_SPLIT = 1e-9;
+
 /**
- * Phase in degrees, unwrapped with the group delay: between neighbours the phase moves by about
- * −∫τg dω (trapezoid), and the 360° branch nearest that prediction is taken — a resonance that
- * turns by more than 180° between two samples is still followed. The first point is put on the
- * branch of its low-frequency asymptote k·90° (k from ω·d(ln H)/dω: zeros minus poles at s = 0).
+ * Phase in degrees, unwrapped: from one point to the next the phase moves by −∫τg dω, and the
+ * 360° branch nearest that prediction is taken. Two predictions are made from the group delay
+ * at the ends — the trapezoid in ω (exact for a constant delay) and in ln ω (exact for a
+ * phase linear in ln ω) — and the branch is trusted only where they agree within 45°, the step
+ * is under 45°, and no pole or zero narrower than the step lies inside it (a resonance between
+ * two samples turns the phase by up to 180° while the delay at both ends stays small). Elsewhere
+ * the interval is split at its geometric middle with one more solve (`probe`), recursively;
+ * the extra points only carry the phase and are not returned. Without a probe, or once its
+ * budget is spent, the phase from there on cannot be trusted: null, and `unresolvedAt` says
+ * where (Hz). The first point is put on the branch of its low-frequency asymptote k·90°
+ * (k from ω·d(ln H)/dω: zeros minus poles at s = 0).
  */
-export function phaseDeg(s: Sweep, delay: (number | null)[]): (number | null)[] {
+export function phaseDeg(
+	s: Sweep,
+	delay: (number | null)[],
+	follow: { probe?: PhaseProbe; resonances?: Resonance[] } = {}
+): { phaseDeg: (number | null)[]; unresolvedAt: number | null } {
 	const out: (number | null)[] = [];
-	let prev: number | null = null;
-	let prevIdx = -1;
+	const resonances = follow.resonances ?? [];
+	let budget = follow.probe ? PROBE_BUDGET : 0;
+	let unresolvedAt: number | null = null;
+	let prev: { f: number; phase: number; delay: number | null } | null = null;
+
+	// The unwrapped phase at b, given the unwrapped phase at a (radians), splitting as needed.
+	const carry = (
+		fa: number,
+		pa: number,
+		da: number | null,
+		fb: number,
+		rawB: number,
+		db: number | null
+	): number | null => {
+		const wa = 2 * Math.PI * fa;
+		const wb = 2 * Math.PI * fb;
+		const known = da !== null && db !== null;
+		const lin = known ? -((da + db) / 2) * (wb - wa) : 0;
+		const log = known ? -((wa * da + wb * db) / 2) * Math.log(wb / wa) : 0;
+		const narrow = resonances.some(
+			(r) => r.f > fa && r.f < fb && r.width < Math.log(fb / fa)
+		);
+		const sure =
+			known && !narrow && Math.abs(lin - log) < Math.PI / 4 && Math.abs(lin) < Math.PI / 4;
+		if (!sure && fb / fa - 1 > MIN_SPLIT) {
+			if (budget <= 0 || !follow.probe) return null;
+			budget--;
+			const fm = Math.sqrt(fa * fb);
+			const m = follow.probe(fm);
+			if (m) {
+				const pm = carry(fa, pa, da, fm, m.arg, m.delay);
+				return pm === null ? null : carry(fm, pm, m.delay, fb, rawB, db);
+			}
+		}
+		const target = pa + (lin + log) / 2;
+		return rawB + 2 * Math.PI * Math.round((target - rawB) / (2 * Math.PI));
+	};
+
 	for (let i = 0; i < s.f.length; i++) {
-		if (!s.ok[i] || s.logMag[i] === -Infinity) {
+		if (!s.ok[i] || s.logMag[i] === -Infinity || unresolvedAt !== null) {
 			out.push(null);
 			continue;
 		}
-		const raw = (s.arg[i] * 180) / Math.PI;
-		let target: number;
+		const raw = s.arg[i];
+		let v: number | null;
 		if (prev === null) {
 			// s·H′/H at s = jω: its real part counts zeros minus poles at the origin.
 			const k = Number.isFinite(s.qIm[i]) ? Math.round(-2 * Math.PI * s.f[i] * s.qIm[i]) : 0;
-			target = k * 90;
-		} else {
-			const d0 = delay[prevIdx];
-			const d1 = delay[i];
-			const dw = 2 * Math.PI * (s.f[i] - s.f[prevIdx]);
-			target = prev - (d0 !== null && d1 !== null ? ((d0 + d1) / 2) * dw * (180 / Math.PI) : 0);
+			const target = (k * Math.PI) / 2;
+			v = raw + 2 * Math.PI * Math.round((target - raw) / (2 * Math.PI));
+		} else v = carry(prev.f, prev.phase, prev.delay, s.f[i], raw, delay[i]);
+		if (v === null) {
+			unresolvedAt = prev!.f;
+			out.push(null);
+			continue;
 		}
-		const v = raw + 360 * Math.round((target - raw) / 360);
-		out.push(v);
-		prev = v;
-		prevIdx = i;
+		out.push((v * 180) / Math.PI);
+		prev = { f: s.f[i], phase: v, delay: delay[i] };
 	}
-	return out;
+	return { phaseDeg: out, unresolvedAt };
 }
 
 /** Impedance seen by the input source from the input functional's reading (V input: 1/I). */

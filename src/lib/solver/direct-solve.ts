@@ -9,6 +9,7 @@ import {
 	type BandLU,
 	type WideVector
 } from './kernels/complex-band-lu';
+import { hessenbergRoute, solveByHessenberg, type HessenbergRoute } from './hessenberg-route';
 
 /**
  * The network equations themselves at a complex frequency: (G + sC)·x = b, solved directly —
@@ -16,7 +17,10 @@ import {
  * eigenvectors, no pole–zero form). The unknowns are renumbered once by reverse Cuthill–McKee
  * (band-order.ts), so a ladder factors as a band of width one or two and a point costs O(N).
  * Everything that depends on the factorization kernel is behind solveAt(), so a sparse kernel
- * can replace the band one without touching the callers.
+ * can replace the band one without touching the callers. Where the band stays wide (a mesh with
+ * long-range couplings: O(n³) per point), one Hessenberg reduction at the analysis' shift serves
+ * every point in O(n²), each answer certified on these equations (hessenberg-route.ts); a point
+ * it cannot certify is solved by the banded LU.
  *
  * Results are "wide" complex numbers (mantissa · 2^ex): the response of a 300-section ladder a
  * decade above its last pole is far below 1e-308 and would otherwise underflow to exactly 0.
@@ -46,6 +50,48 @@ export interface DirectSystem {
 	rs: Float64Array;
 	x: WideVector;
 	y: WideVector;
+	/** Which solver answers first: chosen by cost (chooseRoute); tests may set it. */
+	route: 'band' | 'hessenberg';
+	/** The real shift the Hessenberg route reduces at (null: no route). */
+	s0: number | null;
+	/** The reduction, built at the first solve (null: G + s0·C was singular). */
+	reduced: HessenbergRoute | null | undefined;
+	/** Points answered by the Hessenberg route / handed to the banded LU after it declined. */
+	stats: { hessenberg: number; fallback: number };
+	/** Answers by s (see solveAt). */
+	kept: Map<string, { p: DirectPoint | null }>;
+}
+
+/** Forces one route for every system built while it is set, and counts what the Hessenberg
+ *  route answered and handed on over all systems (tests compare the two routes). */
+export const routeOverride: {
+	route: DirectSystem['route'] | null;
+	answered: number;
+	declined: number;
+} = { route: null, answered: 0, declined: 0 };
+
+/** Solves expected per analysis: a 200-point sweep with its derivative, the bandwidth search,
+ *  the agreement and zero checks. Only the order of magnitude matters. */
+const EXPECTED_SOLVES = 300;
+
+/**
+ * The banded LU costs at most 4·n·kl·(2kl + ku) real multiply–adds a point (less where the band
+ * holds zeros, which it skips); the Hessenberg route about 6n³ once (factor, K, reduction, P)
+ * and some 25n² a point (factor, substitutions, the products with Q and P, the residual checks
+ * with one refinement each). Measured on the bench's meshes (docs/performance.md), the route
+ * loses below about 40 unknowns (fixed costs per point) and wins from 52 on; so it is taken from
+ * 40 unknowns when the count says it is four times cheaper.
+ */
+export function chooseRoute(
+	n: number,
+	kl: number,
+	ku: number,
+	s0: number | null
+): DirectSystem['route'] {
+	if (s0 === null || !(s0 > 0) || !Number.isFinite(s0) || n < 40) return 'band';
+	const band = EXPECTED_SOLVES * 4 * n * kl * (2 * kl + ku);
+	const reduced = 6 * n ** 3 + EXPECTED_SOLVES * 25 * n * n;
+	return 4 * reduced < band ? 'hessenberg' : 'band';
 }
 
 export interface DirectPoint {
@@ -70,7 +116,9 @@ function triplets(list: [number, number, number][]) {
 	return { r, c, v };
 }
 
-export function directSystem(a: Assembled): DirectSystem {
+/** `s0`: a real shift where G + s0·C is regular (the analysis' own), enabling the Hessenberg
+ *  route; without it every point is a banded LU. */
+export function directSystem(a: Assembled, s0: number | null = null): DirectSystem {
 	const n = a.size;
 	// The pattern of G + sC for the ordering: G's entries plus every port's outer product.
 	const pattern = a.g.slice();
@@ -114,8 +162,41 @@ export function directSystem(a: Assembled): DirectSystem {
 		lu: bandWorkspace(n, kl, ku),
 		rs: new Float64Array(n),
 		x: wideVector(n),
-		y: wideVector(n)
+		y: wideVector(n),
+		route:
+			routeOverride.route && s0 !== null
+				? routeOverride.route
+				: a.ports.length
+					? chooseRoute(n, kl, ku, s0)
+					: 'band',
+		s0,
+		reduced: undefined,
+		stats: { hessenberg: 0, fallback: 0 },
+		kept: new Map()
 	};
+}
+
+/** The point by the Hessenberg route, or null when it declines (see hessenberg-route.ts). */
+function solveReduced(
+	sys: DirectSystem,
+	sr: number,
+	si: number,
+	derivative: boolean
+): DirectPoint | null {
+	if (sys.reduced === undefined)
+		sys.reduced = hessenbergRoute({ n: sys.n, g: sys.g, cap: sys.cap, b: sys.b }, sys.s0!);
+	if (!sys.reduced) return null;
+	const { x, y } = sys;
+	x.ex.fill(0);
+	y.ex.fill(0);
+	const eq = { n: sys.n, g: sys.g, cap: sys.cap, b: sys.b };
+	if (!solveByHessenberg(eq, sys.reduced, sr, si, x, derivative ? y : null)) return null;
+	let dh: Wide | null = null;
+	if (derivative) {
+		const t = wideDot(sys.out, y);
+		dh = { re: -t.re, im: -t.im, ex: t.ex };
+	}
+	return { h: wideDot(sys.out, x), dh, zin: wideDot(sys.zin, x) };
 }
 
 /** Factors G + sC; false when it is singular at this s (a pole exactly there). */
@@ -195,6 +276,40 @@ export function solveAt(
 	si: number,
 	derivative = false
 ): DirectPoint | null {
+	// The zero checks ask for the same points twice when the analysis takes its second look for
+	// zeros beside poles (analyze.ts): answers are kept per s (a derivative answer serves both),
+	// from a size where a solve costs far more than the look-up.
+	if (sys.n < KEEP_FROM) return solveFresh(sys, sr, si, derivative);
+	const key = `${sr} ${si}`;
+	const kept = sys.kept.get(key);
+	if (kept && (kept.p === null || !derivative || kept.p.dh)) return kept.p;
+	const p = solveFresh(sys, sr, si, derivative);
+	if (sys.kept.size < KEEP_AT_MOST) sys.kept.set(key, { p });
+	return p;
+}
+
+/** Answers kept per system; enough for every solve of an analysis of the dense back end. */
+const KEEP_AT_MOST = 8192;
+const KEEP_FROM = 40;
+
+function solveFresh(
+	sys: DirectSystem,
+	sr: number,
+	si: number,
+	derivative: boolean
+): DirectPoint | null {
+	// s = 0 exactly stays with the LU: a floating part makes G singular there, which only an
+	// exact zero pivot shows (the certificate cannot: a tiny change of G makes it regular).
+	if (sys.route === 'hessenberg' && (sr !== 0 || si !== 0)) {
+		const p = solveReduced(sys, sr, si, derivative);
+		if (p) {
+			sys.stats.hessenberg++;
+			routeOverride.answered++;
+			return p;
+		}
+		sys.stats.fallback++;
+		routeOverride.declined++;
+	}
 	if (!factorAt(sys, sr, si)) return null;
 	const { x, y, cap, rs } = sys;
 	solveInto(sys, x, () => load(sys, x, sys.b));

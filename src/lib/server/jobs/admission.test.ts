@@ -149,4 +149,23 @@ describe('Admission', () => {
 		await expect(a.run('x', async () => 'next')).resolves.toBe('next');
 		expect(a.stats()).toMatchObject({ running: 0, waiting: 0 });
 	});
+	it('says whether a task would start at once (the sheet page skips its first analysis otherwise)', async () => {
+		const a = make();
+		const log: string[] = [];
+		expect(a.hasFreeSlot()).toBe(true);
+		const first = task(log, 'A');
+		const second = task(log, 'B');
+		const pa = a.run('alice', first.work);
+		await flush();
+		expect(a.hasFreeSlot()).toBe(false);
+		const pb = a.run('bob', second.work);
+		first.release();
+		await pa;
+		await flush();
+		// B took the slot: still none free.
+		expect(a.hasFreeSlot()).toBe(false);
+		second.release();
+		await pb;
+		expect(a.hasFreeSlot()).toBe(true);
+	});
 });

@@ -90,6 +90,11 @@ export class Admission {
 		);
 	}
 
+	/** Would a task start at once (a slot free and nobody waiting)? */
+	hasFreeSlot(): boolean {
+		return this.running < this.limits().concurrency && this.waitingCount === 0;
+	}
+
 	/**
 	 * Would a request from `caller` be refused right now? Lets a route shed before it reads and
 	 * checks a large body: under overload the refusals must cost the server thread next to nothing.
