@@ -40,6 +40,9 @@ async function visitSheet(page: Page, url: string) {
 	await expect(page.getByRole('application', { name: /Schematic canvas/ })).toBeVisible();
 	// The design aids and data panels load after the first results.
 	await expect(page.getByRole('heading', { name: 'Measured responses' })).toBeVisible();
+	// So do the variants side by side (the demo divider has six): audited once they are there.
+	await expect(page.getByTestId('variant-figures')).toBeVisible();
+	await expect(page.getByTestId('variant-responses')).toBeVisible();
 }
 
 for (const theme of ['light', 'dark'] as const) {

@@ -117,11 +117,18 @@ const MIN_SPLIT = 1e-9;
 export function phaseDeg(
 	s: Sweep,
 	delay: (number | null)[],
-	follow: { probe?: PhaseProbe; resonances?: Resonance[] } = {}
+	follow: {
+		probe?: PhaseProbe;
+		resonances?: Resonance[];
+		/** Extra solves allowed (default PROBE_BUDGET). */
+		budget?: number;
+		/** True once the time allowed for extra solves is spent. */
+		expired?: () => boolean;
+	} = {}
 ): { phaseDeg: (number | null)[]; unresolvedAt: number | null } {
 	const out: (number | null)[] = [];
 	const resonances = follow.resonances ?? [];
-	let budget = follow.probe ? PROBE_BUDGET : 0;
+	let budget = follow.probe ? (follow.budget ?? PROBE_BUDGET) : 0;
 	let unresolvedAt: number | null = null;
 	let prev: { f: number; phase: number; delay: number | null } | null = null;
 
@@ -145,7 +152,7 @@ export function phaseDeg(
 		const sure =
 			known && !narrow && Math.abs(lin - log) < Math.PI / 4 && Math.abs(lin) < Math.PI / 4;
 		if (!sure && fb / fa - 1 > MIN_SPLIT) {
-			if (budget <= 0 || !follow.probe) return null;
+			if (budget <= 0 || !follow.probe || follow.expired?.()) return null;
 			budget--;
 			const fm = Math.sqrt(fa * fb);
 			const m = follow.probe(fm);
