@@ -40,6 +40,9 @@ async function visitSheet(page: Page, url: string) {
 	await expect(page.getByRole('application', { name: /Schematic canvas/ })).toBeVisible();
 	// The design aids and data panels load after the first results.
 	await expect(page.getByRole('heading', { name: 'Measured responses' })).toBeVisible();
+	// So do the variants side by side (the demo divider has six): audited once they are there.
+	await expect(page.getByTestId('variant-figures')).toBeVisible();
+	await expect(page.getByTestId('variant-responses')).toBeVisible();
 }
 
 for (const theme of ['light', 'dark'] as const) {
@@ -52,12 +55,14 @@ for (const theme of ['light', 'dark'] as const) {
 		await page.setViewportSize({ width: 1440, height: 1000 });
 		await context.addCookies([{ name: 'pw-theme', value: theme, url: baseURL! }]);
 
-		for (const url of ['/', '/sign-in', '/sign-up', '/forgot-password']) {
+		for (const url of ['/', '/credits', '/sign-in', '/sign-up', '/forgot-password']) {
 			await visit(page, url);
 			await audit(page, `${url} (${theme})`);
 		}
 		await visit(page, `/reset-password/${NO_TOKEN}`);
 		await audit(page, `reset password, unknown token (${theme})`);
+		await visit(page, `/sign-up/${NO_TOKEN}`);
+		await audit(page, `sign-up link, unknown token (${theme})`);
 
 		await signUpFresh(page, 'Ines Okafor');
 		const demo = demoSheets[0];
@@ -95,6 +100,7 @@ for (const theme of ['light', 'dark'] as const) {
 			`${ws}/meetings/${meetingId}/summary`,
 			'/account',
 			'/notifications',
+			'/sign-out',
 			`${sheet}/report`,
 			`${sheet}/compare?from=1&to=2`,
 			`/invitations/${NO_TOKEN}`

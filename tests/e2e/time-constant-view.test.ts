@@ -97,7 +97,14 @@ test('divider and 3-section ladder: best estimate first, ports as node pairs, fo
 	await expect(tc.getByTestId('port-name').filter({ hasText: 'Ccable + Cadc' })).toContainText(
 		'60 pF'
 	);
-	// The doublet: a 1.8 % tail and the change that closes it, linked to solve-for-a-value.
+	// The doublet: a 1.8 % tail and the change that closes it, linked to solve-for-a-value; the
+	// pole's own row names its zero too.
+	await expect(
+		page
+			.getByRole('table', { name: 'Poles' })
+			.locator('tbody tr[data-pole="0"]')
+			.getByTestId('pole-doublet')
+	).toHaveText('doublet with z1');
 	const doublets = page.getByTestId('doublets');
 	await expect(doublets).toContainText('Ctop');
 	await expect(doublets).toContainText('6.667 pF');
@@ -123,5 +130,10 @@ test('divider and 3-section ladder: best estimate first, ports as node pairs, fo
 			.locator('tbody tr[data-pole="0"]')
 			.getByTestId('estimate-method')
 	).toHaveText('root of 1 + b1·s + b2·s²');
+	// −1/b1 = −1/(6RC) against the exact −0.198/RC (closed form): 16 % off, and the footer says
+	// where to look instead.
+	await expect(page.getByRole('table', { name: 'Time constants' }).locator('tfoot')).toContainText(
+		/16 % from p1 \(the pole table shows a closer estimate\)/
+	);
 	await shoot(page, 'ladder');
 });
