@@ -87,4 +87,10 @@ test('create variants, override a value, take a part out of one position, see ta
 		{ name: '100:1', values: { R1: '9.9M' } },
 		{ name: '1000:1', absent: ['Ctrim'] }
 	]);
+
+	// The report: no limits and no specs across variants are set on this sheet, so it judges
+	// nothing and says so (no green "every spec holds" about no spec at all).
+	await page.goto(`/sheets/${id}/report`);
+	await expect(page.getByTestId('variant-spec-empty')).toBeVisible();
+	await expect(page.getByTestId('variant-spec-verdict')).toHaveCount(0);
 });

@@ -27,10 +27,10 @@ export interface Sweep {
 	zin: ({ re: number; im: number } | null)[];
 }
 
-/** One solve (and derivative solve) per frequency, kept as plain numbers. */
-export function sweep(sys: DirectSystem, f: number[], derivative: boolean, vInput: boolean): Sweep {
+/** A sweep over `f` with nothing solved yet (every point failed until filled in). */
+export function emptySweep(f: number[]): Sweep {
 	const n = f.length;
-	const out: Sweep = {
+	return {
 		f,
 		ok: new Uint8Array(n),
 		logMag: new Float64Array(n).fill(-Infinity),
@@ -39,6 +39,12 @@ export function sweep(sys: DirectSystem, f: number[], derivative: boolean, vInpu
 		qIm: new Float64Array(n).fill(NaN),
 		zin: []
 	};
+}
+
+/** One solve (and derivative solve) per frequency, kept as plain numbers. */
+export function sweep(sys: DirectSystem, f: number[], derivative: boolean, vInput: boolean): Sweep {
+	const n = f.length;
+	const out = emptySweep(f);
 	for (let i = 0; i < n; i++) {
 		const p = solveAt(sys, 0, 2 * Math.PI * f[i], derivative);
 		out.zin.push(impedance(p, vInput));
@@ -117,11 +123,18 @@ const MIN_SPLIT = 1e-9;
 export function phaseDeg(
 	s: Sweep,
 	delay: (number | null)[],
-	follow: { probe?: PhaseProbe; resonances?: Resonance[] } = {}
+	follow: {
+		probe?: PhaseProbe;
+		resonances?: Resonance[];
+		/** Extra solves allowed (default PROBE_BUDGET). */
+		budget?: number;
+		/** True once the time allowed for extra solves is spent. */
+		expired?: () => boolean;
+	} = {}
 ): { phaseDeg: (number | null)[]; unresolvedAt: number | null } {
 	const out: (number | null)[] = [];
 	const resonances = follow.resonances ?? [];
-	let budget = follow.probe ? PROBE_BUDGET : 0;
+	let budget = follow.probe ? (follow.budget ?? PROBE_BUDGET) : 0;
 	let unresolvedAt: number | null = null;
 	let prev: { f: number; phase: number; delay: number | null } | null = null;
 
@@ -145,7 +158,7 @@ export function phaseDeg(
 		const sure =
 			known && !narrow && Math.abs(lin - log) < Math.PI / 4 && Math.abs(lin) < Math.PI / 4;
 		if (!sure && fb / fa - 1 > MIN_SPLIT) {
-			if (budget <= 0 || !follow.probe) return null;
+			if (budget <= 0 || !follow.probe || follow.expired?.()) return null;
 			budget--;
 			const fm = Math.sqrt(fa * fb);
 			const m = follow.probe(fm);

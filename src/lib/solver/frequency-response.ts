@@ -96,28 +96,6 @@ export function logSpace(fMin: number, fMax: number, points: number): number[] {
 	return Array.from({ length: n }, (_, i) => 10 ** (a + ((b - a) * i) / (n - 1)));
 }
 
-/** Removes 360° jumps between neighbouring points. */
-export function unwrapDeg(ph: (number | null)[]): (number | null)[] {
-	let offset = 0;
-	let prev: number | null = null;
-	return ph.map((p) => {
-		if (p === null) return null;
-		let v = p + offset;
-		if (prev !== null) {
-			while (v - prev > 180) {
-				v -= 360;
-				offset -= 360;
-			}
-			while (v - prev < -180) {
-				v += 360;
-				offset += 360;
-			}
-		}
-		prev = v;
-		return v;
-	});
-}
-
 /**
  * Direct complex solve of the full network equations (G + jωC) x = b at each frequency: no
  * eigen-decomposition involved, so design aids and exports can trust it on any network.

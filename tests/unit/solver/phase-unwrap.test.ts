@@ -148,4 +148,69 @@ describe('unwrapped phase against outside references', () => {
 			});
 			expect(a.warnings.map((w) => w.code)).not.toContain('phase_unresolved');
 		});
+
+	test('a 300-section LC line through the sparse back end: phase and group delay against an ABCD-chain evaluation', () => {
+		// 600 reactive elements: above the dense path's size, so analyze() takes the sparse path.
+		const N = 300;
+		const L = 250e-9 / 30;
+		const C = 100e-12 / 30;
+		const els = [el('Vin', 'V', ['x', 'gnd'], 1), el('Rs', 'R', ['x', 'n0'], 50)];
+		for (let k = 1; k <= N; k++)
+			els.push(el(`L${k}`, 'L', [`n${k - 1}`, `n${k}`], L), el(`C${k}`, 'C', [`n${k}`, 'gnd'], C));
+		els.push(el('RL', 'R', [`n${N}`, 'gnd'], 50));
+		const doc = net(els, `n${N}`);
+		const a = analyze(doc, { frequency: { points: 40 }, step: false });
+		expect(a.meta.backend).toBe('sparse');
+		// 1/H by walking back from the load in plain complex arithmetic (re, im), for speed.
+		const arg = (f: number) => {
+			const w = 2 * Math.PI * f;
+			let [vr, vi] = [1, 0];
+			let [ir, ii] = [1 / 50, 0];
+			for (let k = N; k >= 1; k--) {
+				[ir, ii] = [ir - vi * w * C, ii + vr * w * C];
+				[vr, vi] = [vr - ii * w * L, vi + ir * w * L];
+				// Far above the band |1/H| passes 1e308: a positive scale leaves the argument as is.
+				const big = Math.max(Math.abs(vr), Math.abs(vi));
+				if (big > 1e100) [vr, vi, ir, ii] = [vr / big, vi / big, ir / big, ii / big];
+			}
+			return -Math.atan2(vi + ii * 50, vr + ir * 50);
+		};
+		const fr = a.frequencyResponse!;
+		// Reference phase: followed along a fine grid (500 log steps between output points),
+		// each step split until its wrapped change is under 5°.
+		const wrap = (d: number) => d - 2 * Math.PI * Math.round(d / (2 * Math.PI));
+		const change = (fa: number, fb: number, depth: number): number => {
+			const d = wrap(arg(fb) - arg(fa));
+			if (!Number.isFinite(d)) throw new Error(`reference lost at ${fa} Hz`);
+			if (Math.abs(d) < (5 * Math.PI) / 180 || depth > 40) return d;
+			const fm = Math.sqrt(fa * fb);
+			return change(fa, fm, depth + 1) + change(fm, fb, depth + 1);
+		};
+		const across = (fa: number, fb: number) => {
+			let sum = 0;
+			const m = 500;
+			for (let j = 0; j < m; j++)
+				sum += change(fa * (fb / fa) ** (j / m), fa * (fb / fa) ** ((j + 1) / m), 0);
+			return sum;
+		};
+		let phase = arg(fr.f[0]);
+		fr.f.forEach((f, k) => {
+			if (k > 0) phase += across(fr.f[k - 1], f);
+			const got = fr.phaseDeg[k];
+			if (got === null) {
+				// Only where the follower ran out of time, and then it says so.
+				expect(a.warnings.map((w) => w.code)).toContain('phase_unresolved');
+				return;
+			}
+			expect(Math.abs(got - deg(phase)), `${f.toPrecision(4)} Hz: ${got} vs ${deg(phase)}`).toBeLessThan(
+				1e-6 * Math.max(1, Math.abs(deg(phase)))
+			);
+			// Group delay: −dφ/dω by a central difference of the reference at ±1e-5 (relative).
+			const e = 1e-5;
+			const want = -wrap(arg(f * (1 + e)) - arg(f * (1 - e))) / (2 * Math.PI * f * 2 * e);
+			expect(Math.abs(fr.groupDelay[k]! - want) / Math.abs(want), `τg at ${f.toPrecision(4)} Hz`).toBeLessThan(1e-4);
+		});
+		// Most of the sweep must be followed (the line turns by about 300 × 180° up its band).
+		expect(fr.phaseDeg.filter((p) => p !== null).length).toBeGreaterThan(30);
+	});
 });

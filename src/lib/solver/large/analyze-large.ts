@@ -1,5 +1,12 @@
 import { SolverError } from '../errors';
-import { logSpace, unwrapDeg } from '../frequency-response';
+import { logSpace } from '../frequency-response';
+import {
+	emptySweep,
+	phaseDeg,
+	resonancesOf,
+	type PhaseProbe,
+	type Sweep as DirectSweep
+} from '../direct-response';
 import { impedanceFromReading } from '../input-impedance';
 import { poleEstimates } from '../pole-estimates';
 import { groupReactivePorts, withMembers } from '../reactive-ports';
@@ -145,6 +152,8 @@ export function analyzeLarge(
 	const mnaNow = () => (mna ??= sparseMna(net));
 	const orderNow = () => (order ??= luOrder(mnaNow().pattern));
 	const inputNodes = net.elements[net.input].nodes as [number, number];
+	// The size of one solve: the nodal unknowns of an RC network, else the modified nodal size.
+	const solveSize = () => (rc && !rc.floating ? rc.n : mnaNow().size);
 	const solveAt = (f: number[], onPoint?: (d: number) => void): Sweep =>
 		rc && !rc.floating
 			? sweepRC(rc, symbolicOf(rc), f, inputNodes, onPoint)
@@ -162,11 +171,40 @@ export function analyzeLarge(
 		sw = solveAt(logSpace(range.fMin, range.fMax, options.frequency?.points ?? 200), (d) =>
 			progress(0.6 + 0.2 * d, 'responses')
 		);
+		// The phase followed as on the dense path (direct-response.ts): the group delay from the
+		// derivative solve predicts each step, and a step it cannot vouch for is split with one
+		// more solve — a lumped line turns by tens of thousands of degrees over the sweep.
+		const probe: PhaseProbe = (f) => {
+			const one = solveAt([f]);
+			const q = ratioOf(one.dh[0], one.h[0]);
+			return q && Number.isFinite(q.re)
+				? { arg: Math.atan2(one.h[0].im, one.h[0].re), delay: -q.re }
+				: null;
+		};
+		const direct = asDirectSweep(sw);
+		const delay = Array.from(direct.qRe, (q, i) => (direct.ok[i] ? nullIfBad(-q) : null));
+		// Following the phase costs extra solves: up to 10 a point for lines of a few thousand
+		// unknowns, fewer as each solve gets dearer (a 100,000-element mesh's response runs as a
+		// job with a time limit), and never fewer than one a point. A count, not a clock, so the
+		// same network always gets the same answer. Past it the phase is left out above where it
+		// stopped, with a warning.
+		const unknowns = Math.max(1, solveSize());
+		const perPoint = Math.min(10, Math.max(1, Math.floor(50_000 / unknowns)));
+		const phase = phaseDeg(direct, delay, {
+			probe,
+			resonances: resonancesOf(details),
+			budget: perPoint * sw.f.length
+		});
+		if (phase.unresolvedAt !== null)
+			extra.push({
+				code: 'phase_unresolved',
+				message: `the phase could not be followed above ${phase.unresolvedAt.toPrecision(4)} Hz (it turns faster than the solves could track); it is left out there`
+			});
 		frequencyResponse = {
 			f: sw.f,
 			magnitudeDb: sw.h.map((v) => nullIfBad((20 * Math.log(Math.hypot(v.re, v.im))) / LN10)),
-			phaseDeg: unwrapDeg(sw.h.map((v) => nullIfBad((Math.atan2(v.im, v.re) * 180) / Math.PI))),
-			groupDelay: groupDelays(sw)
+			phaseDeg: phase.phaseDeg,
+			groupDelay: delay
 		};
 	}
 	const bw = sw && dcGain ? sweptBandwidth(solveAt, sw, dcGain) : null;
@@ -245,21 +283,33 @@ export function analyzeLarge(
 	};
 }
 
-/** Group delay −dφ/dω from the unwrapped phase of the sweep (central differences). */
-function groupDelays(sw: Sweep): (number | null)[] {
-	const phase = unwrapDeg(
-		sw.h
-			.map((v) => nullIfBad(Math.atan2(v.im, v.re)))
-			.map((x) => (x === null ? null : (x * 180) / Math.PI))
-	);
-	return sw.f.map((_, i) => {
-		const a = Math.max(0, i - 1);
-		const b = Math.min(sw.f.length - 1, i + 1);
-		const pa = phase[a];
-		const pb = phase[b];
-		if (pa === null || pb === null || a === b) return null;
-		return nullIfBad((-(pb - pa) * Math.PI) / 180 / (2 * Math.PI * (sw.f[b] - sw.f[a])));
-	});
+/** a / b, or null where b is 0 or either is not finite. */
+function ratioOf(
+	a: { re: number; im: number },
+	b: { re: number; im: number }
+): { re: number; im: number } | null {
+	const d = b.re * b.re + b.im * b.im;
+	if (!(d > 0) || !Number.isFinite(d)) return null;
+	return { re: (a.re * b.re + a.im * b.im) / d, im: (a.im * b.re - a.re * b.im) / d };
+}
+
+/** The large sweep in the dense path's terms (ln|H|, arg H, H′/H), for its phase follower. */
+function asDirectSweep(sw: Sweep): DirectSweep {
+	const out: DirectSweep = emptySweep(sw.f);
+	for (let i = 0; i < sw.f.length; i++) {
+		const h = sw.h[i];
+		if (!Number.isFinite(h.re) || !Number.isFinite(h.im)) continue;
+		out.ok[i] = 1;
+		if (h.re === 0 && h.im === 0) continue;
+		out.logMag[i] = Math.log(Math.hypot(h.re, h.im));
+		out.arg[i] = Math.atan2(h.im, h.re);
+		const q = ratioOf(sw.dh[i], h);
+		if (q) {
+			out.qRe[i] = q.re;
+			out.qIm[i] = q.im;
+		}
+	}
+	return out;
 }
 
 /** First −3 dB crossing of the sweep, refined by bisection in log f with direct solves. */

@@ -26,6 +26,8 @@ import { ldlNumericComplex, ldlSolveComplex, type LdlSymbolic } from '../kernels
 export interface Sweep {
 	f: number[];
 	h: { re: number; im: number }[];
+	/** dH/ds at each point, from one more solve with the same factors (no finite differences). */
+	dh: { re: number; im: number }[];
 	zin: { re: number; im: number }[];
 }
 
@@ -37,9 +39,12 @@ export function sweep(
 ): Sweep {
 	const { size: n, pattern, g, c } = mna;
 	const h: Sweep['h'] = [];
+	const dh: Sweep['dh'] = [];
 	const zin: Sweep['zin'] = [];
 	const br = new Float64Array(n);
 	const bi = new Float64Array(n);
+	const yr = new Float64Array(n);
+	const yi = new Float64Array(n);
 	for (let k = 0; k < f.length; k++) {
 		const freq = f[k];
 		if (onPoint && k % 10 === 0) onPoint(k / f.length);
@@ -54,14 +59,20 @@ export function sweep(
 		for (const [r, x] of mna.b) br[r] += x;
 		if (fac.singular) {
 			h.push({ re: NaN, im: NaN });
+			dh.push({ re: NaN, im: NaN });
 			zin.push({ re: NaN, im: NaN });
 			continue;
 		}
 		luSolveSparseComplex(fac, br, bi);
 		h.push({ re: sparseDot(mna.out, br), im: sparseDot(mna.out, bi) });
 		zin.push({ re: sparseDot(mna.zin, br), im: sparseDot(mna.zin, bi) });
+		// dx/ds = −(G + sC)⁻¹·C·x: the same factors, one more solve.
+		multiplyValues(pattern, c, br, yr);
+		multiplyValues(pattern, c, bi, yi);
+		luSolveSparseComplex(fac, yr, yi);
+		dh.push({ re: -sparseDot(mna.out, yr), im: -sparseDot(mna.out, yi) });
 	}
-	return { f, h, zin };
+	return { f, h, dh, zin };
 }
 
 export interface ReducedModel {
@@ -139,9 +150,12 @@ export function sweepRC(
 ): Sweep {
 	const n = rc.n;
 	const h: Sweep['h'] = [];
+	const dh: Sweep['dh'] = [];
 	const zin: Sweep['zin'] = [];
 	const [ip, iq] = inputNodes.map((x) => (x < 0 ? -1 : rc.unknownOf[x]));
 	const im = new Float64Array(rc.c.length);
+	const cr = new Float64Array(n);
+	const ci = new Float64Array(n);
 	for (let k = 0; k < f.length; k++) {
 		if (onPoint && k % 10 === 0) onPoint(k / f.length);
 		const w = 2 * Math.PI * f[k];
@@ -155,6 +169,16 @@ export function sweepRC(
 			re: at(vr, rc.out.plus) - at(vr, rc.out.minus) + rc.out.constant,
 			im: at(vi, rc.out.plus) - at(vi, rc.out.minus)
 		});
+		// With b(s) = rhsG + s·rhsC: dv/ds = (G + sC)⁻¹·(rhsC − C·v), the same factors.
+		multiplyValues(rc.pattern, rc.c, vr, cr);
+		multiplyValues(rc.pattern, rc.c, vi, ci);
+		const dr = Float64Array.from(cr, (x, i) => rc.rhsC[i] - x);
+		const di = Float64Array.from(ci, (x) => -x);
+		ldlSolveComplex(fac, dr, di);
+		dh.push({
+			re: at(dr, rc.out.plus) - at(dr, rc.out.minus),
+			im: at(di, rc.out.plus) - at(di, rc.out.minus)
+		});
 		if (rc.inputKind === 'V') {
 			let sr = rc.selfG;
 			let si = w * rc.selfC;
@@ -167,5 +191,5 @@ export function sweepRC(
 			zin.push({ re: sr, im: si });
 		} else zin.push({ re: at(vr, ip) - at(vr, iq), im: at(vi, ip) - at(vi, iq) });
 	}
-	return { f, h, zin };
+	return { f, h, dh, zin };
 }
