@@ -11,6 +11,11 @@ describe('gainText', () => {
 		expect(gainText(-2, 'V/V')).toBe('−2 V/V (6.02 dB)');
 		expect(gainText(1000, 'V/A')).toBe('1000 V/A (60.00 dB)');
 	});
+	it('a gain of one within round-off is 0.00 dB, not −0.00 dB', () => {
+		expect(gainText(1 - 1e-12)).toBe('1 V/V (0.00 dB)');
+		expect(gainText(0.9999)).toBe('0.9999 V/V (0.00 dB)');
+		expect(gainText(0.999)).toBe('0.999 V/V (−0.01 dB)');
+	});
 	it('reads round-off of zero as ≈ 0 without a dB, and a missing gain as a dash', () => {
 		expect(gainText(3e-17)).toBe('≈ 0 V/V');
 		expect(gainText(null)).toBe('—');

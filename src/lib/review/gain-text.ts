@@ -9,7 +9,11 @@ type Doc = { input?: string | null; elements: { id: string; type: string }[] };
 export const gainUnit = (doc: Doc): 'V/V' | 'V/A' =>
 	doc.elements.find((e) => e.id === doc.input)?.type === 'I' ? 'V/A' : 'V/V';
 
-const decibels = (v: number) => (20 * Math.log10(Math.abs(v))).toFixed(2).replace(/^-/, '−');
+/** 20·log10|v| to 0.01 dB; a gain of 1 within round-off reads "0.00 dB", never "−0.00 dB". */
+export function decibels(v: number): string {
+	const db = 20 * Math.log10(Math.abs(v));
+	return (Math.abs(db) < 0.005 ? 0 : db).toFixed(2).replace(/^-/, '−');
+}
 
 /** "0.1 V/V (−20.00 dB)"; "≈ 0 V/V" below 1e-9 (round-off of an exact zero, no dB of it). */
 export function gainText(v: number | null | undefined, unit = 'V/V', digits = 4): string {
