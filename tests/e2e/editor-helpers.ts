@@ -168,3 +168,16 @@ export function dividerPolesHz(
 	const s2 = c / (a * s1);
 	return [s2, s1].map((s) => Math.abs(s) / (2 * Math.PI)).sort((x, y) => x - y);
 }
+
+/** A picture of the drawing alone (toolbar, parts, canvas, properties; not the results below). */
+export async function drawingShot(page: Page, path: string) {
+	await page.evaluate(() => document.querySelector('#drawing')?.scrollIntoView({ block: 'start' }));
+	const d = (await page.locator('#drawing').boundingBox())!;
+	const c = (await page
+		.getByRole('application', { name: 'Schematic canvas', exact: true })
+		.boundingBox())!;
+	await page.screenshot({
+		path,
+		clip: { x: d.x, y: d.y, width: d.width, height: c.y + c.height - d.y + 2 }
+	});
+}

@@ -7,6 +7,7 @@ import { call } from './support/handlers';
 import { matrixWorld, network } from './support/fixtures';
 import { getRevision, saveRevision } from '../../src/lib/server/db/sheets';
 import { checkpointsOf, nameRevisionAs } from '../../src/lib/server/sharing/sheet-actions';
+import * as checkpoint from '../../src/routes/api/sheets/[id=uuid]/revisions/[n=revision]/checkpoint/+server';
 import * as comments from '../../src/routes/api/sheets/[id=uuid]/comments/+server';
 
 useDatabase();
@@ -61,5 +62,33 @@ describe('revision checkpoints', () => {
 		await expect(
 			nameRevisionAs({ kind: 'user', id: w.viewer.id }, sheet.id, 4, 'mine', null)
 		).rejects.toThrow();
+	});
+
+	it('the editor marks a checkpoint (Ctrl+S): the next saves start a new one; a viewer may not', async () => {
+		const w = await matrixWorld();
+		const { sheet } = await w.sheet('Explicit checkpoint RC'); // revision 1
+		await save(w.owner.id, sheet.id, network('9.1M')); // 2
+		await save(w.owner.id, sheet.id, network('9.2M')); // 3
+		const mark = (user: typeof w.owner, n: number, body: object) =>
+			call(checkpoint.POST, { user, params: { id: sheet.id, n: String(n) }, method: 'POST', body });
+		const r = await mark(w.owner, 3, {});
+		expect(r.status).toBe(200);
+		expect(r.body.checkpoint).toEqual({ number: 3, name: null, message: null });
+		await save(w.owner.id, sheet.id, network('9.3M')); // 4
+		await save(w.owner.id, sheet.id, network('9.4M')); // 5
+		expect((await checkpointsOf(sheet.id)).map((cp) => [cp.first, cp.number])).toEqual([
+			[4, 5],
+			[1, 3]
+		]);
+		// With words: the name and message are kept with the mark.
+		expect((await mark(w.owner, 5, { name: 'bench 2', message: 'cable 1.2 m' })).status).toBe(200);
+		expect((await checkpointsOf(sheet.id))[0]).toMatchObject({
+			number: 5,
+			name: 'bench 2',
+			message: 'cable 1.2 m'
+		});
+		expect((await mark(w.viewer, 5, {})).status).toBe(403);
+		expect((await mark(w.owner, 9, {})).status).toBe(404);
+		expect((await mark(w.owner, 5, { name: 'x'.repeat(81) })).status).toBe(400);
 	});
 });

@@ -27,10 +27,10 @@ export interface Sweep {
 	zin: ({ re: number; im: number } | null)[];
 }
 
-/** One solve (and derivative solve) per frequency, kept as plain numbers. */
-export function sweep(sys: DirectSystem, f: number[], derivative: boolean, vInput: boolean): Sweep {
+/** A sweep over `f` with nothing solved yet (every point failed until filled in). */
+export function emptySweep(f: number[]): Sweep {
 	const n = f.length;
-	const out: Sweep = {
+	return {
 		f,
 		ok: new Uint8Array(n),
 		logMag: new Float64Array(n).fill(-Infinity),
@@ -39,6 +39,12 @@ export function sweep(sys: DirectSystem, f: number[], derivative: boolean, vInpu
 		qIm: new Float64Array(n).fill(NaN),
 		zin: []
 	};
+}
+
+/** One solve (and derivative solve) per frequency, kept as plain numbers. */
+export function sweep(sys: DirectSystem, f: number[], derivative: boolean, vInput: boolean): Sweep {
+	const n = f.length;
+	const out = emptySweep(f);
 	for (let i = 0; i < n; i++) {
 		const p = solveAt(sys, 0, 2 * Math.PI * f[i], derivative);
 		out.zin.push(impedance(p, vInput));

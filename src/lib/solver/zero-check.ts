@@ -88,8 +88,10 @@ export function zeroBesidePole(
 	const z0 = { re: p.re - qr, im: p.im === 0 ? 0 : p.im - qi };
 	// An exact cancellation leaves z on p, where G + sC is singular: nothing to polish there.
 	if (gap < 1e-9 * mag) return z0;
+	// Unconfirmed, z0 is no zero: returning it reported a "recovered" zero at the end of a plain
+	// RC ladder (whose numerator is a constant) and zeros 0.1–1 % off in dense spectra.
 	const z = confirmZero(sys, z0.re, z0.im, PAIR);
-	return z && Math.hypot(z.re - p.re, z.im - p.im) < PAIR * mag ? z : z0;
+	return z && Math.hypot(z.re - p.re, z.im - p.im) < PAIR * mag ? z : null;
 }
 
 /**
@@ -118,9 +120,13 @@ export function checkedZeros(
 		);
 	for (const c of candidates) {
 		if (c.im < 0 || (c.re === 0 && c.im === 0)) continue;
-		// Beside a pole the solve is nearly singular at the zero: the residue test decides there.
+		// Beside a pole the solve is nearly singular at the zero: where Newton from the candidate
+		// does not confirm it, the residue test decides (two more solves; in a dense spectrum
+		// every candidate lies within 1 % of some pole, so Newton is tried first).
 		const p = nearPole(c);
-		const z = (p && zeroBesidePole(sys, p)) || confirmZero(sys, c.re, c.im);
+		const z = p
+			? (confirmZero(sys, c.re, c.im) ?? zeroBesidePole(sys, p))
+			: confirmZero(sys, c.re, c.im);
 		if (z && !(z.re === 0 && z.im === 0)) push(z);
 		else if (!z) dropped += c.im > 0 ? 2 : 1;
 	}

@@ -5,6 +5,7 @@
 import type { Cluster } from '$lib/design/clusters';
 import type { Statistics } from '$lib/design/statistics';
 import { withUnit } from './units';
+import { decibels } from '$lib/review/gain-text';
 
 const plain = (v: number, digits = 4) => {
 	if (v === 0) return '0';
@@ -18,7 +19,7 @@ export function figureValue(v: number | null | undefined, unit: string, digits =
 	if (v === null || v === undefined || Number.isNaN(v)) return '—';
 	if (unit === '')
 		return Math.abs(v) > 0
-			? `${plain(v, digits)} (${(20 * Math.log10(Math.abs(v))).toFixed(2).replace(/^-/, '−')} dB)`
+			? `${plain(v, digits)} (${decibels(v)} dB)`
 			: plain(v, digits);
 	if (unit === '%') return `${plain(v, 3)} %`;
 	return withUnit(v, unit, digits);

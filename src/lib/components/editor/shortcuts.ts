@@ -6,6 +6,10 @@ export const SHORTCUTS: { keys: string; what: string }[] = [
 	{ keys: 'Ctrl+C / Ctrl+X / Ctrl+V', what: 'Copy / cut / paste' },
 	{ keys: 'Ctrl+D', what: 'Duplicate the selection' },
 	{ keys: 'Ctrl+A', what: 'Select everything' },
+	{
+		keys: 'Ctrl+S',
+		what: 'Mark a checkpoint in the history (saves first; name and message optional)'
+	},
 	{ keys: 'R', what: 'Turn the selection a quarter turn clockwise' },
 	{ keys: 'M', what: 'Mirror the selection' },
 	{

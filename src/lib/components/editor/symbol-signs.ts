@@ -22,7 +22,6 @@ export const SIGNS: Partial<Record<ItemKind, { x: number; y: number; text: strin
 	CCVS: [{ x: 30, y: 10, text: '+' }],
 	PROBE: [
 		{ x: 8, y: 14, text: '+' },
-		{ x: 8, y: 54, text: '−' },
-		{ x: 33, y: 40, text: 'OUT' }
+		{ x: 8, y: 54, text: '−' }
 	]
 };

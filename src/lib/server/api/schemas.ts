@@ -27,6 +27,11 @@ export const saveRevisionBody = z.object({
 	message: z.string().trim().max(200, 'message is too long (at most 200 characters)').optional()
 });
 export const restoreRevisionBody = z.object({ baseRevision: z.number().int().min(1).optional() });
+/** Marking a checkpoint: an optional short name and message (as naming a revision in the history). */
+export const checkpointBody = z.object({
+	name: z.string().trim().max(80, 'name: at most 80 characters').optional(),
+	message: z.string().trim().max(200, 'message: at most 200 characters').optional()
+});
 export const shareBody = z.object({ email, role: sheetRole });
 export const grantRoleBody = z.object({ role: sheetRole });
 export const linkBody = z.object({ label: z.string().trim().max(80, 'label is too long (at most 80 characters)').optional() });

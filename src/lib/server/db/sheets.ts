@@ -112,14 +112,29 @@ export async function nameRevision(sheetId: string, number: number, name: string
 	return true;
 }
 
+/**
+ * Mark a revision as a checkpoint (a person's explicit save): it ends its group of saves. A name
+ * or a message given with it is kept (an existing message is never overwritten).
+ */
+export async function markCheckpoint(sheetId: string, number: number, name: string | null, message: string | null): Promise<boolean> {
+	const { SheetRevision } = models();
+	const row = await SheetRevision.findOne({ where: { sheetId, number } });
+	if (!row) return false;
+	row.checkpoint = true;
+	if (name) row.name = name;
+	if (message && !row.message) row.message = message;
+	await row.save({ fields: ['checkpoint', 'name', 'message'] });
+	return true;
+}
+
 /** Every revision with its document, oldest first, for grouping the history into checkpoints. */
 export async function revisionsForHistory(sheetId: string) {
 	const [rows] = await db().query(
-		`SELECT r.number, r.author_id AS "authorId", u.name AS "authorName", r.created_at AS "createdAt", r.message, r.name, r.document
+		`SELECT r.number, r.author_id AS "authorId", u.name AS "authorName", r.created_at AS "createdAt", r.message, r.name, r.checkpoint, r.document
 		   FROM sheet_revisions r LEFT JOIN users u ON u.id = r.author_id WHERE r.sheet_id = :sheetId ORDER BY r.number`,
 		{ replacements: { sheetId } }
 	);
-	return rows as { number: number; authorId: string | null; authorName: string | null; createdAt: Date; message: string | null; name: string | null; document: unknown }[];
+	return rows as { number: number; authorId: string | null; authorName: string | null; createdAt: Date; message: string | null; name: string | null; checkpoint: boolean; document: unknown }[];
 }
 
 /** Which revisions something points at: comments, review requests (and their sign-offs), meeting items. */

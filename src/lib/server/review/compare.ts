@@ -9,6 +9,7 @@ import { outputSignature, sameValue, wiring } from './wiring';
 import type { Actor } from '../access';
 import { figureChange, zeroFloor, type FigureChange } from '../../review/figure-change';
 import { compareVariants } from './variant-compare';
+import { gainUnit } from '../../review/gain-text';
 
 export interface FieldChange {
 	field: 'type' | 'value' | 'nodes' | 'control';
@@ -99,9 +100,6 @@ export interface Figure {
 	change: FigureChange;
 }
 
-/** The transfer function's unit: the output is a voltage; the input a voltage or a current. */
-export const gainUnit = (doc: NetworkDocument) =>
-	doc.elements.find((e) => e.id === doc.input)?.type === 'I' ? 'V/A' : 'V/V';
 
 export function figureChanges(a: Analysis | null, b: Analysis | null, gain = 'V/V'): Figure[] {
 	const rows: [string, string, string, (x: Analysis) => number | null][] = [

@@ -106,4 +106,15 @@ describe('groupCheckpoints', () => {
 		expect(cps.find((c) => c.number === 3)).toMatchObject({ first: 1, name: 'first ladder' });
 		expect(cps.find((c) => c.first === 6)).toMatchObject({ number: 6, authorName: 'Aino' });
 	});
+
+	it('a revision marked from the editor (Ctrl+S) ends its checkpoint without a name or message', () => {
+		const marked = saves.map((s) => (s.number === 5 ? { ...s, checkpoint: true } : s));
+		const cps = groupCheckpoints(marked, new Map());
+		expect(cps.map((c) => [c.first, c.number])).toEqual([
+			[10, 17],
+			[6, 9],
+			[1, 5]
+		]);
+		expect(cps[2]).toMatchObject({ name: null, message: null });
+	});
 });

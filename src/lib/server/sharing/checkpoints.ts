@@ -1,9 +1,10 @@
 // Revision checkpoints. Autosave keeps every save as a revision (nothing is ever lost), but a
 // history of 17 "name · time" rows for one ladder says nothing. The history groups saves into
 // checkpoints: a run of saves by one person with no pause longer than PAUSE_MS between them.
-// A checkpoint ends at an explicit one — a revision that was named, saved with a message — and
-// at every revision something points at (a comment, a review request or sign-off, a meeting
-// item), so those are never folded into a group: each stays the end of its own checkpoint.
+// A checkpoint ends at an explicit one — a revision that was named, saved with a message, or
+// marked from the editor (Ctrl+S) — and at every revision something points at (a comment, a
+// review request or sign-off, a meeting item), so those are never folded into a group: each
+// stays the end of its own checkpoint.
 // Each checkpoint says what changed from the one before it: "Ctop 6.8p → 6.67p; added R4".
 // Pure: the data layer loads revisions and references; this only groups and words them.
 import type { NetworkDocument } from '../../network/schema';
@@ -18,6 +19,8 @@ export interface RevisionForHistory {
 	createdAt: Date | string;
 	message: string | null;
 	name: string | null;
+	/** Marked as a checkpoint by a person (the editor's explicit save). */
+	checkpoint?: boolean;
 	document: NetworkDocument;
 }
 
@@ -56,7 +59,8 @@ export function groupCheckpoints(
 	// Revision 1's automatic "Created" (db/sheets.ts) is not a message anyone wrote: the first
 	// edits after creating a sheet belong with it.
 	const written = (r: RevisionForHistory) => !!r.message && !(r.number === 1 && r.message === 'Created');
-	const ends = (r: RevisionForHistory) => !!r.name || written(r) || references.has(r.number);
+	const ends = (r: RevisionForHistory) =>
+		!!r.checkpoint || !!r.name || written(r) || references.has(r.number);
 	const groups: RevisionForHistory[][] = [];
 	for (const r of asc) {
 		const g = groups.at(-1);

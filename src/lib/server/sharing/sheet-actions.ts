@@ -14,6 +14,7 @@ import {
 	saveRevision,
 	trashSheet,
 	nameRevision,
+	markCheckpoint,
 	revisionsForHistory,
 	revisionReferences,
 	type SheetListQuery
@@ -92,6 +93,12 @@ export async function restoreRevisionAs(actor: UserActor, sheetId: string, numbe
 export async function nameRevisionAs(actor: UserActor, sheetId: string, number: number, name: string | null, message: string | null) {
 	await authorizeSheet(actor, sheetId, 'save');
 	if (!(await nameRevision(sheetId, number, name, message))) throw new AccessDenied(404, `Revision ${number} does not exist.`);
+}
+
+/** Mark the revision as a checkpoint (the editor's explicit save), with an optional name and message. */
+export async function markCheckpointAs(actor: UserActor, sheetId: string, number: number, name: string | null, message: string | null) {
+	await authorizeSheet(actor, sheetId, 'save');
+	if (!(await markCheckpoint(sheetId, number, name, message))) throw new AccessDenied(404, `Revision ${number} does not exist.`);
 }
 
 /** The history grouped into checkpoints (checkpoints.ts), newest first. */

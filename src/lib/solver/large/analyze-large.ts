@@ -1,6 +1,12 @@
 import { SolverError } from '../errors';
 import { logSpace } from '../frequency-response';
-import { phaseDeg, resonancesOf, type PhaseProbe, type Sweep as DirectSweep } from '../direct-response';
+import {
+	emptySweep,
+	phaseDeg,
+	resonancesOf,
+	type PhaseProbe,
+	type Sweep as DirectSweep
+} from '../direct-response';
 import { impedanceFromReading } from '../input-impedance';
 import { poleEstimates } from '../pole-estimates';
 import { groupReactivePorts, withMembers } from '../reactive-ports';
@@ -289,17 +295,8 @@ function ratioOf(
 
 /** The large sweep in the dense path's terms (ln|H|, arg H, H′/H), for its phase follower. */
 function asDirectSweep(sw: Sweep): DirectSweep {
-	const n = sw.f.length;
-	const out: DirectSweep = {
-		f: sw.f,
-		ok: new Uint8Array(n),
-		logMag: new Float64Array(n).fill(-Infinity),
-		arg: new Float64Array(n),
-		qRe: new Float64Array(n).fill(NaN),
-		qIm: new Float64Array(n).fill(NaN),
-		zin: []
-	};
-	for (let i = 0; i < n; i++) {
+	const out: DirectSweep = emptySweep(sw.f);
+	for (let i = 0; i < sw.f.length; i++) {
 		const h = sw.h[i];
 		if (!Number.isFinite(h.re) || !Number.isFinite(h.im)) continue;
 		out.ok[i] = 1;

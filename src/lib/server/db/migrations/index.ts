@@ -11,6 +11,7 @@ import * as m0007 from './0007-job-recovery';
 import * as m0008 from './0008-sign-up-requests';
 import * as m0009 from './0009-job-parts';
 import * as m0010 from './0010-revision-names';
+import * as m0011 from './0011-explicit-checkpoints';
 
 export interface Migration {
 	name: string;
@@ -28,5 +29,6 @@ export const migrations: Migration[] = [
 	{ name: '0007-job-recovery', ...m0007 },
 	{ name: '0008-sign-up-requests', ...m0008 },
 	{ name: '0009-job-parts', ...m0009 },
-	{ name: '0010-revision-names', ...m0010 }
+	{ name: '0010-revision-names', ...m0010 },
+	{ name: '0011-explicit-checkpoints', ...m0011 }
 ];

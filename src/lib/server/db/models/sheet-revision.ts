@@ -11,6 +11,8 @@ export class SheetRevision extends Model<InferAttributes<SheetRevision>, InferCr
 	declare message: string | null;
 	/** A person's label for the revision (a checkpoint); migration 0010. */
 	declare name: CreationOptional<string | null>;
+	/** Marked as a checkpoint by a person (Ctrl+S in the editor); migration 0011. */
+	declare checkpoint: CreationOptional<boolean>;
 	declare createdAt: CreationOptional<Date>;
 }
 
@@ -25,6 +27,7 @@ export function initSheetRevision(sequelize: Sequelize) {
 			layout: { type: DataTypes.JSONB, allowNull: true },
 			message: { type: DataTypes.STRING(200), allowNull: true },
 			name: { type: DataTypes.STRING(80), allowNull: true },
+			checkpoint: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
 			createdAt: DataTypes.DATE
 		},
 		{ sequelize, tableName: 'sheet_revisions', updatedAt: false }
