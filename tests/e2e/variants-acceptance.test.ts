@@ -38,6 +38,8 @@ test('six variants side by side, specs across them, compensation solved per posi
 	// As seeded the tops are off (6.8 p, 6.2 p, 5.6 p): 5.6–6.1 pF across the positions.
 	await expect(cinRow).toContainText('does not hold');
 	await expect(cross.locator('tr', { hasText: 'Attenuation' }).first()).toContainText('holds');
+	// The long lists of values wrap: the outcome column is on screen, not in a scroll box.
+	expect(await cross.evaluate((t) => t.scrollWidth <= t.parentElement!.clientWidth)).toBe(true);
 
 	// Solve Ctop for a flat response in every range position and write each into its position.
 	const aids = page.getByRole('region', { name: 'Design aids' });
