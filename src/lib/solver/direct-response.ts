@@ -91,16 +91,26 @@ export function phaseProbe(sys: DirectSystem): PhaseProbe {
 export interface Resonance {
 	f: number;
 	width: number;
+	kind: 'pole' | 'zero';
 }
 
-export function resonancesOf(...lists: { re: number; im: number }[][]): Resonance[] {
+export function resonancesOf(
+	poles: { re: number; im: number }[],
+	zeros: { re: number; im: number }[] = []
+): Resonance[] {
 	const out: Resonance[] = [];
-	for (const list of lists)
+	for (const [kind, list] of [
+		['pole', poles],
+		['zero', zeros]
+	] as const)
 		for (const r of list)
 			if (r.im > 0 && Number.isFinite(r.im))
-				out.push({ f: r.im / (2 * Math.PI), width: Math.abs(r.re) / r.im });
+				out.push({ f: r.im / (2 * Math.PI), width: Math.abs(r.re) / r.im, kind });
 	return out;
 }
+
+/** A pole or zero this close to the jω axis (|Re|/|Im|) is on it: a lossless notch or peak. */
+const ON_AXIS = 1e-9;
 
 /** Extra solves one phase may spend on following the phase between grid points. */
 const PROBE_BUDGET = 4000;
@@ -152,9 +162,15 @@ export function phaseDeg(
 		const known = da !== null && db !== null;
 		const lin = known ? -((da + db) / 2) * (wb - wa) : 0;
 		const log = known ? -((wa * da + wb * db) / 2) * Math.log(wb / wa) : 0;
-		const narrow = resonances.some(
-			(r) => r.f > fa && r.f < fb && r.width < Math.log(fb / fa)
+		const inside = resonances.filter((r) => r.f > fa && r.f < fb);
+		// A pair on the jω axis makes H pass through 0 (a zero) or ∞ (a pole): the phase jumps
+		// there by 180°, up for a zero and down for a pole — the limit of the same part with the
+		// smallest loss (its root just left of the axis). The delays at the ends do not see it.
+		const jump = inside.reduce(
+			(sum, r) => (r.width < ON_AXIS ? sum + (r.kind === 'zero' ? Math.PI : -Math.PI) : sum),
+			0
 		);
+		const narrow = inside.some((r) => r.width >= ON_AXIS && r.width < Math.log(fb / fa));
 		const sure =
 			known && !narrow && Math.abs(lin - log) < Math.PI / 4 && Math.abs(lin) < Math.PI / 4;
 		if (!sure && fb / fa - 1 > MIN_SPLIT) {
@@ -167,7 +183,7 @@ export function phaseDeg(
 				return pm === null ? null : carry(fm, pm, m.delay, fb, rawB, db);
 			}
 		}
-		const target = pa + (lin + log) / 2;
+		const target = pa + (lin + log) / 2 + jump;
 		return rawB + 2 * Math.PI * Math.round((target - rawB) / (2 * Math.PI));
 	};
 

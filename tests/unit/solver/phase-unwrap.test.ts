@@ -213,4 +213,30 @@ describe('unwrapped phase against outside references', () => {
 		// Most of the sweep must be followed (the line turns by about 300 × 180° up its band).
 		expect(fr.phaseDeg.filter((p) => p !== null).length).toBeGreaterThan(30);
 	});
+
+	for (const points of [7, 200])
+		test(`a lossless notch (series L–C to ground), ${points} points: the phase turns up by 180° at the notch, as its lossy limit does`, () => {
+			// H = (s²LC + 1)/(s²LC + sRC + 1): a zero pair on the jω axis at ω0 = 1/√(LC). A zero
+			// with the least loss sits just left of the axis and lifts the phase by 180° as ω
+			// passes it, so φ = (ω > ω0 ? 180° : 0°) − atan2(ωRC, 1 − ω²LC) (textbook).
+			const [R, L, C] = [50, 1e-6, 1e-9];
+			const w0 = 1 / Math.sqrt(L * C);
+			const doc = net(
+				[
+					el('Vin', 'V', ['in', 'gnd'], 1),
+					el('R1', 'R', ['in', 'out'], R),
+					el('L1', 'L', ['out', 'm'], L),
+					el('C1', 'C', ['m', 'gnd'], C)
+				],
+				'out'
+			);
+			const a = analyze(doc, { frequency: { points }, step: false });
+			const fr = a.frequencyResponse!;
+			fr.f.forEach((f, k) => {
+				const w = 2 * Math.PI * f;
+				if (Math.abs(w / w0 - 1) < 1e-9) return; // on the notch itself H = 0: no phase
+				const want = (w > w0 ? 180 : 0) - deg(Math.atan2(w * R * C, 1 - w * w * L * C));
+				expect(Math.abs(fr.phaseDeg[k]! - want), `${f} Hz: ${fr.phaseDeg[k]} vs ${want}`).toBeLessThan(1e-6);
+			});
+		});
 });
