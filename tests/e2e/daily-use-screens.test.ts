@@ -9,7 +9,7 @@ import path from 'node:path';
 import { expect, test, type Browser, type Page } from '@playwright/test';
 import { artifact } from './artifacts';
 import { signInAs } from './exchange-support';
-import { drawingShot, node, openSheet, setValue } from './editor-helpers';
+import { analysis, drawingShot, node, openSheet, setValue } from './editor-helpers';
 
 const THEMES = ['light', 'dark'] as const;
 
@@ -188,6 +188,8 @@ test('a tolerance run without limits, the report, a negative value in the editor
 	// A negative resistor is accepted but flagged on the symbol and in the panel.
 	await setValue(page, 'Rsrc', '-50');
 	await expect(node(page, 'Rsrc').getByTestId('value-warning')).toContainText('negative');
+	// −50 Ω puts a pole in the right half-plane, and the status line says so.
+	await expect(analysis(page).getByRole('status').first()).toContainText('right half-plane');
 	for (const t of THEMES) {
 		await theme(page, t);
 		await drawingShot(page, `docs/images/editor-input-${t}.png`);
