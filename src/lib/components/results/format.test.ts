@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { estimateMethod, formulaLine, pct } from './format';
+import { estimateMethod, formulaLine, pct, signedPct } from './format';
 
 describe('percentages in the result panels', () => {
 	it('reads round-off as below the last shown digit, not in exponent notation', () => {
@@ -43,5 +43,14 @@ describe('how a resistance seen and an estimate are told', () => {
 		expect(e('ratio', 'b2/b3')).toBe('coefficient ratio b2/b3');
 		expect(e('two-pole')).toBe('root of 1 + b1·s + b2·s²');
 		expect(e('sequential', 'port C1', 'C1')).toBe('sequential, port C1');
+	});
+});
+
+describe('signedPct', () => {
+	it('signs a doublet’s separation and tail, and leaves an exact 0 unsigned', () => {
+		expect(signedPct(0.018)).toBe('+1.8 %');
+		expect(signedPct(-0.0196)).toBe('−1.96 %');
+		// A perfectly compensated divider: the pair cancels, no "−0 %".
+		expect(signedPct(0)).toBe('0 %');
 	});
 });

@@ -22,6 +22,10 @@ export const pct = (v: number | null | undefined, digits = 2) =>
 					? `${Math.round(v * 100)} %`
 					: `${Number((v * 100).toPrecision(digits))} %`;
 
+/** A signed fraction as a percentage ("+1.8 %", "−1.96 %"); an exact 0 has no sign ("0 %"). */
+export const signedPct = (v: number, digits = 3) =>
+	`${v > 0 ? '+' : v < 0 ? '−' : ''}${pct(Math.abs(v), digits)}`;
+
 /** A complex frequency in rad/s as "−1.11 k ± j 2.2 M". */
 export function sValue(re: number, im: number): string {
 	const r = formatEngineering(re, '', 5);
