@@ -112,6 +112,25 @@ export function dcPorts(net: ResolvedNetwork, modeOf: (k: number) => ReactiveMod
 		a.g[i * a.size + i] += gScale || 1;
 	}
 
+	// A voltage port that is a bridge of everything that can carry current at DC (every branch
+	// but open reactive elements and zeroed current sources; a controlled source's output counts,
+	// to be safe) has no return path: driven, it carries exactly no current, so its own reading
+	// is 0 — resistance infinite, τ = 0 — not the round-off a solve leaves (an inductor read
+	// −1.4e17 Ω and τ = −3.6e-23 s on the dense path, 0 on the sparse one).
+	const paths: [number, number][] = [];
+	const pathOf = new Map<number, number>();
+	els.forEach((e, k) => {
+		if (e.type === 'I') return;
+		if (e.type === 'C' || e.type === 'L') {
+			const m = mode(k);
+			if (m !== 'short' && m !== 'vport') return;
+			if (m === 'vport') pathOf.set(k, paths.length);
+		}
+		paths.push(e.type === 'OPAMP' ? [e.nodes[2], -1] : [e.nodes[0], e.nodes[1]]);
+	});
+	const pathOnLoop = edgesOnLoops(n, paths);
+	const noReturn = (k: number) => pathOf.has(k) && !pathOnLoop[pathOf.get(k)!];
+
 	const full = net.reactive.filter((k) => modeOf(k) === 'iport' || modeOf(k) === 'vport');
 	const present = a.ports.map((p) => p.element);
 	const model = portModelFrom(a, 0);
@@ -153,6 +172,7 @@ export function dcPorts(net: ResolvedNetwork, modeOf: (k: number) => ReactiveMod
 			const pj = where[j];
 			if (pj >= 0) out.H[i * m + j] = model.H[pi * model.m + pj];
 		}
+		if (noReturn(k)) out.H[i * m + i] = 0;
 	}
 	return out;
 }
