@@ -18,6 +18,7 @@ import {
 	denseMesh as mesh,
 	type DenseDoc as Doc
 } from './lib/dense-networks';
+import { genericDenseRoute } from './lib/generic-dense-route';
 
 function median(xs: number[]): number {
 	const s = xs.slice().sort((a, b) => a - b);
@@ -252,6 +253,39 @@ for (const r of response300)
 	console.log(
 		`${r.family.padEnd(8)}${pad(fmt(r.medianMs), 10)} ms median${pad(fmt(r.cpuMs), 8)} cpu`
 	);
+/**
+ * Issue 15's dense target: the full analysis of the 300-capacitor mesh within 2× of the generic
+ * dense route (scripts/lib/generic-dense-route.ts: ml-matrix LU and nonsymmetric eigenvalues,
+ * one solve per capacitor), timed in this run, alternating the two so both see the same load;
+ * CPU medians of 7 runs each after one warm-up. The route's poles are compared with ours so the
+ * yardstick is known to compute the same thing.
+ */
+const versus = (() => {
+	const doc = mesh(300);
+	const ours = analyze(doc);
+	const generic = genericDenseRoute(doc);
+	const key = (p: { re: number; im: number }) => Math.hypot(p.re, p.im);
+	const a = ours.poles.map(key).sort((x, y) => x - y);
+	const b = generic.poles.map(key).sort((x, y) => x - y);
+	const worst =
+		a.length === b.length ? Math.max(...a.map((x, i) => Math.abs(x - b[i]) / x)) : Infinity;
+	const full: number[] = [];
+	const route: number[] = [];
+	for (let k = 0; k < 7; k++) {
+		full.push(...timeBoth(() => analyze(doc), 1).cpu);
+		route.push(...timeBoth(() => genericDenseRoute(doc), 1).cpu);
+	}
+	return {
+		fullCpuMs: median(full),
+		routeCpuMs: median(route),
+		ratio: median(full) / median(route),
+		poles: [a.length, b.length],
+		worstPoleDeviation: worst
+	};
+})();
+console.log(
+	`\n300-capacitor mesh: full analysis ${fmt(versus.fullCpuMs)} ms CPU, generic dense route (ml-matrix) ${fmt(versus.routeCpuMs)} ms CPU, ratio ${versus.ratio.toFixed(2)} (target ≤ 2: ${versus.ratio <= 2 ? 'met' : 'MISSED'}); ${versus.poles[0]} / ${versus.poles[1]} poles, largest relative difference ${versus.worstPoleDeviation.toExponential(1)}`
+);
 const tResp = Math.max(...response300.map((r) => r.medianMs));
 const t50 = Math.max(...fifty.map((f) => f.medianMs));
 const t50caps = rows.find((r) => r.family === 'ladder' && r.n === 50)!.medianMs ?? NaN;
@@ -280,6 +314,7 @@ writeFileSync(
 			analysis: rows,
 			exactly50Elements: fifty,
 			response300,
+			versus,
 			sweep
 		},
 		null,
