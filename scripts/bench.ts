@@ -257,8 +257,10 @@ for (const r of response300)
  * Issue 15's dense target: the full analysis of the 300-capacitor mesh within 2× of the generic
  * dense route (scripts/lib/generic-dense-route.ts: ml-matrix LU and nonsymmetric eigenvalues,
  * one solve per capacitor), timed in this run, alternating the two so both see the same load;
- * CPU medians of 7 runs each after one warm-up. The route's poles are compared with ours so the
- * yardstick is known to compute the same thing.
+ * medians of 9 runs each after 5 warm-ups of each (the analysis runs in a long-lived worker:
+ * the optimized code's figure is the one that matters; before V8 has compiled it, process CPU
+ * also counts the compiler's threads). Wall and CPU are both kept. The route's poles are
+ * compared with ours so the yardstick is known to compute the same thing.
  */
 const versus = (() => {
 	const doc = mesh(300);
@@ -269,22 +271,33 @@ const versus = (() => {
 	const b = generic.poles.map(key).sort((x, y) => x - y);
 	const worst =
 		a.length === b.length ? Math.max(...a.map((x, i) => Math.abs(x - b[i]) / x)) : Infinity;
-	const full: number[] = [];
-	const route: number[] = [];
-	for (let k = 0; k < 7; k++) {
-		full.push(...timeBoth(() => analyze(doc), 1).cpu);
-		route.push(...timeBoth(() => genericDenseRoute(doc), 1).cpu);
+	for (let w = 0; w < 5; w++) {
+		analyze(doc);
+		genericDenseRoute(doc);
+	}
+	const full = { wall: [] as number[], cpu: [] as number[] };
+	const route = { wall: [] as number[], cpu: [] as number[] };
+	for (let k = 0; k < 9; k++) {
+		const f = timeBoth(() => analyze(doc), 1);
+		const g = timeBoth(() => genericDenseRoute(doc), 1);
+		full.wall.push(...f.wall);
+		full.cpu.push(...f.cpu);
+		route.wall.push(...g.wall);
+		route.cpu.push(...g.cpu);
 	}
 	return {
-		fullCpuMs: median(full),
-		routeCpuMs: median(route),
-		ratio: median(full) / median(route),
+		fullCpuMs: median(full.cpu),
+		routeCpuMs: median(route.cpu),
+		fullWallMs: median(full.wall),
+		routeWallMs: median(route.wall),
+		ratio: median(full.cpu) / median(route.cpu),
+		wallRatio: median(full.wall) / median(route.wall),
 		poles: [a.length, b.length],
 		worstPoleDeviation: worst
 	};
 })();
 console.log(
-	`\n300-capacitor mesh: full analysis ${fmt(versus.fullCpuMs)} ms CPU, generic dense route (ml-matrix) ${fmt(versus.routeCpuMs)} ms CPU, ratio ${versus.ratio.toFixed(2)} (target ≤ 2: ${versus.ratio <= 2 ? 'met' : 'MISSED'}); ${versus.poles[0]} / ${versus.poles[1]} poles, largest relative difference ${versus.worstPoleDeviation.toExponential(1)}`
+	`\n300-capacitor mesh: full analysis ${fmt(versus.fullCpuMs)} ms CPU / ${fmt(versus.fullWallMs)} ms wall, generic dense route (ml-matrix) ${fmt(versus.routeCpuMs)} / ${fmt(versus.routeWallMs)} ms, ratio ${versus.ratio.toFixed(2)} CPU / ${versus.wallRatio.toFixed(2)} wall (target ≤ 2: ${Math.max(versus.ratio, versus.wallRatio) <= 2 ? 'met' : 'MISSED'}); ${versus.poles[0]} / ${versus.poles[1]} poles, largest relative difference ${versus.worstPoleDeviation.toExponential(1)}`
 );
 const tResp = Math.max(...response300.map((r) => r.medianMs));
 const t50 = Math.max(...fifty.map((f) => f.medianMs));
