@@ -21,8 +21,25 @@ export interface Spectrum {
 	/** All μ, for the frequency-response solves. */
 	mu: { re: Float64Array; im: Float64Array };
 	s0: number;
-	/** Symmetric path: every eigenpair of S = D^½·H·D^½ (zeros-deflated.ts reuses them). */
-	basis?: { values: Float64Array; vectors: Float64Array; sqrtD: Float64Array };
+	/** Symmetric path: the eigen-decomposition of S = D^½·H·D^½ (zeros-deflated.ts reuses it). */
+	basis?: SymmetricBasis;
+}
+
+/**
+ * S = Q·diag(Λ, 0)·Qᵀ with Q orthogonal: S vanishes on the last m − p coordinates of y = Qᵀx
+ * (directions known to be null, poles at infinity), and on the first p it is W·Λ·Wᵀ. On the port
+ * path p = m and Q = I; on the node path (node-space-spectrum.ts) p is the rank of the port
+ * incidence and Q a product of reflections.
+ */
+export interface SymmetricBasis {
+	p: number;
+	/** Λ: the p eigenvalues with vectors (some may still be ≈ 0: more poles at infinity). */
+	values: Float64Array;
+	/** Row k of W (p×p): the unit eigenvector of values[k] in the first p coordinates of y. */
+	vectors: Float64Array;
+	sqrtD: Float64Array;
+	/** y = Qᵀx for a port-space x of length m, as a new array. */
+	rotate: (x: Float64Array) => Float64Array;
 }
 
 /** M = D·A for a row-major m×m A (rows scaled by d). */
@@ -86,26 +103,34 @@ export function symmetricSpectrum(pm: PortModel): Spectrum | null {
 	for (let k = 0; k < m; k++) {
 		const a = muRe[k];
 		if (!(Math.abs(a) > INFINITE_MU * max)) continue;
-		const xr = new Float64Array(m);
-		const yr = new Float64Array(m);
-		let mx = 0;
-		let my = 0;
-		for (let i = 0; i < m; i++) {
-			const v = eig.vectors[k * m + i];
-			xr[i] = r[i] * v;
-			yr[i] = v / r[i];
-			mx = Math.max(mx, Math.abs(xr[i]));
-			my = Math.max(my, Math.abs(yr[i]));
-		}
-		// Same scaling as the general path: largest entry 1 in each vector.
-		for (let i = 0; i < m; i++) {
-			xr[i] /= mx;
-			yr[i] /= my;
-		}
-		const vectors = { xr, xi: new Float64Array(m), yr, yi: new Float64Array(m) };
+		const vectors = portPair(eig.vectors.subarray(k * m, k * m + m), r);
 		s.push({ re: pm.s0 - 1 / a, im: 0, muRe: a, muIm: 0, vectors });
 	}
-	return { hs: null, s, mu, s0: pm.s0, basis: { ...eig, sqrtD: r } };
+	const basis = { p: m, ...eig, sqrtD: r, rotate: (x: Float64Array) => x.slice() };
+	return { hs: null, s, mu, s0: pm.s0, basis };
+}
+
+/**
+ * For S v = μ v, the right and left eigenvectors of M = D·H, x = D^½ v and y = D^-½ v, each
+ * scaled as on the general path (largest entry 1).
+ */
+export function portPair(v: Float64Array, sqrtD: Float64Array): EigenPair {
+	const m = v.length;
+	const xr = new Float64Array(m);
+	const yr = new Float64Array(m);
+	let mx = 0;
+	let my = 0;
+	for (let i = 0; i < m; i++) {
+		xr[i] = sqrtD[i] * v[i];
+		yr[i] = v[i] / sqrtD[i];
+		mx = Math.max(mx, Math.abs(xr[i]));
+		my = Math.max(my, Math.abs(yr[i]));
+	}
+	for (let i = 0; i < m; i++) {
+		xr[i] /= mx;
+		yr[i] /= my;
+	}
+	return { xr, xi: new Float64Array(m), yr, yi: new Float64Array(m) };
 }
 
 /** The port model's pole matrix D·H. */
