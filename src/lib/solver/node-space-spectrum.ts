@@ -1,8 +1,8 @@
 import type { Assembled } from './assemble';
-import { applyQt, applyQToRows, pivotedQR } from './kernels/pivoted-qr';
+import { applyQToRows, pivotedQR } from './kernels/pivoted-qr';
 import { luSolve } from './lu';
 import type { PortModel } from './port-model';
-import { INFINITE_MU, portPair, type Spectrum } from './spectrum';
+import { INFINITE_MU, portPair, type Spectrum, type SymmetricBasis } from './spectrum';
 import { symmetricEigen } from './symmetric-eigen';
 
 /**
@@ -25,14 +25,10 @@ import { symmetricEigen } from './symmetric-eigen';
  * when r is well below m: tridiagonalizing is cubic, (r/m)³ of the work, while the QR and the r
  * solves are quadratic in m.
  *
- * Null when it does not pay (rank close to m) or does not apply; the caller then takes the
- * port path, which handles every case this one does.
+ * Null when it does not pay (rank close to m), does not apply, or T is singular (below); the
+ * caller then takes the port path, which handles every case this one does.
  */
-export function nodeSpaceSpectrum(
-	a: Assembled,
-	pm: PortModel,
-	paysBelow = PAYS_BELOW
-): Spectrum | null {
+export function nodeSpaceSpectrum(a: Assembled, pm: PortModel): Spectrum | null {
 	const { m, d, lu } = pm;
 	if (!lu || m === 0) return null;
 	for (let i = 0; i < m; i++) if (!(d[i] > 0) || !Number.isFinite(d[i])) return null;
@@ -43,7 +39,7 @@ export function nodeSpaceSpectrum(
 	for (const p of a.ports)
 		for (const [row] of p.vec) if (!column.has(row)) column.set(row, column.size);
 	const n = column.size;
-	if (n > paysBelow * m) return null;
+	if (n > PAYS_BELOW * m) return null;
 	const unknown = Int32Array.from(column.keys());
 	const x = new Float64Array(m * n);
 	let big = 0;
@@ -56,11 +52,11 @@ export function nodeSpaceSpectrum(
 		big = Math.max(big, Math.sqrt(s));
 	}
 	// Numerical rank at max(m, n)·ε relative to the largest column (common practice, as in the
-	// rank functions of numerical libraries). A dependent column left in by rounding only adds
-	// an eigenvalue of order ε·‖S‖, which the INFINITE_MU cut below reads as infinite.
+	// rank functions of numerical libraries). A dependent column left in by rounding would add
+	// an eigenvalue of order ε·‖S‖ to T, which hands the network to the port path below.
 	const qr = pivotedQR(x, m, n, Math.max(m, n) * Number.EPSILON * big);
 	const r = qr.rank;
-	if (r > paysBelow * m) return null;
+	if (r > PAYS_BELOW * m) return null;
 	// Y = A⁻¹·R̃ᵀ, one solve per row of R̃ = R₁·Πᵀ (row k: entries k … n − 1 in pivoted order).
 	const N = a.size;
 	const Y = new Float64Array(r * N);
@@ -95,20 +91,33 @@ export function nodeSpaceSpectrum(
 	mu.re.set(eig.values);
 	let max = 0;
 	for (let i = 0; i < r; i++) max = Math.max(max, Math.abs(eig.values[i]));
-	const s: Spectrum['s'] = [];
 	const kept: number[] = [];
 	for (let k = 0; k < r; k++) if (Math.abs(eig.values[k]) > INFINITE_MU * max) kept.push(k);
+	// T itself singular: a capacitor loop through a voltage source (a capacitor across the input,
+	// or a coupling capacitor from it), a mode at infinity inside range(Fᵀ). Its vector comes out
+	// of the eigensolver mixed with the fastest finite modes (the gap is ε·‖T‖), and the deflated
+	// zero problem reads that mixing: a zero 10⁷ times the shift came out 80 % off on a ten-decade
+	// network. The port path resolves such a network as well as it ever did.
+	if (kept.length < r) return null;
 	// Port-space eigenvectors Q₁·w, all at once.
-	const V = new Float64Array(kept.length * m);
+	const V = new Float64Array(r * m);
 	kept.forEach((k, t) => V.set(eig.vectors.subarray(k * r, k * r + r), t * m));
-	applyQToRows(qr, V, kept.length);
-	kept.forEach((k, t) => {
+	applyQToRows(qr, V, r);
+	const s: Spectrum['s'] = kept.map((k, t) => {
 		const muk = eig.values[k];
 		const vectors = portPair(V.subarray(t * m, t * m + m), sqrtD);
-		s.push({ re: pm.s0 - 1 / muk, im: 0, muRe: muk, muIm: 0, vectors });
+		return { re: pm.s0 - 1 / muk, im: 0, muRe: muk, muIm: 0, vectors };
 	});
-	const rotate = (u: Float64Array) => applyQt(qr, u.slice());
-	const basis = { p: r, values: eig.values, vectors: eig.vectors, sqrtD, rotate };
+	const basis: SymmetricBasis = {
+		values: Float64Array.from(kept, (k) => eig.values[k]),
+		vectors: V,
+		sqrtD,
+		// The infinite modes span the complement of range(Fᵀ) = range(Q₁). The readings this is
+		// asked about, u = D^½·h/h0 and w = D^½·g, are D^½·Pᵀ·A⁻¹·b/h0 = Fᵀ·(A⁻¹b)/h0 and
+		// Fᵀ·A⁻ᵀ·c (port-model.ts): both lie in range(Fᵀ), so their product over the complement
+		// is exactly zero, for any network.
+		infiniteProduct: () => 0
+	};
 	return { hs: null, s, mu, s0: pm.s0, basis };
 }
 

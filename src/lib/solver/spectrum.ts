@@ -26,20 +26,18 @@ export interface Spectrum {
 }
 
 /**
- * S = Q·diag(Λ, 0)·Qᵀ with Q orthogonal: S vanishes on the last m − p coordinates of y = Qᵀx
- * (directions known to be null, poles at infinity), and on the first p it is W·Λ·Wᵀ. On the port
- * path p = m and Q = I; on the node path (node-space-spectrum.ts) p is the rank of the port
- * incidence and Q a product of reflections.
+ * S's finite modes, and its infinite ones (μ ≈ 0: capacitor loops, capacitors across a source)
+ * only through the inner product they define, which is all the deflated zero problem needs
+ * (zeros-deflated.ts). The node path (node-space-spectrum.ts) never forms most infinite vectors.
  */
 export interface SymmetricBasis {
-	p: number;
-	/** Λ: the p eigenvalues with vectors (some may still be ≈ 0: more poles at infinity). */
+	/** The finite eigenvalues (|μ| above the INFINITE_MU cut), in the order of Spectrum.s. */
 	values: Float64Array;
-	/** Row k of W (p×p): the unit eigenvector of values[k] in the first p coordinates of y. */
+	/** Row k (length m): the unit eigenvector of values[k] in port coordinates. */
 	vectors: Float64Array;
 	sqrtD: Float64Array;
-	/** y = Qᵀx for a port-space x of length m, as a new array. */
-	rotate: (x: Float64Array) => Float64Array;
+	/** xᵀ·P∞·y, P∞ the orthogonal projector on the infinite modes (the complement of `vectors`). */
+	infiniteProduct: (x: Float64Array, y: Float64Array) => number;
 }
 
 /** M = D·A for a row-major m×m A (rows scaled by d). */
@@ -100,14 +98,37 @@ export function symmetricSpectrum(pm: PortModel): Spectrum | null {
 	let max = 0;
 	for (let i = 0; i < m; i++) max = Math.max(max, Math.abs(muRe[i]));
 	const s: Spectrum['s'] = [];
+	const finite: number[] = [];
+	const infinite: number[] = [];
 	for (let k = 0; k < m; k++) {
 		const a = muRe[k];
-		if (!(Math.abs(a) > INFINITE_MU * max)) continue;
+		if (!(Math.abs(a) > INFINITE_MU * max)) {
+			infinite.push(k);
+			continue;
+		}
+		finite.push(k);
 		const vectors = portPair(eig.vectors.subarray(k * m, k * m + m), r);
 		s.push({ re: pm.s0 - 1 / a, im: 0, muRe: a, muIm: 0, vectors });
 	}
-	const basis = { p: m, ...eig, sqrtD: r, rotate: (x: Float64Array) => x.slice() };
+	const V = eig.vectors;
+	const basis: SymmetricBasis = {
+		values: Float64Array.from(finite, (k) => muRe[k]),
+		vectors: Float64Array.from(finite.flatMap((k) => Array.from(V.subarray(k * m, k * m + m)))),
+		sqrtD: r,
+		infiniteProduct: (x, y) => {
+			let c = 0;
+			for (const k of infinite) c += dot(V, k * m, x) * dot(V, k * m, y);
+			return c;
+		}
+	};
 	return { hs: null, s, mu, s0: pm.s0, basis };
+}
+
+/** Σ a[from + i]·x[i] over x's length. */
+export function dot(a: Float64Array, from: number, x: Float64Array): number {
+	let s = 0;
+	for (let i = 0; i < x.length; i++) s += a[from + i] * x[i];
+	return s;
 }
 
 /**

@@ -1,5 +1,5 @@
 import type { PortModel } from './port-model';
-import { INFINITE_MU, spectrum, type Spectrum } from './spectrum';
+import { dot, spectrum, type Spectrum } from './spectrum';
 
 /**
  * The zero matrix Z = D·(H − h gᵀ/h0) in the eigenbasis of the pole problem (symmetric path):
@@ -27,48 +27,29 @@ export function deflatedZeroSpectrum(pm: PortModel, poles: Spectrum): Spectrum |
 	const basis = poles.basis;
 	if (!basis) return null;
 	const m = pm.m;
-	const { p, values, vectors, sqrtD } = basis;
-	let max = 0;
-	for (let i = 0; i < p; i++) max = Math.max(max, Math.abs(values[i]));
-	const finite: number[] = [];
-	const infinite: number[] = [];
-	for (let i = 0; i < p; i++) (Math.abs(values[i]) > INFINITE_MU * max ? finite : infinite).push(i);
-	if (infinite.length + (m - p) < 2) return null;
+	const { values, vectors, sqrtD } = basis;
+	const finite = values.length;
+	if (m - finite < 2) return null;
 	const u = new Float64Array(m);
 	const w = new Float64Array(m);
 	for (let i = 0; i < m; i++) {
 		u[i] = (sqrtD[i] * pm.h[i]) / pm.h0;
 		w[i] = sqrtD[i] * pm.g[i];
 	}
-	const yu = basis.rotate(u);
-	const yw = basis.rotate(w);
-	const a = new Float64Array(p);
-	const b = new Float64Array(p);
-	for (let k = 0; k < p; k++) {
-		let sa = 0;
-		let sb = 0;
-		for (let i = 0; i < p; i++) {
-			const v = vectors[k * p + i];
-			sa += v * yu[i];
-			sb += v * yw[i];
-		}
-		a[k] = sa;
-		b[k] = sb;
-	}
-	let c = 0;
-	for (const i of infinite) c += a[i] * b[i];
-	for (let i = p; i < m; i++) c += yu[i] * yw[i];
-	const keep = finite.length + 1;
+	// a and b in port coordinates, where a fast mode's vector and the small entries of u and w
+	// (small capacitors) meet term by term: their products keep their relative accuracy.
+	const keep = finite + 1;
 	const ra = new Float64Array(keep);
 	const rb = new Float64Array(keep);
 	const diag = new Float64Array(keep);
-	finite.forEach((i, t) => {
-		ra[t] = a[i];
-		rb[t] = b[i];
-		diag[t] = values[i];
-	});
+	for (let k = 0; k < finite; k++) {
+		ra[k] = dot(vectors, k * m, u);
+		rb[k] = dot(vectors, k * m, w);
+		diag[k] = values[k];
+	}
 	// Any split of c into ra·rb gives the same eigenvalues; equal magnitudes keep the row and the
 	// column of the collapsed block on one scale.
+	const c = basis.infiniteProduct(u, w);
 	ra[keep - 1] = Math.sign(c) * Math.sqrt(Math.abs(c));
 	rb[keep - 1] = Math.sqrt(Math.abs(c));
 	const Z = new Float64Array(keep * keep);
