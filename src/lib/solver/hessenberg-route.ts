@@ -46,6 +46,15 @@ export const BACKWARD_TOL = 64 * Number.EPSILON;
  *  (the zero checks probe there) every digit of ω counts. */
 const REFINE_TARGET = 4 * Number.EPSILON;
 const MAX_REFINE = 3;
+/**
+ * The derivative y = (G + sC)⁻¹·C·x only feeds the group delay, Newton steps on zeros and the
+ * slope read far above every pole, none of which needs the last digits (the banded LU leaves
+ * it unrefined): it is accepted, and refined only down to, a componentwise backward error of
+ * 1e-12. On the 300-capacitor mesh that spares three refinements in four (each two dense
+ * products and a solve); the group delay still agrees with the banded LU's to 1e-9
+ * (hessenberg-route.test.ts).
+ */
+export const DERIVATIVE_TOL = 1e-12;
 
 /** The parts of the network equations the route reads (direct-solve.ts's DirectSystem). */
 export interface Equations {
@@ -146,23 +155,58 @@ export function hessenbergRoute(eq: Equations, s0: number): HessenbergRoute | nu
 	};
 }
 
-/** out = M·x for a row-major n×n real M and complex x; `add` accumulates. */
+/**
+ * out = M·x for a row-major n×n real M and complex x; `add` accumulates. Two rows per pass so
+ * each x entry is loaded once for both (1.7× faster in V8 at n = 152; every row's sum keeps
+ * its order, so the result is bit for bit the one-row loop's).
+ */
 function mulInto(m: Float64Array, x: Vec, out: Vec, n: number, add: boolean): void {
-	for (let i = 0; i < n; i++) {
+	const { re: xr, im: xi } = x;
+	const { re: or, im: oi } = out;
+	let i = 0;
+	for (; i + 1 < n; i += 2) {
+		const r0 = i * n;
+		const r1 = r0 + n;
+		let a0 = 0;
+		let b0 = 0;
+		let a1 = 0;
+		let b1 = 0;
+		for (let j = 0; j < n; j++) {
+			const u = xr[j];
+			const v = xi[j];
+			const p = m[r0 + j];
+			const q = m[r1 + j];
+			a0 += p * u;
+			b0 += p * v;
+			a1 += q * u;
+			b1 += q * v;
+		}
+		if (add) {
+			or[i] += a0;
+			oi[i] += b0;
+			or[i + 1] += a1;
+			oi[i + 1] += b1;
+		} else {
+			or[i] = a0;
+			oi[i] = b0;
+			or[i + 1] = a1;
+			oi[i + 1] = b1;
+		}
+	}
+	for (; i < n; i++) {
 		const row = i * n;
 		let sr = 0;
 		let si = 0;
 		for (let j = 0; j < n; j++) {
-			const a = m[row + j];
-			sr += a * x.re[j];
-			si += a * x.im[j];
+			sr += m[row + j] * xr[j];
+			si += m[row + j] * xi[j];
 		}
 		if (add) {
-			out.re[i] += sr;
-			out.im[i] += si;
+			or[i] += sr;
+			oi[i] += si;
 		} else {
-			out.re[i] = sr;
-			out.im[i] = si;
+			or[i] = sr;
+			oi[i] = si;
 		}
 	}
 }
@@ -177,23 +221,25 @@ function certify(
 	si: number,
 	x: Vec,
 	rhs: Vec,
-	rhsAbs: Float64Array
+	rhsAbs: Float64Array,
+	target = REFINE_TARGET,
+	accept = BACKWARD_TOL
 ): boolean {
 	const { res, u, n } = h;
 	const r = { re: res.rr, im: res.ri };
 	pinUnknowns(h.pinned, sr, si, x, rhs);
 	let omega = pencilResidual(eq.g, eq.cap, sr, si, x.re, x.im, rhs.re, rhs.im, rhsAbs, res);
-	for (let k = 0; k < MAX_REFINE && omega > REFINE_TARGET; k++) {
+	for (let k = 0; k < MAX_REFINE && omega > target; k++) {
 		if (!Number.isFinite(omega)) return false;
 		mulInto(h.p, r, u, n, false);
 		shiftedSolve(h.f, u.re, u.im);
 		mulInto(h.bq, u, x, n, true);
 		pinUnknowns(h.pinned, sr, si, x, rhs);
 		const next = pencilResidual(eq.g, eq.cap, sr, si, x.re, x.im, rhs.re, rhs.im, rhsAbs, res);
-		if (!(next <= omega / 2)) return Math.min(omega, next) <= BACKWARD_TOL;
+		if (!(next <= omega / 2)) return Math.min(omega, next) <= accept;
 		omega = next;
 	}
-	return omega <= BACKWARD_TOL;
+	return omega <= accept;
 }
 
 /** Outside this range the banded LU's wide numbers are needed (direct-solve.ts). */
@@ -242,5 +288,5 @@ export function solveByHessenberg(
 	shiftedSolve(f, v.re, v.im);
 	mulInto(h.bq, v, y, n, false);
 	applySparse(eq.cap, x.re, x.im, h.c.re, h.c.im, h.cAbs);
-	return certify(eq, h, sr, si, y, h.c, h.cAbs) && plain(y);
+	return certify(eq, h, sr, si, y, h.c, h.cAbs, DERIVATIVE_TOL, DERIVATIVE_TOL) && plain(y);
 }

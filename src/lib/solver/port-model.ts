@@ -65,14 +65,16 @@ export function portModelFrom(a: Assembled, s0: number): PortModel {
 	};
 	if (lu.pivotRatio < SINGULAR_PIVOT) return model;
 	const col = new Float64Array(n);
-	for (let j = 0; j < m; j++) {
-		col.fill(0);
-		for (const [r, x] of a.ports[j].vec) col[r] += x;
-		luSolve(lu, col);
-		for (let i = 0; i < m; i++) model.H[i * m + j] = dot(a.ports[i].vec, col);
-		model.g[j] = dot(a.c, col);
-		model.gz[j] = dot(a.zin, col);
-	}
+	if (m > n) fillFromInverse(a, lu, model);
+	else
+		for (let j = 0; j < m; j++) {
+			col.fill(0);
+			for (const [r, x] of a.ports[j].vec) col[r] += x;
+			luSolve(lu, col);
+			for (let i = 0; i < m; i++) model.H[i * m + j] = dot(a.ports[i].vec, col);
+			model.g[j] = dot(a.c, col);
+			model.gz[j] = dot(a.zin, col);
+		}
 	col.fill(0);
 	for (const [r, x] of a.b) col[r] += x;
 	luSolve(lu, col);
@@ -80,6 +82,36 @@ export function portModelFrom(a: Assembled, s0: number): PortModel {
 	model.h0 = dot(a.c, col);
 	model.hz0 = dot(a.zin, col);
 	return model;
+}
+
+/**
+ * H, g and gz when there are more ports than unknowns (a mesh with capacitors across its
+ * branches as well as to ground): the n columns of A⁻¹ cost n solves instead of m, and each
+ * entry pᵢᵀ·A⁻¹·pⱼ is then read from at most four of its entries (a port vector has one or two).
+ * Same products as the solve per port, summed in the same order within each vector.
+ */
+function fillFromInverse(a: Assembled, lu: ReturnType<typeof luFactor>, model: PortModel): void {
+	const n = a.size;
+	const m = a.ports.length;
+	const inv = new Float64Array(n * n); // column-major: inv[c·n + r] = (A⁻¹)[r][c]
+	const col = new Float64Array(n);
+	for (let c = 0; c < n; c++) {
+		col.fill(0);
+		col[c] = 1;
+		luSolve(lu, col);
+		inv.set(col, c * n);
+	}
+	// Column j of A⁻¹·P, gathered into col, then read as the solve per port would.
+	for (let j = 0; j < m; j++) {
+		col.fill(0);
+		for (const [c, y] of a.ports[j].vec) {
+			const base = c * n;
+			for (let r = 0; r < n; r++) col[r] += y * inv[base + r];
+		}
+		for (let i = 0; i < m; i++) model.H[i * m + j] = dot(a.ports[i].vec, col);
+		model.g[j] = dot(a.c, col);
+		model.gz[j] = dot(a.zin, col);
+	}
 }
 
 export function portModel(
