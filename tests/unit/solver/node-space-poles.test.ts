@@ -1,7 +1,7 @@
 import { describe, expect, test } from 'vitest';
 import { validateNetwork } from '../../../src/lib/solver/index';
 import { assemble } from '../../../src/lib/solver/assemble';
-import { directSystem, ratio, solveAt } from '../../../src/lib/solver/direct-solve';
+import { directSystem } from '../../../src/lib/solver/direct-solve';
 import { applyQ, applyQt, pivotedQR } from '../../../src/lib/solver/kernels/pivoted-qr';
 import { computePoles, computeZeros, type Root } from '../../../src/lib/solver/poles';
 import { nodeSpaceSpectrum } from '../../../src/lib/solver/node-space-spectrum';
@@ -15,7 +15,7 @@ import {
 	shortCircuitPorts,
 	shortCircuitTimeConstants
 } from '../../../src/lib/solver/time-constants';
-import { el, net, type El } from './helpers';
+import { el, net, newtonStep, type El } from './helpers';
 import { rng } from './random-networks';
 
 /**
@@ -107,15 +107,6 @@ function participation(root: Root): number[] {
 	const p = Array.from(v.xr, (x, i) => x * v.yr[i]);
 	const sum = p.reduce((s, x) => s + x, 0);
 	return p.map((x) => x / sum);
-}
-
-/** Newton step H(z)/H′(z) of the network equations' direct solve, relative to |z|. */
-function newtonStep(sys: ReturnType<typeof directSystem>, z: { re: number; im: number }): number {
-	const p = solveAt(sys, z.re, z.im, true);
-	if (!p?.dh) return Infinity;
-	if (p.h.re === 0 && p.h.im === 0) return 0;
-	const q = ratio(p.h, p.dh);
-	return Math.hypot(q.re, q.im) / Math.hypot(z.re, z.im);
 }
 
 describe('pole eigenproblem on the nodes instead of the capacitor ports', () => {
