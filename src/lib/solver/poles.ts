@@ -11,6 +11,7 @@ import {
 } from './spectrum';
 import type { EigenPair } from './eigenvectors';
 import { deflatedZeroSpectrum } from './zeros-deflated';
+import { nodeSpaceSpectrum } from './node-space-spectrum';
 
 export interface Root {
 	re: number;
@@ -87,11 +88,25 @@ function refine(sp: Spectrum, pencil: () => Pencil, withVectors: boolean): Root[
 }
 
 /** Natural frequencies with their right/left eigenvectors in port (charge/flux) coordinates. */
-export function computePoles(a: Assembled, pm: PortModel): { roots: Root[]; sp: Spectrum } {
+export function computePoles(
+	a: Assembled,
+	pm: PortModel,
+	route: PoleRoute = 'auto'
+): { roots: Root[]; sp: Spectrum } {
+	const symmetric = route !== 'general' && isReciprocal(a);
 	const sp =
-		(isReciprocal(a) ? symmetricSpectrum(pm) : null) ?? spectrum(poleMatrix(pm), pm.m, pm.s0);
+		(symmetric && route === 'auto' ? nodeSpaceSpectrum(a, pm) : null) ??
+		(symmetric ? symmetricSpectrum(pm) : null) ??
+		spectrum(poleMatrix(pm), pm.m, pm.s0);
 	return { roots: refine(sp, () => polePencil(a), true), sp };
 }
+
+/**
+ * 'auto': for a reciprocal RC network the symmetric problem on the nodes when the capacitor loops
+ * make it smaller (node-space-spectrum.ts), else on the ports (spectrum.ts); otherwise the
+ * general one. 'ports' and 'general' force those, for comparisons.
+ */
+export type PoleRoute = 'auto' | 'ports' | 'general';
 
 /**
  * Transmission zeros; `null` when H(s0) = 0 so the reduction does not apply at this shift.

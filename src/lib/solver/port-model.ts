@@ -1,5 +1,5 @@
 import { assemble, dot, type Assembled, type ReactiveMode } from './assemble';
-import { luFactor, luSolve } from './lu';
+import { luFactor, luSolve, type RealLU } from './lu';
 import type { ResolvedNetwork } from './types';
 
 /**
@@ -29,6 +29,11 @@ export interface PortModel {
 	d: Float64Array;
 	elements: number[];
 	pivotRatio: number;
+	/**
+	 * The factorization of G + s0·C behind H, kept so the pole problem can be set up on the
+	 * network's nodes instead of its ports (node-space-spectrum.ts); null when it is singular.
+	 */
+	lu: RealLU | null;
 }
 
 /** Pivot ratio under which a factorization is taken as singular (see docs/methods.md). */
@@ -55,7 +60,8 @@ export function portModelFrom(a: Assembled, s0: number): PortModel {
 		hz0: 0,
 		d: Float64Array.from(a.ports.map((p) => p.d)),
 		elements: a.ports.map((p) => p.element),
-		pivotRatio: lu.pivotRatio
+		pivotRatio: lu.pivotRatio,
+		lu: lu.pivotRatio < SINGULAR_PIVOT ? null : lu
 	};
 	if (lu.pivotRatio < SINGULAR_PIVOT) return model;
 	const col = new Float64Array(n);

@@ -21,8 +21,23 @@ export interface Spectrum {
 	/** All μ, for the frequency-response solves. */
 	mu: { re: Float64Array; im: Float64Array };
 	s0: number;
-	/** Symmetric path: every eigenpair of S = D^½·H·D^½ (zeros-deflated.ts reuses them). */
-	basis?: { values: Float64Array; vectors: Float64Array; sqrtD: Float64Array };
+	/** Symmetric path: the eigen-decomposition of S = D^½·H·D^½ (zeros-deflated.ts reuses it). */
+	basis?: SymmetricBasis;
+}
+
+/**
+ * S's finite modes, and its infinite ones (μ ≈ 0: capacitor loops, capacitors across a source)
+ * only through the inner product they define, which is all the deflated zero problem needs
+ * (zeros-deflated.ts). The node path (node-space-spectrum.ts) never forms most infinite vectors.
+ */
+export interface SymmetricBasis {
+	/** The finite eigenvalues (|μ| above the INFINITE_MU cut), in the order of Spectrum.s. */
+	values: Float64Array;
+	/** Row k (length m): the unit eigenvector of values[k] in port coordinates. */
+	vectors: Float64Array;
+	sqrtD: Float64Array;
+	/** xᵀ·P∞·y, P∞ the orthogonal projector on the infinite modes (the complement of `vectors`). */
+	infiniteProduct: (x: Float64Array, y: Float64Array) => number;
 }
 
 /** M = D·A for a row-major m×m A (rows scaled by d). */
@@ -83,29 +98,60 @@ export function symmetricSpectrum(pm: PortModel): Spectrum | null {
 	let max = 0;
 	for (let i = 0; i < m; i++) max = Math.max(max, Math.abs(muRe[i]));
 	const s: Spectrum['s'] = [];
+	const finite: number[] = [];
+	const infinite: number[] = [];
 	for (let k = 0; k < m; k++) {
 		const a = muRe[k];
-		if (!(Math.abs(a) > INFINITE_MU * max)) continue;
-		const xr = new Float64Array(m);
-		const yr = new Float64Array(m);
-		let mx = 0;
-		let my = 0;
-		for (let i = 0; i < m; i++) {
-			const v = eig.vectors[k * m + i];
-			xr[i] = r[i] * v;
-			yr[i] = v / r[i];
-			mx = Math.max(mx, Math.abs(xr[i]));
-			my = Math.max(my, Math.abs(yr[i]));
+		if (!(Math.abs(a) > INFINITE_MU * max)) {
+			infinite.push(k);
+			continue;
 		}
-		// Same scaling as the general path: largest entry 1 in each vector.
-		for (let i = 0; i < m; i++) {
-			xr[i] /= mx;
-			yr[i] /= my;
-		}
-		const vectors = { xr, xi: new Float64Array(m), yr, yi: new Float64Array(m) };
+		finite.push(k);
+		const vectors = portPair(eig.vectors.subarray(k * m, k * m + m), r);
 		s.push({ re: pm.s0 - 1 / a, im: 0, muRe: a, muIm: 0, vectors });
 	}
-	return { hs: null, s, mu, s0: pm.s0, basis: { ...eig, sqrtD: r } };
+	const V = eig.vectors;
+	const basis: SymmetricBasis = {
+		values: Float64Array.from(finite, (k) => muRe[k]),
+		vectors: Float64Array.from(finite.flatMap((k) => Array.from(V.subarray(k * m, k * m + m)))),
+		sqrtD: r,
+		infiniteProduct: (x, y) => {
+			let c = 0;
+			for (const k of infinite) c += dot(V, k * m, x) * dot(V, k * m, y);
+			return c;
+		}
+	};
+	return { hs: null, s, mu, s0: pm.s0, basis };
+}
+
+/** Σ a[from + i]·x[i] over x's length. */
+export function dot(a: Float64Array, from: number, x: Float64Array): number {
+	let s = 0;
+	for (let i = 0; i < x.length; i++) s += a[from + i] * x[i];
+	return s;
+}
+
+/**
+ * For S v = μ v, the right and left eigenvectors of M = D·H, x = D^½ v and y = D^-½ v, each
+ * scaled as on the general path (largest entry 1).
+ */
+export function portPair(v: Float64Array, sqrtD: Float64Array): EigenPair {
+	const m = v.length;
+	const xr = new Float64Array(m);
+	const yr = new Float64Array(m);
+	let mx = 0;
+	let my = 0;
+	for (let i = 0; i < m; i++) {
+		xr[i] = sqrtD[i] * v[i];
+		yr[i] = v[i] / sqrtD[i];
+		mx = Math.max(mx, Math.abs(xr[i]));
+		my = Math.max(my, Math.abs(yr[i]));
+	}
+	for (let i = 0; i < m; i++) {
+		xr[i] /= mx;
+		yr[i] /= my;
+	}
+	return { xr, xi: new Float64Array(m), yr, yi: new Float64Array(m) };
 }
 
 /** The port model's pole matrix D·H. */

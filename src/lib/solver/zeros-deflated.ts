@@ -1,15 +1,25 @@
 import type { PortModel } from './port-model';
-import { INFINITE_MU, spectrum, type Spectrum } from './spectrum';
+import { dot, spectrum, type Spectrum } from './spectrum';
 
 /**
  * The zero matrix Z = D·(H − h gᵀ/h0) in the eigenbasis of the pole problem (symmetric path):
- * with S = D^½·H·D^½ = V Λ Vᵀ, D^-½·Z·D^½ = S − u wᵀ (u = D^½h/h0, w = D^½g), so
+ * with S = D^½·H·D^½ = V Λ Vᵀ (V orthogonal, m×m), D^-½·Z·D^½ = S − u wᵀ (u = D^½h/h0,
+ * w = D^½g), so
  *     Vᵀ·(D^-½ Z D^½)·V = Λ − a bᵀ,   a = Vᵀu, b = Vᵀw,
  * a similarity, hence the same eigenvalues. The k modes with μ ≈ 0 (capacitor loops: poles at
- * infinity) form a block that is zero to within ε·‖S‖; one reflection inside it turns a's part
- * into a single entry, after which k − 1 rows are zero and each only contributes μ = 0, an
- * infinite zero. The remaining problem has m − k + 1 unknowns instead of m: a mesh whose loops
- * leave half its ports without a finite pole costs an eighth of the general QR.
+ * infinity) form a block that is zero to within ε·‖S‖. The characteristic polynomial of a
+ * diagonal-plus-rank-one matrix,
+ *     det(λI − Λ + a bᵀ) = Π(λ − λ_i) · (1 + Σ a_i b_i / (λ − λ_i)),
+ * depends on a and b only through the products a_i b_i, and on the infinite block, where every
+ * λ_i = 0, only through their sum c = Σ_inf a_i b_i. So that block collapses to one row and
+ * column carrying c (k − 1 exact zeros split off: infinite zeros), and the problem keeps
+ * m − k + 1 unknowns instead of m: a mesh whose loops leave half its ports without a finite pole
+ * costs an eighth of the general QR.
+ *
+ * The pole basis need not hold the infinite block's vectors (node-space-spectrum.ts keeps only
+ * those of range(S)): c = Σ_inf a_i b_i is the inner product of u and w restricted to the
+ * infinite directions, read off y = Qᵀu and Qᵀw (SymmetricBasis) on the coordinates where S is
+ * known to vanish, plus the products of the basis' own near-zero modes.
  *
  * Null when there is nothing to deflate (the caller solves the full zero matrix instead).
  */
@@ -18,55 +28,30 @@ export function deflatedZeroSpectrum(pm: PortModel, poles: Spectrum): Spectrum |
 	if (!basis) return null;
 	const m = pm.m;
 	const { values, vectors, sqrtD } = basis;
-	let max = 0;
-	for (let i = 0; i < m; i++) max = Math.max(max, Math.abs(values[i]));
-	const finite: number[] = [];
-	const infinite: number[] = [];
-	for (let i = 0; i < m; i++) (Math.abs(values[i]) > INFINITE_MU * max ? finite : infinite).push(i);
-	if (infinite.length < 2) return null;
-	const a = new Float64Array(m);
-	const b = new Float64Array(m);
-	for (let k = 0; k < m; k++) {
-		let sa = 0;
-		let sb = 0;
-		for (let i = 0; i < m; i++) {
-			const v = vectors[k * m + i] * sqrtD[i];
-			sa += v * pm.h[i];
-			sb += v * pm.g[i];
-		}
-		a[k] = sa / pm.h0;
-		b[k] = sb;
+	const finite = values.length;
+	if (m - finite < 2) return null;
+	const u = new Float64Array(m);
+	const w = new Float64Array(m);
+	for (let i = 0; i < m; i++) {
+		u[i] = (sqrtD[i] * pm.h[i]) / pm.h0;
+		w[i] = sqrtD[i] * pm.g[i];
 	}
-	// Reflection P = I − 2vvᵀ/vᵀv on the infinite block with Pᵀa = −sign(a₁)‖a‖e₁; b follows.
-	let norm = 0;
-	for (const i of infinite) norm += a[i] * a[i];
-	norm = Math.sqrt(norm);
-	let alpha = 0;
-	let beta = 0;
-	if (norm > 0) {
-		const first = a[infinite[0]];
-		alpha = first > 0 ? -norm : norm;
-		const v = infinite.map((i) => a[i]);
-		v[0] -= alpha;
-		let vv = 0;
-		let vb = 0;
-		infinite.forEach((i, t) => {
-			vv += v[t] * v[t];
-			vb += v[t] * b[i];
-		});
-		beta = b[infinite[0]] - (2 * vb * v[0]) / vv;
-	} else beta = b[infinite[0]]; // a vanishes on the block: every row there is already zero
-	const keep = finite.length + 1;
+	// a and b in port coordinates, where a fast mode's vector and the small entries of u and w
+	// (small capacitors) meet term by term: their products keep their relative accuracy.
+	const keep = finite + 1;
 	const ra = new Float64Array(keep);
 	const rb = new Float64Array(keep);
 	const diag = new Float64Array(keep);
-	finite.forEach((i, t) => {
-		ra[t] = a[i];
-		rb[t] = b[i];
-		diag[t] = values[i];
-	});
-	ra[keep - 1] = alpha;
-	rb[keep - 1] = beta;
+	for (let k = 0; k < finite; k++) {
+		ra[k] = dot(vectors, k * m, u);
+		rb[k] = dot(vectors, k * m, w);
+		diag[k] = values[k];
+	}
+	// Any split of c into ra·rb gives the same eigenvalues; equal magnitudes keep the row and the
+	// column of the collapsed block on one scale.
+	const c = basis.infiniteProduct(u, w);
+	ra[keep - 1] = Math.sign(c) * Math.sqrt(Math.abs(c));
+	rb[keep - 1] = Math.sqrt(Math.abs(c));
 	const Z = new Float64Array(keep * keep);
 	for (let i = 0; i < keep; i++) {
 		for (let j = 0; j < keep; j++) Z[i * keep + j] = -ra[i] * rb[j];

@@ -1,6 +1,7 @@
 import { expect } from 'vitest';
 
 import { el, net, type El } from './build';
+import { ratio, solveAt, type DirectSystem } from '../../../src/lib/solver/direct-solve';
 
 export { el, net, type El };
 
@@ -77,3 +78,15 @@ export const probe10x = (input: El[] = [el('Cin', 'C', ['b', 'gnd'], '90p')]) =>
 		],
 		'b'
 	);
+
+/**
+ * Newton step H(z)/H′(z) of the network equations' direct solve, relative to |z|: near a simple
+ * root of H it is the distance to it (by definition of a zero), with no eigenproblem involved.
+ */
+export function newtonStep(sys: DirectSystem, z: { re: number; im: number }): number {
+	const p = solveAt(sys, z.re, z.im, true);
+	if (!p?.dh) return Infinity;
+	if (p.h.re === 0 && p.h.im === 0) return 0;
+	const q = ratio(p.h, p.dh);
+	return Math.hypot(q.re, q.im) / Math.hypot(z.re, z.im);
+}
