@@ -32,6 +32,7 @@ export function nodeSpaceSpectrum(a: Assembled, pm: PortModel): Spectrum | null 
 	const { m, d, lu } = pm;
 	if (!lu || m === 0) return null;
 	for (let i = 0; i < m; i++) if (!(d[i] > 0) || !Number.isFinite(d[i])) return null;
+	if (loopThroughSource(a)) return null; // T would be singular (below): skip the work
 	const sqrtD = new Float64Array(m);
 	for (let i = 0; i < m; i++) sqrtD[i] = Math.sqrt(d[i]);
 	// Fᵀ's non-zero columns only: the unknowns some capacitor touches (not source currents).
@@ -119,6 +120,43 @@ export function nodeSpaceSpectrum(a: Assembled, pm: PortModel): Spectrum | null 
 		infiniteProduct: () => 0
 	};
 	return { hs: null, s, mu, s0: pm.s0, basis };
+}
+
+/**
+ * Whether a loop of capacitors closes through a voltage source, read from the structure so the
+ * node path is not tried in vain (the singular-T check after the eigensolve stays the guarantee).
+ * On this path (symmetric equations, every d > 0: no inductor, controlled source or op-amp) an
+ * unknown with a zero diagonal whose row holds only ±1 entries is a voltage source's branch
+ * (modified nodal analysis), joining the one or two nodes it has entries in. Capacitor edges
+ * are joined first; a source edge whose ends are already joined closes such a loop.
+ */
+function loopThroughSource(a: Assembled): boolean {
+	const n = a.size;
+	const parent = Int32Array.from({ length: n + 1 }, (_, i) => i); // n: ground
+	const find = (x: number): number => {
+		while (parent[x] !== x) x = parent[x] = parent[parent[x]];
+		return x;
+	};
+	const join = (x: number, y: number): boolean => {
+		const [rx, ry] = [find(x), find(y)];
+		if (rx === ry) return false;
+		parent[rx] = ry;
+		return true;
+	};
+	for (const { vec } of a.ports) if (vec.length) join(vec[0][0], vec.length > 1 ? vec[1][0] : n);
+	for (let b = 0; b < n; b++) {
+		if (a.g[b * n + b] !== 0) continue;
+		const ends: number[] = [];
+		let branch = true;
+		for (let j = 0; j < n && branch; j++) {
+			const v = a.g[b * n + j];
+			if (v === 0) continue;
+			if (Math.abs(v) !== 1 || ends.length === 2) branch = false;
+			else ends.push(j);
+		}
+		if (branch && ends.length > 0 && !join(ends[0], ends.length > 1 ? ends[1] : n)) return true;
+	}
+	return false;
 }
 
 /**
