@@ -18,7 +18,7 @@ import {
 	denseMesh as mesh,
 	type DenseDoc as Doc
 } from './lib/dense-networks';
-import { genericDenseRoute } from './lib/generic-dense-route';
+import { spawnSync } from 'node:child_process';
 
 function median(xs: number[]): number {
 	const s = xs.slice().sort((a, b) => a - b);
@@ -256,35 +256,42 @@ for (const r of response300)
 /**
  * Issue 15's dense target: the full analysis of the 300-capacitor mesh within 2× of the generic
  * dense route (scripts/lib/generic-dense-route.ts: ml-matrix LU and nonsymmetric eigenvalues,
- * one solve per capacitor), timed in this run, alternating the two so both see the same load;
- * medians of 9 runs each after 5 warm-ups of each (the analysis runs in a long-lived worker:
- * the optimized code's figure is the one that matters; before V8 has compiled it, process CPU
- * also counts the compiler's threads). Wall and CPU are both kept. The route's poles are
- * compared with ours so the yardstick is known to compute the same thing.
+ * one solve per capacitor), timed in this run. The route runs in a child process of its own
+ * (scripts/generic-route-timing.ts): loading ml-matrix into this process slowed the analysis by
+ * about 30 % (docs/performance.md). Three rounds, each: our analysis 9 times, then the route 9
+ * times in its child; 15 warm-ups of each before every block (the analysis runs in a long-lived
+ * worker: the optimized code's figure is the one that matters; before V8 has compiled it,
+ * process CPU also counts the compiler's threads). Medians over the rounds, wall and CPU both
+ * kept and both held to the target. The route's poles are compared with ours so the yardstick
+ * is known to compute the same thing.
  */
 const versus = (() => {
 	const doc = mesh(300);
 	const ours = analyze(doc);
-	const generic = genericDenseRoute(doc);
-	const key = (p: { re: number; im: number }) => Math.hypot(p.re, p.im);
-	const a = ours.poles.map(key).sort((x, y) => x - y);
-	const b = generic.poles.map(key).sort((x, y) => x - y);
-	const worst =
-		a.length === b.length ? Math.max(...a.map((x, i) => Math.abs(x - b[i]) / x)) : Infinity;
-	for (let w = 0; w < 5; w++) {
-		analyze(doc);
-		genericDenseRoute(doc);
-	}
+	for (let w = 0; w < 15; w++) analyze(doc);
 	const full = { wall: [] as number[], cpu: [] as number[] };
 	const route = { wall: [] as number[], cpu: [] as number[] };
-	for (let k = 0; k < 9; k++) {
-		const f = timeBoth(() => analyze(doc), 1);
-		const g = timeBoth(() => genericDenseRoute(doc), 1);
-		full.wall.push(...f.wall);
-		full.cpu.push(...f.cpu);
-		route.wall.push(...g.wall);
-		route.cpu.push(...g.cpu);
+	let routePoles: number[] = [];
+	for (let round = 0; round < 3; round++) {
+		const f = timeBoth(() => analyze(doc), 9);
+		full.wall.push(median(f.wall));
+		full.cpu.push(median(f.cpu));
+		const child = spawnSync(
+			process.execPath,
+			['--import', 'tsx', 'scripts/generic-route-timing.ts', '9', '15'],
+			{ encoding: 'utf8', maxBuffer: 1 << 24 }
+		);
+		if (child.status !== 0) throw new Error(`generic route: ${child.stderr}`);
+		const g = JSON.parse(child.stdout.trim().split('\n').pop()!);
+		route.wall.push(g.wallMs);
+		route.cpu.push(g.cpuMs);
+		routePoles = g.poles;
 	}
+	const key = (p: { re: number; im: number }) => Math.hypot(p.re, p.im);
+	const a = ours.poles.map(key).sort((x, y) => x - y);
+	const b = routePoles.slice().sort((x, y) => x - y);
+	const worst =
+		a.length === b.length ? Math.max(...a.map((x, i) => Math.abs(x - b[i]) / x)) : Infinity;
 	return {
 		fullCpuMs: median(full.cpu),
 		routeCpuMs: median(route.cpu),
