@@ -1,6 +1,7 @@
 import type { DcPorts } from './dc-ports';
 import { hasStructuralExtreme, SC_FROM_OC_ABOVE } from './time-constants';
 import type { ResolvedNetwork, PortReading } from './types';
+import { UnionFind } from './union-find';
 
 /**
  * Short-circuit time constants of an RC network straight from the zero-value port matrix.
@@ -29,6 +30,9 @@ export function shortCircuitTimeConstantsRC(
 	// H is symmetric only for a reciprocal network: a controlled source or an op-amp breaks it.
 	if (net.elements.some((e) => !RECIPROCAL.has(e.type))) return null;
 	if (hasStructuralExtreme(net)) return null;
+	// A loop of capacitors (voltage sources count as the shorts they are here) makes H singular
+	// — the loop's port voltages sum to zero — so the factorization below would fail halfway.
+	if (capacitorLoop(net)) return null;
 	const H = oc.H;
 	const L = new Float64Array(m * m);
 	for (let j = 0; j < m; j++) {
@@ -61,4 +65,13 @@ export function shortCircuitTimeConstantsRC(
 		const r = 1 / sum;
 		return { element: e.id, resistance: r, tau: e.value * r };
 	});
+}
+
+/** Whether some capacitor closes a loop of capacitors and voltage sources (ground included). */
+function capacitorLoop(net: ResolvedNetwork): boolean {
+	const joined = new UnionFind(net.nodeNames.length);
+	for (const e of net.elements) if (e.type === 'V') joined.union(e.nodes[0], e.nodes[1]);
+	for (const e of net.elements)
+		if (e.type === 'C' && !joined.union(e.nodes[0], e.nodes[1])) return true;
+	return false;
 }
