@@ -120,7 +120,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 		md = { direct: ocPorts.h0, poles: [] };
 	} else {
 		const { a, pm, s0 } = shiftedModel(net, oc, sc);
-		sys = directSystem(a, s0);
+		sys = directSystem(a, s0, pm.inverse ?? null);
 		elementsOfPorts = pm.elements;
 		const poleSolve = computePoles(a, pm);
 		roots = poleSolve.roots;

@@ -56,6 +56,8 @@ export interface DirectSystem {
 	s0: number | null;
 	/** The reduction, built at the first solve (null: G + s0·C was singular). */
 	reduced: HessenbergRoute | null | undefined;
+	/** (G + s0·C)⁻¹ in the original numbering, column-major, when the caller already has it. */
+	inverseAtShift: Float64Array | null;
 	/** Points answered by the Hessenberg route / handed to the banded LU after it declined. */
 	stats: { hessenberg: number; fallback: number };
 	/** Answers by s (see solveAt). */
@@ -121,7 +123,11 @@ function triplets(list: [number, number, number][]) {
 
 /** `s0`: a real shift where G + s0·C is regular (the analysis' own), enabling the Hessenberg
  *  route; without it every point is a banded LU. */
-export function directSystem(a: Assembled, s0: number | null = null): DirectSystem {
+export function directSystem(
+	a: Assembled,
+	s0: number | null = null,
+	inverseAtShift: Float64Array | null = null
+): DirectSystem {
 	const n = a.size;
 	// The pattern of G + sC for the ordering: G's entries plus every port's outer product.
 	const pattern = a.g.slice();
@@ -174,6 +180,7 @@ export function directSystem(a: Assembled, s0: number | null = null): DirectSyst
 					: 'band',
 		s0,
 		reduced: undefined,
+		inverseAtShift,
 		stats: { hessenberg: 0, fallback: 0 },
 		kept: new Map()
 	};
@@ -187,7 +194,11 @@ function solveReduced(
 	derivative: boolean
 ): DirectPoint | null {
 	if (sys.reduced === undefined)
-		sys.reduced = hessenbergRoute({ n: sys.n, g: sys.g, cap: sys.cap, b: sys.b }, sys.s0!);
+		sys.reduced = hessenbergRoute(
+			{ n: sys.n, g: sys.g, cap: sys.cap, b: sys.b },
+			sys.s0!,
+			sys.inverseAtShift && permutedInverse(sys.inverseAtShift, sys.pos)
+		);
 	if (!sys.reduced) return null;
 	const { x, y } = sys;
 	x.ex.fill(0);
@@ -419,4 +430,15 @@ export function ratio(a0: Wide, b0: Wide): { re: number; im: number } {
 export function toComplex(w: Wide): { re: number; im: number } {
 	const s = 2 ** w.ex;
 	return { re: w.re * s, im: w.im * s };
+}
+
+/** A column-major inverse in the original numbering, row-major in the solve's numbering. */
+function permutedInverse(inv: Float64Array, pos: Int32Array): Float64Array {
+	const n = pos.length;
+	const out = new Float64Array(n * n);
+	for (let c = 0; c < n; c++) {
+		const pc = pos[c];
+		for (let r = 0; r < n; r++) out[pos[r] * n + pc] = inv[c * n + r];
+	}
+	return out;
 }

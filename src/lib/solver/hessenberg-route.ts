@@ -1,5 +1,5 @@
 import { hessenberg } from './hessenberg';
-import { luFactor, luSolve, luSolveTransposed } from './lu';
+import { luFactor, luSolve, luSolveTransposed, type RealLU } from './lu';
 import { SINGULAR_PIVOT } from './port-model';
 import {
 	applySparse,
@@ -94,15 +94,28 @@ export interface HessenbergRoute {
 
 const vec = (n: number): Vec => ({ re: new Float64Array(n), im: new Float64Array(n) });
 
-/** Builds the reduction at s0; null when G + s0·C is (nearly) singular. */
-export function hessenbergRoute(eq: Equations, s0: number): HessenbergRoute | null {
+/**
+ * Builds the reduction at s0; null when G + s0·C is (nearly) singular. `inverse`: (G + s0·C)⁻¹,
+ * row-major in this numbering, when the caller has already formed it (the port model does when
+ * there are more ports than unknowns): then K is read off it column by column of C and P is one
+ * product, with no factorization and no solves here.
+ */
+export function hessenbergRoute(
+	eq: Equations,
+	s0: number,
+	inverse: Float64Array | null = null
+): HessenbergRoute | null {
 	const { n, g, cap } = eq;
-	const a0 = new Float64Array(n * n);
-	for (let k = 0; k < g.v.length; k++) a0[g.r[k] * n + g.c[k]] += g.v[k];
-	for (let k = 0; k < cap.v.length; k++) a0[cap.r[k] * n + cap.c[k]] += s0 * cap.v[k];
-	const lu = luFactor(a0, n, true);
-	if (!(lu.pivotRatio >= SINGULAR_PIVOT)) return null;
-	// K = (G + s0·C)⁻¹·C, one solve per column of C that has an entry.
+	let lu: RealLU | null = null;
+	if (!inverse) {
+		const a0 = new Float64Array(n * n);
+		for (let k = 0; k < g.v.length; k++) a0[g.r[k] * n + g.c[k]] += g.v[k];
+		for (let k = 0; k < cap.v.length; k++) a0[cap.r[k] * n + cap.c[k]] += s0 * cap.v[k];
+		lu = luFactor(a0, n, true);
+		if (!(lu.pivotRatio >= SINGULAR_PIVOT)) return null;
+	}
+	// K = (G + s0·C)⁻¹·C, one solve (or one combination of the inverse's columns) per column
+	// of C that has an entry.
 	const cols: number[][] = Array.from({ length: n }, () => []);
 	for (let k = 0; k < cap.v.length; k++) cols[cap.c[k]].push(k);
 	const kmat = new Float64Array(n * n);
@@ -110,20 +123,37 @@ export function hessenbergRoute(eq: Equations, s0: number): HessenbergRoute | nu
 	for (let j = 0; j < n; j++) {
 		if (cols[j].length === 0) continue;
 		col.fill(0);
-		for (const k of cols[j]) col[cap.r[k]] += cap.v[k];
-		luSolve(lu, col);
+		if (lu) {
+			for (const k of cols[j]) col[cap.r[k]] += cap.v[k];
+			luSolve(lu, col);
+		} else
+			for (const k of cols[j]) {
+				const v = cap.v[k];
+				const c = cap.r[k];
+				for (let i = 0; i < n; i++) col[i] += v * inverse![i * n + c];
+			}
 		for (let i = 0; i < n; i++) kmat[i * n + j] = col[i];
 	}
 	for (let i = 0; i < kmat.length; i++) if (!Number.isFinite(kmat[i])) return null;
 	const { h: t, q, scale } = hessenberg(kmat, n, true);
 	const bq = new Float64Array(n * n);
 	for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) bq[i * n + j] = scale[i] * q[i * n + j];
-	// Row j of P solves (G + s0·C)ᵀ·p = B⁻¹·(column j of Q).
+	// Row j of P solves (G + s0·C)ᵀ·p = B⁻¹·(column j of Q): pⱼ = Σᵣ (qᵣⱼ/bᵣ)·(row r of A⁻¹).
 	const p = new Float64Array(n * n);
 	for (let j = 0; j < n; j++) {
 		for (let i = 0; i < n; i++) col[i] = q[i * n + j] / scale[i];
-		luSolveTransposed(lu, col);
-		p.set(col, j * n);
+		if (lu) {
+			luSolveTransposed(lu, col);
+			p.set(col, j * n);
+		} else {
+			const row = j * n;
+			for (let r = 0; r < n; r++) {
+				const f = col[r];
+				if (f === 0) continue;
+				const src = r * n;
+				for (let i = 0; i < n; i++) p[row + i] += f * inverse![src + i];
+			}
+		}
 	}
 	for (let i = 0; i < p.length; i++) if (!Number.isFinite(p[i])) return null;
 	const bd = new Float64Array(n);

@@ -34,6 +34,9 @@ export interface PortModel {
 	 * network's nodes instead of its ports (node-space-spectrum.ts); null when it is singular.
 	 */
 	lu: RealLU | null;
+	/** A⁻¹ = (G + s0·C)⁻¹, column-major (inverse[c·n + r] = (A⁻¹)ᵣ꜀), when it was formed (more
+	 *  ports than unknowns); the wide-band response route reuses it (hessenberg-route.ts). */
+	inverse?: Float64Array;
 }
 
 /** Pivot ratio under which a factorization is taken as singular (see docs/methods.md). */
@@ -94,6 +97,7 @@ function fillFromInverse(a: Assembled, lu: ReturnType<typeof luFactor>, model: P
 	const n = a.size;
 	const m = a.ports.length;
 	const inv = new Float64Array(n * n); // column-major: inv[c·n + r] = (A⁻¹)[r][c]
+	model.inverse = inv;
 	const col = new Float64Array(n);
 	for (let c = 0; c < n; c++) {
 		col.fill(0);
