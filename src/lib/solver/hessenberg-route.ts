@@ -1,20 +1,20 @@
 import { hessenberg } from './hessenberg';
 import { luFactor, luSolve, luSolveTransposed, type RealLU } from './lu';
 import { SINGULAR_PIVOT } from './port-model';
+import { applySparse, residualWork, type ResidualWork } from './kernels/pencil-residual';
 import {
-	applySparse,
-	pencilResidual,
-	residualWork,
-	type ResidualWork,
-	type Triplets
-} from './kernels/pencil-residual';
+	complexVector,
+	realTimesComplex,
+	type ComplexVector
+} from './kernels/real-complex-product';
+import { certify, DERIVATIVE_TOL, plain, type Equations } from './certified-solve';
 import {
 	shiftedFactor,
 	shiftedFactorWorkspace,
 	shiftedSolve,
 	type ShiftedFactor
 } from './kernels/shifted-hessenberg';
-import { pinnedRows, pinUnknowns, type PinnedRows } from './pinned-rows';
+import { pinnedRows, type PinnedRows } from './pinned-rows';
 
 /**
  * The network equations (G + sC)·x = b at many s from one reduction (Laub, "Efficient
@@ -30,44 +30,8 @@ import { pinnedRows, pinUnknowns, type PinnedRows } from './pinned-rows';
  * (kernels/shifted-hessenberg.ts) and two products, and dx/ds = −(G + sC)⁻¹·C·x =
  * −B·Q·(I + σT)⁻¹·T·w with the same factors.
  *
- * The reduction is backward stable only relative to ‖K‖, so a small entry of x (the response
- * deep in a stop band) can come out with few correct digits. Every solution is therefore
- * checked on the network equations themselves by its componentwise backward error ω
- * (kernels/pencil-residual.ts) and refined (iterative refinement with the residual in working
- * precision: Skeel, Math. Comp. 35, 1980; Higham, "Accuracy and Stability of Numerical
- * Algorithms", 2nd ed., SIAM 2002, ch. 12) down to the rounding floor of the residual (4ε),
- * at most three times, each step halving ω. Accepted when ω ≤ 64ε: the answer is then the
- * exact response of the network with every conductance, capacitance and source entry changed
- * by at most that relative amount. Otherwise the point is not answered here: the caller solves
- * it by LU.
+ * Every answer is certified on the network equations and refined (certified-solve.ts).
  */
-export const BACKWARD_TOL = 64 * Number.EPSILON;
-/** Refinement goes on to the residual's own rounding floor, as LAPACK's does: beside a pole
- *  (the zero checks probe there) every digit of ω counts. */
-const REFINE_TARGET = 4 * Number.EPSILON;
-const MAX_REFINE = 3;
-/**
- * The derivative y = (G + sC)⁻¹·C·x only feeds the group delay, Newton steps on zeros and the
- * slope read far above every pole, none of which needs the last digits (the banded LU leaves
- * it unrefined): it is accepted, and refined only down to, a componentwise backward error of
- * 1e-12. On the 300-capacitor mesh that spares three refinements in four (each two dense
- * products and a solve); the group delay still agrees with the banded LU's to 1e-9
- * (hessenberg-route.test.ts).
- */
-export const DERIVATIVE_TOL = 1e-12;
-
-/** The parts of the network equations the route reads (direct-solve.ts's DirectSystem). */
-export interface Equations {
-	n: number;
-	g: Triplets;
-	cap: Triplets;
-	b: { idx: Int32Array; val: Float64Array };
-}
-
-interface Vec {
-	re: Float64Array;
-	im: Float64Array;
-}
 
 export interface HessenbergRoute {
 	n: number;
@@ -84,15 +48,13 @@ export interface HessenbergRoute {
 	f: ShiftedFactor;
 	res: ResidualWork;
 	/** Work: reduced vectors w, v, u; the derivative's right-hand side C·x, |C|·|x|. */
-	w: Vec;
-	v: Vec;
-	u: Vec;
-	c: Vec;
+	w: ComplexVector;
+	v: ComplexVector;
+	u: ComplexVector;
+	c: ComplexVector;
 	cAbs: Float64Array;
 	zero: Float64Array;
 }
-
-const vec = (n: number): Vec => ({ re: new Float64Array(n), im: new Float64Array(n) });
 
 /**
  * Builds the reduction at s0; null when G + s0·C is (nearly) singular. `inverse`: (G + s0·C)⁻¹,
@@ -176,110 +138,14 @@ export function hessenbergRoute(
 		pinned: pinnedRows(eq.n, g, cap),
 		f: shiftedFactorWorkspace(n),
 		res: residualWork(n),
-		w: vec(n),
-		v: vec(n),
-		u: vec(n),
-		c: vec(n),
+		w: complexVector(n),
+		v: complexVector(n),
+		u: complexVector(n),
+		c: complexVector(n),
 		cAbs: new Float64Array(n),
 		zero: new Float64Array(n)
 	};
 }
-
-/**
- * out = M·x for a row-major n×n real M and complex x; `add` accumulates. Two rows per pass so
- * each x entry is loaded once for both (1.7× faster in V8 at n = 152; every row's sum keeps
- * its order, so the result is bit for bit the one-row loop's).
- */
-function mulInto(m: Float64Array, x: Vec, out: Vec, n: number, add: boolean): void {
-	const { re: xr, im: xi } = x;
-	const { re: or, im: oi } = out;
-	let i = 0;
-	for (; i + 1 < n; i += 2) {
-		const r0 = i * n;
-		const r1 = r0 + n;
-		let a0 = 0;
-		let b0 = 0;
-		let a1 = 0;
-		let b1 = 0;
-		for (let j = 0; j < n; j++) {
-			const u = xr[j];
-			const v = xi[j];
-			const p = m[r0 + j];
-			const q = m[r1 + j];
-			a0 += p * u;
-			b0 += p * v;
-			a1 += q * u;
-			b1 += q * v;
-		}
-		if (add) {
-			or[i] += a0;
-			oi[i] += b0;
-			or[i + 1] += a1;
-			oi[i + 1] += b1;
-		} else {
-			or[i] = a0;
-			oi[i] = b0;
-			or[i + 1] = a1;
-			oi[i + 1] = b1;
-		}
-	}
-	for (; i < n; i++) {
-		const row = i * n;
-		let sr = 0;
-		let si = 0;
-		for (let j = 0; j < n; j++) {
-			sr += m[row + j] * xr[j];
-			si += m[row + j] * xi[j];
-		}
-		if (add) {
-			or[i] += sr;
-			oi[i] += si;
-		} else {
-			or[i] = sr;
-			oi[i] = si;
-		}
-	}
-}
-
-/**
- * Refines x against rhs as described at the top; true when ω ends at most BACKWARD_TOL.
- */
-function certify(
-	eq: Equations,
-	h: HessenbergRoute,
-	sr: number,
-	si: number,
-	x: Vec,
-	rhs: Vec,
-	rhsAbs: Float64Array,
-	target = REFINE_TARGET,
-	accept = BACKWARD_TOL
-): boolean {
-	const { res, u, n } = h;
-	const r = { re: res.rr, im: res.ri };
-	pinUnknowns(h.pinned, sr, si, x, rhs);
-	let omega = pencilResidual(eq.g, eq.cap, sr, si, x.re, x.im, rhs.re, rhs.im, rhsAbs, res);
-	for (let k = 0; k < MAX_REFINE && omega > target; k++) {
-		if (!Number.isFinite(omega)) return false;
-		mulInto(h.p, r, u, n, false);
-		shiftedSolve(h.f, u.re, u.im);
-		mulInto(h.bq, u, x, n, true);
-		pinUnknowns(h.pinned, sr, si, x, rhs);
-		const next = pencilResidual(eq.g, eq.cap, sr, si, x.re, x.im, rhs.re, rhs.im, rhsAbs, res);
-		if (!(next <= omega / 2)) return Math.min(omega, next) <= accept;
-		omega = next;
-	}
-	return omega <= accept;
-}
-
-/** Outside this range the banded LU's wide numbers are needed (direct-solve.ts). */
-const plain = (x: Vec) => {
-	for (let i = 0; i < x.re.length; i++) {
-		const m = Math.abs(x.re[i]) + Math.abs(x.im[i]);
-		if (m !== 0 && !(m > 1e-280 && m < 1e280)) return false;
-	}
-	return true;
-};
 
 /**
  * x = (G + sC)⁻¹·b and, when asked, y = (G + sC)⁻¹·C·x (so dx/ds = −y), both certified; false
@@ -290,8 +156,8 @@ export function solveByHessenberg(
 	h: HessenbergRoute,
 	sr: number,
 	si: number,
-	x: Vec,
-	y: Vec | null
+	x: ComplexVector,
+	y: ComplexVector | null
 ): boolean {
 	const { n, f, w, v, t } = h;
 	// A pivot below 1e-13 of its row (the pivot-ratio test of lu.ts): singular to working
@@ -300,8 +166,14 @@ export function solveByHessenberg(
 	w.re.set(h.z0);
 	w.im.fill(0);
 	shiftedSolve(f, w.re, w.im);
-	mulInto(h.bq, w, x, n, false);
-	if (!certify(eq, h, sr, si, x, { re: h.bd, im: h.zero }, h.bAbs) || !plain(x)) return false;
+	realTimesComplex(h.bq, w, x, n, false);
+	const correct = (r: ComplexVector, into: ComplexVector) => {
+		realTimesComplex(h.p, r, h.u, n, false);
+		shiftedSolve(f, h.u.re, h.u.im);
+		realTimesComplex(h.bq, h.u, into, n, true);
+	};
+	if (!certify(eq, h, sr, si, x, { re: h.bd, im: h.zero }, h.bAbs, correct) || !plain(x))
+		return false;
 	if (!y) return true;
 	// First guess (I + σT)⁻¹·T·w with w from before the refinement; the check corrects the rest.
 	for (let i = 0; i < n; i++) {
@@ -316,7 +188,9 @@ export function solveByHessenberg(
 		v.im[i] = si2;
 	}
 	shiftedSolve(f, v.re, v.im);
-	mulInto(h.bq, v, y, n, false);
+	realTimesComplex(h.bq, v, y, n, false);
 	applySparse(eq.cap, x.re, x.im, h.c.re, h.c.im, h.cAbs);
-	return certify(eq, h, sr, si, y, h.c, h.cAbs, DERIVATIVE_TOL, DERIVATIVE_TOL) && plain(y);
+	return (
+		certify(eq, h, sr, si, y, h.c, h.cAbs, correct, DERIVATIVE_TOL, DERIVATIVE_TOL) && plain(y)
+	);
 }
