@@ -10,6 +10,7 @@ import {
 	type WideVector
 } from './kernels/complex-band-lu';
 import { hessenbergRoute, solveByHessenberg, type HessenbergRoute } from './hessenberg-route';
+import { modalRoute, solveByModal, type ModalRoute } from './modal-route';
 
 /**
  * The network equations themselves at a complex frequency: (G + sC)·x = b, solved directly —
@@ -54,8 +55,9 @@ export interface DirectSystem {
 	route: 'band' | 'hessenberg';
 	/** The real shift the Hessenberg route reduces at (null: no route). */
 	s0: number | null;
-	/** The reduction, built at the first solve (null: G + s0·C was singular). */
-	reduced: HessenbergRoute | null | undefined;
+	/** The reduction, built at the first solve (null: G + s0·C was singular): the modal one
+	 *  where the equations allow it (modal-route.ts), else the Hessenberg one. */
+	reduced: ModalRoute | HessenbergRoute | null | undefined;
 	/** (G + s0·C)⁻¹ in the original numbering, column-major, when the caller already has it. */
 	inverseAtShift: Float64Array | null;
 	/** Points answered by the Hessenberg route / handed to the banded LU after it declined. */
@@ -71,9 +73,11 @@ export interface DirectSystem {
  *  route answered and handed on over all systems (tests compare the two routes). */
 export const routeOverride: {
 	route: DirectSystem['route'] | null;
+	/** Which reduction the 'hessenberg' route builds (null: the modal one where it applies). */
+	reduction: 'modal' | 'hessenberg' | null;
 	answered: number;
 	declined: number;
-} = { route: null, answered: 0, declined: 0 };
+} = { route: null, reduction: null, answered: 0, declined: 0 };
 
 /** Solves expected per analysis: a 200-point sweep with its derivative, the bandwidth search,
  *  the agreement and zero checks. Only the order of magnitude matters. */
@@ -193,18 +197,29 @@ function solveReduced(
 	si: number,
 	derivative: boolean
 ): DirectPoint | null {
-	if (sys.reduced === undefined)
-		sys.reduced = hessenbergRoute(
-			{ n: sys.n, g: sys.g, cap: sys.cap, b: sys.b },
-			sys.s0!,
-			sys.inverseAtShift && permutedInverse(sys.inverseAtShift, sys.pos)
-		);
-	if (!sys.reduced) return null;
+	const eq = { n: sys.n, g: sys.g, cap: sys.cap, b: sys.b };
+	if (sys.reduced === undefined) {
+		const kind = routeOverride.reduction;
+		sys.reduced =
+			(kind !== 'hessenberg' ? modalRoute(eq, sys.s0!) : null) ??
+			(kind !== 'modal'
+				? hessenbergRoute(
+						eq,
+						sys.s0!,
+						sys.inverseAtShift && permutedInverse(sys.inverseAtShift, sys.pos)
+					)
+				: null);
+	}
+	const route = sys.reduced;
+	if (!route) return null;
 	const { x, y } = sys;
 	x.ex.fill(0);
 	y.ex.fill(0);
-	const eq = { n: sys.n, g: sys.g, cap: sys.cap, b: sys.b };
-	if (!solveByHessenberg(eq, sys.reduced, sr, si, x, derivative ? y : null)) return null;
+	const answered =
+		route.kind === 'modal'
+			? solveByModal(eq, route, sr, si, x, derivative ? y : null)
+			: solveByHessenberg(eq, route, sr, si, x, derivative ? y : null);
+	if (!answered) return null;
 	let dh: Wide | null = null;
 	if (derivative) {
 		const t = wideDot(sys.out, y);
@@ -322,7 +337,8 @@ function solveFresh(
 			return p;
 		}
 		sys.stats.fallback++;
-		routeOverride.declined++;
+		// No reduction at all (the forced one does not apply): nothing was declined.
+		if (sys.reduced) routeOverride.declined++;
 	}
 	if (!factorAt(sys, sr, si)) return null;
 	const { x, y, cap, rs } = sys;

@@ -34,6 +34,7 @@ import { pinnedRows, type PinnedRows } from './pinned-rows';
  */
 
 export interface HessenbergRoute {
+	kind: 'hessenberg';
 	n: number;
 	s0: number;
 	t: Float64Array;
@@ -127,6 +128,7 @@ export function hessenbergRoute(
 		z0[j] = s;
 	}
 	return {
+		kind: 'hessenberg',
 		n,
 		s0,
 		t,

@@ -138,134 +138,161 @@ const relWide = (a: Wide, b: Wide) => {
 	return Math.hypot(q.re - 1, q.im);
 };
 
-describe('Hessenberg route against the banded LU on the same equations (1e-9)', () => {
-	test('random meshes (RC, floating, RLC, active), repeated poles, Q to 1000, doublets, ten decades, controlled sources', () => {
-		let answered = 0;
-		let asked = 0;
-		const problems: string[] = [];
-		for (const { name, doc } of cases()) {
-			const a = analyze(doc, { step: false });
-			const mags = a.poles.map((p) => Math.hypot(p.re, p.im)).filter((m) => m > 0);
-			const lo = Math.min(...mags);
-			const hi = Math.max(...mags);
-			// The shift the analysis would take: the geometric middle of the spectrum (shift.ts).
-			const s0 = Math.sqrt(lo * hi);
-			const asm = assemble(validateNetwork(doc), () => 'pencil');
-			const viaH = directSystem(asm, s0);
-			const viaLU = directSystem(asm, s0);
-			viaH.route = 'hessenberg';
-			viaLU.route = 'band';
-			// jω from far below the slowest to far above the fastest pole; points beside each pole
-			// (as the zero checks probe them); complex points; the real axis far out (as H(∞)).
-			const pts: [number, number][] = [];
-			for (let k = 0; k <= 40; k++)
-				pts.push([0, lo * 1e-3 * (hi / lo) ** (k / 40) * 1e6 ** (k / 40)]);
-			for (const p of a.poles.slice(0, 8)) pts.push([p.re * 0.5, p.im * 1.5]);
-			pts.push([hi * 1e6, 0], [hi * 1e7, 0]);
-			for (const [sr, si] of pts) {
-				const before = viaH.stats.hessenberg;
-				const got: DirectPoint | null = solveAt(viaH, sr, si, true);
-				const want: DirectPoint | null = solveAt(viaLU, sr, si, true);
-				asked++;
-				if (viaH.stats.hessenberg === before) continue;
-				answered++;
-				if (!want) {
-					problems.push(`${name} at ${sr}+j${si}: LU says singular, Hessenberg answered`);
-					continue;
-				}
-				for (const [what, x, y] of [
-					['H', got!.h, want.h],
-					['input functional', got!.zin, want.zin]
-				] as const) {
-					const e = relWide(x, y);
-					if (!(e <= 1e-9)) problems.push(`${name}, ${what} at ${sr}+j${si}: relative ${e}`);
-				}
-				// dH/ds on the scale of |H|/|s| (the group delay on the scale of 1/ω, as in
-				// trust-properties.test.ts): where H′ nearly vanishes its own digits are noise.
-				const dd = toComplex(diff(got!.dh!, want.dh!));
-				const scale = Math.max(
-					logAbsWide(want.dh!),
-					logAbsWide(want.h) - Math.log(Math.hypot(sr, si))
-				);
-				const e = Math.log(Math.hypot(dd.re, dd.im)) - scale;
-				if (!(e <= Math.log(1e-9))) problems.push(`${name}, dH/ds at ${sr}+j${si}: ${Math.exp(e)}`);
-			}
-		}
-		expect(problems, problems.slice(0, 10).join('\n')).toEqual([]);
-		// The route must carry the comparison: most points answered by it, not by the fallback.
-		expect(answered / asked).toBeGreaterThan(0.6);
-	});
-});
+/**
+ * Both reductions behind the wide-band route: the Hessenberg one (any network) and the modal one
+ * (reciprocal networks whose free equations are symmetric definite, modal-route.ts), each forced
+ * in turn; a network the forced reduction does not apply to is answered by the LU alone and
+ * does not count. Each must apply to enough of the list for the comparison to mean something.
+ */
+const REDUCTIONS = [
+	{ kind: 'hessenberg', applies: 20 },
+	{ kind: 'modal', applies: 8 }
+] as const;
 
-describe('analyze with the Hessenberg route against analyze with the banded LU (1e-9)', () => {
-	test('every response field, the bandwidth, H(∞), the zeros and the pairs agree', () => {
-		const problems: string[] = [];
-		routeOverride.answered = routeOverride.declined = 0;
-		const relErr = (a: number | null, b: number | null, scale = Math.abs(b ?? 0)) =>
-			a === null || b === null ? (a === b ? 0 : Infinity) : Math.abs(a - b) / (scale || 1e-300);
-		for (const { name, doc } of cases()) {
-			routeOverride.route = 'hessenberg';
-			const viaH = analyze(doc, { step: false });
-			routeOverride.route = 'band';
-			const viaLU = analyze(doc, { step: false });
-			routeOverride.route = null;
-			const add = (what: string, e: number, tol = 1e-9) => {
-				if (!(e <= tol)) problems.push(`${name}: ${what} differs by ${e}`);
-			};
-			const fa = viaH.frequencyResponse!;
-			const fb = viaLU.frequencyResponse!;
-			fa.f.forEach((f, i) => {
-				// 1e-9 relative in |H| is 8.7e-9 dB; in the phase, 1e-9 rad.
+describe.each(REDUCTIONS)(
+	'$kind reduction against the banded LU on the same equations (1e-9)',
+	({ kind, applies }) => {
+		test('random meshes (RC, floating, RLC, active), repeated poles, Q to 1000, doublets, ten decades, controlled sources', () => {
+			let answered = 0;
+			let asked = 0;
+			let networks = 0;
+			const problems: string[] = [];
+			routeOverride.reduction = kind;
+			for (const { name, doc } of cases()) {
+				const a = analyze(doc, { step: false });
+				const mags = a.poles.map((p) => Math.hypot(p.re, p.im)).filter((m) => m > 0);
+				const lo = Math.min(...mags);
+				const hi = Math.max(...mags);
+				// The shift the analysis would take: the geometric middle of the spectrum (shift.ts).
+				const s0 = Math.sqrt(lo * hi);
+				const asm = assemble(validateNetwork(doc), () => 'pencil');
+				const viaH = directSystem(asm, s0);
+				const viaLU = directSystem(asm, s0);
+				viaH.route = 'hessenberg';
+				viaLU.route = 'band';
+				// jω from far below the slowest to far above the fastest pole; points beside each pole
+				// (as the zero checks probe them); complex points; the real axis far out (as H(∞)).
+				const pts: [number, number][] = [];
+				for (let k = 0; k <= 40; k++)
+					pts.push([0, lo * 1e-3 * (hi / lo) ** (k / 40) * 1e6 ** (k / 40)]);
+				for (const p of a.poles.slice(0, 8)) pts.push([p.re * 0.5, p.im * 1.5]);
+				pts.push([hi * 1e6, 0], [hi * 1e7, 0]);
+				solveAt(viaH, pts[0][0], pts[0][1], true);
+				if (viaH.reduced?.kind !== kind) continue;
+				networks++;
+				for (const [sr, si] of pts) {
+					const before = viaH.stats.hessenberg;
+					const got: DirectPoint | null = solveAt(viaH, sr, si, true);
+					const want: DirectPoint | null = solveAt(viaLU, sr, si, true);
+					asked++;
+					if (viaH.stats.hessenberg === before) continue;
+					answered++;
+					if (!want) {
+						problems.push(`${name} at ${sr}+j${si}: LU says singular, Hessenberg answered`);
+						continue;
+					}
+					for (const [what, x, y] of [
+						['H', got!.h, want.h],
+						['input functional', got!.zin, want.zin]
+					] as const) {
+						const e = relWide(x, y);
+						if (!(e <= 1e-9)) problems.push(`${name}, ${what} at ${sr}+j${si}: relative ${e}`);
+					}
+					// dH/ds on the scale of |H|/|s| (the group delay on the scale of 1/ω, as in
+					// trust-properties.test.ts): where H′ nearly vanishes its own digits are noise.
+					const dd = toComplex(diff(got!.dh!, want.dh!));
+					const scale = Math.max(
+						logAbsWide(want.dh!),
+						logAbsWide(want.h) - Math.log(Math.hypot(sr, si))
+					);
+					const e = Math.log(Math.hypot(dd.re, dd.im)) - scale;
+					if (!(e <= Math.log(1e-9)))
+						problems.push(`${name}, dH/ds at ${sr}+j${si}: ${Math.exp(e)}`);
+				}
+			}
+			routeOverride.reduction = null;
+			expect(problems, problems.slice(0, 10).join('\n')).toEqual([]);
+			// The route must carry the comparison: most points answered by it, not by the fallback.
+			expect(networks).toBeGreaterThanOrEqual(applies);
+			expect(answered / asked).toBeGreaterThan(0.6);
+		});
+	}
+);
+
+describe.each(REDUCTIONS)(
+	'analyze with the $kind reduction against analyze with the banded LU (1e-9)',
+	({ kind }) => {
+		test('every response field, the bandwidth, H(∞), the zeros and the pairs agree', () => {
+			const problems: string[] = [];
+			routeOverride.answered = routeOverride.declined = 0;
+			routeOverride.reduction = kind;
+			const relErr = (a: number | null, b: number | null, scale = Math.abs(b ?? 0)) =>
+				a === null || b === null ? (a === b ? 0 : Infinity) : Math.abs(a - b) / (scale || 1e-300);
+			for (const { name, doc } of cases()) {
+				routeOverride.route = 'hessenberg';
+				const viaH = analyze(doc, { step: false });
+				routeOverride.route = 'band';
+				const viaLU = analyze(doc, { step: false });
+				routeOverride.route = null;
+				const add = (what: string, e: number, tol = 1e-9) => {
+					if (!(e <= tol)) problems.push(`${name}: ${what} differs by ${e}`);
+				};
+				const fa = viaH.frequencyResponse!;
+				const fb = viaLU.frequencyResponse!;
+				fa.f.forEach((f, i) => {
+					// 1e-9 relative in |H| is 8.7e-9 dB; in the phase, 1e-9 rad.
+					add(
+						`|H| at ${f} Hz`,
+						Math.abs((fa.magnitudeDb[i] ?? 0) - (fb.magnitudeDb[i] ?? 0)),
+						8.7e-9
+					);
+					add(`phase at ${f} Hz`, Math.abs((fa.phaseDeg[i] ?? 0) - (fb.phaseDeg[i] ?? 0)), 5.8e-8);
+					add(
+						`group delay at ${f} Hz`,
+						relErr(
+							fa.groupDelay[i],
+							fb.groupDelay[i],
+							Math.max(Math.abs(fb.groupDelay[i] ?? 0), 1 / (2 * Math.PI * f))
+						)
+					);
+					const za = viaH.inputImpedance?.magnitude[i] ?? null;
+					const zb = viaLU.inputImpedance?.magnitude[i] ?? null;
+					add(`|Zin| at ${f} Hz`, relErr(za, zb));
+				});
+				add('bandwidth', relErr(viaH.bandwidth, viaLU.bandwidth));
 				add(
-					`|H| at ${f} Hz`,
-					Math.abs((fa.magnitudeDb[i] ?? 0) - (fb.magnitudeDb[i] ?? 0)),
-					8.7e-9
-				);
-				add(`phase at ${f} Hz`, Math.abs((fa.phaseDeg[i] ?? 0) - (fb.phaseDeg[i] ?? 0)), 5.8e-8);
-				add(
-					`group delay at ${f} Hz`,
+					'H(∞)',
 					relErr(
-						fa.groupDelay[i],
-						fb.groupDelay[i],
-						Math.max(Math.abs(fb.groupDelay[i] ?? 0), 1 / (2 * Math.PI * f))
+						viaH.highFrequencyGain,
+						viaLU.highFrequencyGain,
+						Math.max(Math.abs(viaLU.highFrequencyGain ?? 0), Math.abs(viaLU.dcGain ?? 0))
 					)
 				);
-				const za = viaH.inputImpedance?.magnitude[i] ?? null;
-				const zb = viaLU.inputImpedance?.magnitude[i] ?? null;
-				add(`|Zin| at ${f} Hz`, relErr(za, zb));
-			});
-			add('bandwidth', relErr(viaH.bandwidth, viaLU.bandwidth));
-			add(
-				'H(∞)',
-				relErr(
-					viaH.highFrequencyGain,
-					viaLU.highFrequencyGain,
-					Math.max(Math.abs(viaLU.highFrequencyGain ?? 0), Math.abs(viaLU.dcGain ?? 0))
-				)
-			);
-			add('zero count', viaH.zeros.length === viaLU.zeros.length ? 0 : Infinity);
-			// Zeros, unless the analysis itself says its pole–zero form disagrees with the network
-			// equations (then it warns that the lists may be incomplete, in both routes alike).
-			const flagged = viaLU.warnings.some((w) => w.code === 'pole_zero_disagreement');
-			if (!flagged)
-				viaH.zeros.forEach((z, i) => {
-					const w = viaLU.zeros[i];
-					const d = Math.hypot(z.re - w.re, z.im - w.im);
-					add(`zero ${i}`, d === 0 ? 0 : d / Math.hypot(w.re, w.im));
-				});
-			add('pair count', viaH.pairs.length === viaLU.pairs.length ? 0 : Infinity);
-			const codes = (x: typeof viaH) =>
-				x.warnings
-					.map((w) => w.code)
-					.sort()
-					.join(',');
-			add(
-				`warnings ${codes(viaH)} vs ${codes(viaLU)}`,
-				codes(viaH) === codes(viaLU) ? 0 : Infinity
-			);
-		}
-		expect(problems, problems.slice(0, 12).join('\n')).toEqual([]);
-		const { answered, declined } = routeOverride;
-		expect(answered / (answered + declined)).toBeGreaterThan(0.6);
-	});
-});
+				add('zero count', viaH.zeros.length === viaLU.zeros.length ? 0 : Infinity);
+				// Zeros, unless the analysis itself says its pole–zero form disagrees with the network
+				// equations (then it warns that the lists may be incomplete, in both routes alike).
+				const flagged = viaLU.warnings.some((w) => w.code === 'pole_zero_disagreement');
+				if (!flagged)
+					viaH.zeros.forEach((z, i) => {
+						const w = viaLU.zeros[i];
+						const d = Math.hypot(z.re - w.re, z.im - w.im);
+						add(`zero ${i}`, d === 0 ? 0 : d / Math.hypot(w.re, w.im));
+					});
+				add('pair count', viaH.pairs.length === viaLU.pairs.length ? 0 : Infinity);
+				const codes = (x: typeof viaH) =>
+					x.warnings
+						.map((w) => w.code)
+						.sort()
+						.join(',');
+				add(
+					`warnings ${codes(viaH)} vs ${codes(viaLU)}`,
+					codes(viaH) === codes(viaLU) ? 0 : Infinity
+				);
+			}
+			routeOverride.reduction = null;
+			expect(problems, problems.slice(0, 12).join('\n')).toEqual([]);
+			const { answered, declined } = routeOverride;
+			expect(answered / (answered + declined)).toBeGreaterThan(0.6);
+		});
+	}
+);
