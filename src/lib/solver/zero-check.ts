@@ -5,9 +5,12 @@ import type { Root } from './poles';
  * Confirms transmission zeros on the network equations and finds the ones the eigenproblem lost.
  *
  * A zero z of H is confirmed when the Newton step H/H′ at z (both from direct solves) is below
- * 1e-6·|z|: near a zero of order k, H/H′ ≈ (s − z)/k, while at a point that is no zero it is of
- * the order of the distance to the nearest singularity. A confirmed zero is polished by up to
- * four Newton steps. Rounding in the eigenproblem produces candidates that fail this test (a
+ * 1e-4·|z| and the iteration then settles: near a zero of order k, H/H′ ≈ (s − z)/k, while at a
+ * point that is no zero it is of the order of the distance to the nearest singularity (a
+ * rounded infinite zero far above the poles steps by about |z|/4). A confirmed zero is polished
+ * by up to eight Newton steps. (The gate was 1e-6: a zero three decades above the shift comes
+ * out of the eigenproblem 2.3e-6 off and was dropped, and the count then "recovered" a wrong
+ * one beside a pole.) Rounding in the eigenproblem produces candidates that fail this test (a
  * right-half-plane "zero" of a ladder whose numerator is a constant); they are dropped.
  *
  * A zero lost next to a pole (a near-cancelling pair whose zero the eigenproblem merged into
@@ -15,8 +18,16 @@ import type { Root } from './poles';
  * pair, r = R(p)·(p − z). From f(s) = H(s)·(s − p) at p ± η|p|, r ≈ (f₊ + f₋)/2 and
  * R(p) ≈ (f₊ − f₋)/(2η|p|), so z ≈ p − r/R(p); Newton on H finishes it.
  */
-const CONFIRM = 1e-6;
+const CONFIRM = 1e-4;
 const PAIR = 0.01;
+/**
+ * Newton must also settle: its last step below 1e-8·|z| (a double zero converges linearly,
+ * halving the step, so eight steps from the gate get there). An unsettled iteration is no
+ * zero: a real start beside a complex pair, kept on the real axis, stalls near the pair's real
+ * part with steps of 1 % (a random RC mesh "recovered" such a zero at −2.386e8 where |H| was
+ * 1.6e-3; the pair was at −2.388e8 ± 1.08e6j).
+ */
+const SETTLED = 1e-8;
 
 export interface CheckedZero {
 	re: number;
@@ -48,13 +59,15 @@ export function confirmZero(
 	let zi = im;
 	let step = newtonStep(sys, zr, zi);
 	if (!step || Math.hypot(step.re, step.im) > gate * r0) return null;
+	let last = Infinity;
 	for (let k = 0; k < 8 && step; k++) {
-		const size = Math.hypot(step.re, step.im);
+		last = Math.hypot(step.re, step.im);
 		zr -= step.re;
 		zi = im === 0 ? 0 : zi - step.im;
-		if (size <= 1e-14 * r0) break;
+		if (last <= 1e-14 * r0) break;
 		step = newtonStep(sys, zr, zi);
 	}
+	if (!(last <= SETTLED * r0)) return null;
 	return Math.hypot(zr - re, zi - im) <= 2 * gate * r0 ? { re: zr, im: zi } : null;
 }
 
@@ -127,8 +140,15 @@ export function checkedZeros(
 		const z = p
 			? (confirmZero(sys, c.re, c.im) ?? zeroBesidePole(sys, p))
 			: confirmZero(sys, c.re, c.im);
-		if (z && !(z.re === 0 && z.im === 0)) push(z);
-		else if (!z) dropped += c.im > 0 ? 2 : 1;
+		// A candidate that walked onto a zero already in the list (the wider gate lets Newton
+		// travel up to 1e-4·|z|) is that zero again, not a second one; a genuine double zero's
+		// two candidates each start within about √ε of it and stay.
+		const again =
+			z &&
+			Math.hypot(z.re - c.re, z.im - c.im) > 1e-6 * Math.hypot(z.re, z.im) &&
+			out.some((w) => Math.hypot(w.re - z.re, w.im - z.im) <= 1e-10 * Math.hypot(z.re, z.im));
+		if (z && !again && !(z.re === 0 && z.im === 0)) push(z);
+		else if (!z || again) dropped += c.im > 0 ? 2 : 1;
 	}
 	let found = 0;
 	if (expected === null || out.length < expected) {
