@@ -12,7 +12,7 @@ import { directSystem } from '../../../src/lib/solver/direct-solve';
 import { newtonStep } from './helpers';
 
 const fixture = JSON.parse(
-	readFileSync(new URL('./fixtures/wide-rc-mesh-far-zero.json', import.meta.url), 'utf8')
+	readFileSync(new URL('./networks/wide-rc-mesh-far-zero.json', import.meta.url), 'utf8')
 );
 
 describe('zeros far above the shift and no zero invented beside a pole', () => {
