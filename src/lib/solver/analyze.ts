@@ -230,7 +230,7 @@ export function analyze(doc: unknown, options: AnalyzeOptions = {}): Analysis {
 	if (worst && worst.size > AGREE) {
 		extra.push({
 			code: 'pole_zero_disagreement',
-			message: `the pole–zero form differs from the network equations by ${worst.size.toPrecision(2)} (relative) at ${worst.f.toPrecision(4)} Hz; the responses come from the network equations, the pole and zero lists may be incomplete there`
+			message: `the pole–zero form differs from the network equations by ${worst.size.toPrecision(2)} (relative) at ${worst.f.toPrecision(4)} Hz; the responses come from the network equations, the pole and zero lists may be incomplete or inexact there`
 		});
 	}
 	const order = roots.map((_, i) => i).sort((i, j) => byMagnitude(roots[i], roots[j]));
