@@ -7,6 +7,13 @@ import {
 } from './kernels/real-complex-product';
 import { certify, DERIVATIVE_TOL, plain, type Equations } from './certified-solve';
 import { pinnedRows, type PinnedRows } from './pinned-rows';
+import {
+	cholesky,
+	isSymmetric,
+	lowerSolveRows,
+	lowerTransposedSolveRows,
+	transpose
+} from './kernels/dense-cholesky';
 
 /**
  * The network equations (G + sC)·x = b at many s for a reciprocal network whose equations,
@@ -109,8 +116,8 @@ export function modalRoute(eq: Equations, s0: number): ModalRoute | null {
 	};
 	visit(g, false);
 	visit(cap, true);
-	if (!symmetric(a0, nf) || !symmetric(cf, nf)) return null;
-	const l = cholesky(a0, nf);
+	if (!isSymmetric(a0, nf) || !isSymmetric(cf, nf)) return null;
+	const l = cholesky(a0, nf, PIVOT_FLOOR);
 	if (!l) return null;
 	// M = L⁻¹·C·L⁻ᵀ: W = L⁻¹·C (C symmetric, so Wᵀ = C·L⁻ᵀ), then M = L⁻¹·Wᵀ.
 	const w = lowerSolveRows(l, cf, nf);
@@ -124,7 +131,7 @@ export function modalRoute(eq: Equations, s0: number): ModalRoute | null {
 	const eig = symmetricEigen(m, nf);
 	if (!eig) return null;
 	// X = L⁻ᵀ·U, U's columns the eigenvectors (rows of eig.vectors).
-	const x = upperTransposedSolveRows(l, transpose(eig.vectors, nf), nf);
+	const x = lowerTransposedSolveRows(l, transpose(eig.vectors, nf), nf);
 	for (let i = 0; i < x.length; i++) if (!Number.isFinite(x[i])) return null;
 	const bd = new Float64Array(n);
 	for (let k = 0; k < eq.b.idx.length; k++) bd[eq.b.idx[k]] += eq.b.val[k];
@@ -344,73 +351,4 @@ function entriesFrom(list: [number, number, number, number][]): Entries {
 		g: Float64Array.from(list, (e) => e[2]),
 		c: Float64Array.from(list, (e) => e[3])
 	};
-}
-
-function symmetric(a: Float64Array, n: number): boolean {
-	let top = 0;
-	for (let i = 0; i < a.length; i++) top = Math.max(top, Math.abs(a[i]));
-	for (let i = 0; i < n; i++)
-		for (let j = i + 1; j < n; j++)
-			if (!(Math.abs(a[i * n + j] - a[j * n + i]) <= 1e-14 * top)) return false;
-	return true;
-}
-
-/** Lower Cholesky factor (row-major, upper part zero), or null unless clearly definite. */
-function cholesky(a: Float64Array, n: number): Float64Array | null {
-	const l = new Float64Array(n * n);
-	for (let j = 0; j < n; j++) {
-		const rj = j * n;
-		let d = a[rj + j];
-		for (let k = 0; k < j; k++) d -= l[rj + k] * l[rj + k];
-		if (!(d > PIVOT_FLOOR * a[rj + j]) || !Number.isFinite(d)) return null;
-		const ljj = Math.sqrt(d);
-		l[rj + j] = ljj;
-		for (let i = j + 1; i < n; i++) {
-			const ri = i * n;
-			let s = a[ri + j];
-			for (let k = 0; k < j; k++) s -= l[ri + k] * l[rj + k];
-			l[ri + j] = s / ljj;
-		}
-	}
-	return l;
-}
-
-/** L⁻¹·B for row-major B (forward substitution along contiguous rows). */
-function lowerSolveRows(l: Float64Array, b: Float64Array, n: number): Float64Array {
-	const out = b.slice();
-	for (let i = 0; i < n; i++) {
-		const ri = i * n;
-		for (let k = 0; k < i; k++) {
-			const f = l[ri + k];
-			if (f === 0) continue;
-			const rk = k * n;
-			for (let j = 0; j < n; j++) out[ri + j] -= f * out[rk + j];
-		}
-		const d = l[ri + i];
-		for (let j = 0; j < n; j++) out[ri + j] /= d;
-	}
-	return out;
-}
-
-/** L⁻ᵀ·B for row-major B (back substitution with Lᵀ along contiguous rows). */
-function upperTransposedSolveRows(l: Float64Array, b: Float64Array, n: number): Float64Array {
-	const out = b.slice();
-	for (let i = n - 1; i >= 0; i--) {
-		const ri = i * n;
-		for (let k = i + 1; k < n; k++) {
-			const f = l[k * n + i];
-			if (f === 0) continue;
-			const rk = k * n;
-			for (let j = 0; j < n; j++) out[ri + j] -= f * out[rk + j];
-		}
-		const d = l[ri + i];
-		for (let j = 0; j < n; j++) out[ri + j] /= d;
-	}
-	return out;
-}
-
-function transpose(a: Float64Array, n: number): Float64Array {
-	const t = new Float64Array(n * n);
-	for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) t[j * n + i] = a[i * n + j];
-	return t;
 }
