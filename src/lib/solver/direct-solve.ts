@@ -9,8 +9,10 @@ import {
 	type BandLU,
 	type WideVector
 } from './kernels/complex-band-lu';
-import { hessenbergRoute, solveByHessenberg, type HessenbergRoute } from './hessenberg-route';
-import { modalRoute, solveByModal, type ModalRoute } from './modal-route';
+import { buildReduction, solveByReduction, type Reduction } from './reduced-route';
+import { logAbs, ratio, toComplex, type Wide } from './wide';
+
+export { logAbs, ratio, toComplex, type Wide };
 
 /**
  * The network equations themselves at a complex frequency: (G + sC)·x = b, solved directly —
@@ -23,14 +25,8 @@ import { modalRoute, solveByModal, type ModalRoute } from './modal-route';
  * every point in O(n²), each answer certified on these equations (hessenberg-route.ts); a point
  * it cannot certify is solved by the banded LU.
  *
- * Results are "wide" complex numbers (mantissa · 2^ex): the response of a 300-section ladder a
- * decade above its last pole is far below 1e-308 and would otherwise underflow to exactly 0.
+ * Results are "wide" complex numbers (wide.ts).
  */
-export interface Wide {
-	re: number;
-	im: number;
-	ex: number;
-}
 
 /** A sparse vector as parallel typed arrays (read in every solve). */
 interface Functional {
@@ -57,7 +53,7 @@ export interface DirectSystem {
 	s0: number | null;
 	/** The reduction, built at the first solve (null: G + s0·C was singular): the modal one
 	 *  where the equations allow it (modal-route.ts), else the Hessenberg one. */
-	reduced: ModalRoute | HessenbergRoute | null | undefined;
+	reduced: Reduction | null | undefined;
 	/** (G + s0·C)⁻¹ in the original numbering, column-major, when the caller already has it. */
 	inverseAtShift: Float64Array | null;
 	/** Points answered by the Hessenberg route / handed to the banded LU after it declined. */
@@ -198,27 +194,14 @@ function solveReduced(
 	derivative: boolean
 ): DirectPoint | null {
 	const eq = { n: sys.n, g: sys.g, cap: sys.cap, b: sys.b };
-	if (sys.reduced === undefined) {
-		const kind = routeOverride.reduction;
-		sys.reduced =
-			(kind !== 'hessenberg' ? modalRoute(eq, sys.s0!) : null) ??
-			(kind !== 'modal'
-				? hessenbergRoute(
-						eq,
-						sys.s0!,
-						sys.inverseAtShift && permutedInverse(sys.inverseAtShift, sys.pos)
-					)
-				: null);
-	}
+	if (sys.reduced === undefined)
+		sys.reduced = buildReduction(eq, sys.s0!, sys.inverseAtShift, sys.pos, routeOverride.reduction);
 	const route = sys.reduced;
 	if (!route) return null;
 	const { x, y } = sys;
 	x.ex.fill(0);
 	y.ex.fill(0);
-	const answered =
-		route.kind === 'modal'
-			? solveByModal(eq, route, sr, si, x, derivative ? y : null)
-			: solveByHessenberg(eq, route, sr, si, x, derivative ? y : null);
+	const answered = solveByReduction(eq, route, sr, si, x, derivative ? y : null);
 	if (!answered) return null;
 	let dh: Wide | null = null;
 	if (derivative) {
@@ -413,48 +396,4 @@ function refineOnce(sys: DirectSystem, v: WideVector, b: Functional, sr: number,
 		v.re[i] += rr[i];
 		v.im[i] += ri[i];
 	}
-}
-
-/** ln|w|, −Infinity for 0. */
-export function logAbs(w: Wide): number {
-	const m = Math.hypot(w.re, w.im);
-	return m === 0 ? -Infinity : Math.log(m) + w.ex * Math.LN2;
-}
-
-/** The same number with its mantissa scaled to [1, 2) (exponent adjusted). */
-function normalized(w: Wide): Wide {
-	const m = Math.max(Math.abs(w.re), Math.abs(w.im));
-	if (m === 0 || !Number.isFinite(m)) return w;
-	const e = Math.floor(Math.log2(m));
-	const s = 2 ** -e;
-	return { re: w.re * s, im: w.im * s, ex: w.ex + e };
-}
-
-/** a/b as an ordinary complex number (the exponents mostly cancel). */
-export function ratio(a0: Wide, b0: Wide): { re: number; im: number } {
-	const a = normalized(a0);
-	const b = normalized(b0);
-	const d = b.re * b.re + b.im * b.im;
-	const s = 2 ** (a.ex - b.ex);
-	return {
-		re: ((a.re * b.re + a.im * b.im) / d) * s,
-		im: ((a.im * b.re - a.re * b.im) / d) * s
-	};
-}
-
-/** The value as an ordinary complex number (±Infinity / 0 outside the double range). */
-export function toComplex(w: Wide): { re: number; im: number } {
-	const s = 2 ** w.ex;
-	return { re: w.re * s, im: w.im * s };
-}
-
-/** A column-major inverse in the original numbering, row-major in the solve's numbering. */
-function permutedInverse(inv: Float64Array, pos: Int32Array): Float64Array {
-	const n = pos.length;
-	const out = new Float64Array(n * n);
-	for (let c = 0; c < n; c++) {
-		const pc = pos[c];
-		for (let r = 0; r < n; r++) out[pos[r] * n + pc] = inv[c * n + r];
-	}
-	return out;
 }
